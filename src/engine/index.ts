@@ -1,0 +1,6 @@
+// The engine's one public door: pure numerics, no DOM, no React, no worker globals.
+export type { Surface } from './surface';
+export * from './vector';
+export * from './rng';
+export * from './run';
+export { SettingError, type Optimizer, type Oracle, type StepContext, type StepReport } from './optim/types';

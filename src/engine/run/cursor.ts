@@ -1,0 +1,176 @@
+import type { Surface } from '../surface';
+import type { Optimizer, Oracle } from '../optim/types';
+import { createRng, nextGaussian, type RngState } from '../rng';
+import { allFinite, norm2 } from '../vector';
+import type { RunOutcome } from './outcome';
+import {
+  DEFAULT_BLOW_UP_FACTOR,
+  DEFAULT_LOSS_CHANGE_PATIENCE,
+  validateRunSettings,
+  type RunSettings,
+} from './settings';
+import { allocateBatch, trimBatch, type TrajectoryBatch } from './trajectory';
+
+/** Everything a run needs to resume, as plain data (structuredClone-able). */
+export interface RunState {
+  /** Steps taken so far. */
+  t: number;
+  x: Float64Array;
+  /** Exact gradient at x. */
+  grad: Float64Array;
+  loss: number;
+  initialLoss: number;
+  optimizerState: unknown;
+  rng: RngState;
+  /** Consecutive steps that met the loss-change test. */
+  calmSteps: number;
+  evaluations: number;
+  /** Whether step 0 has been handed out in a batch. */
+  startReported: boolean;
+  outcome: RunOutcome | null;
+}
+
+/**
+ * Steps one run forward in batches. The cursor binds a surface and an optimizer to a plain-data
+ * `RunState`; `advance(n)` takes up to n steps and returns them as a batch, the first batch also
+ * holding step 0 (the start). Same settings and seed, same numbers.
+ */
+export class RunCursor {
+  readonly state: RunState;
+  private readonly oracle: Oracle;
+  private readonly work: Float64Array;
+
+  constructor(
+    readonly surface: Surface,
+    readonly optimizer: Optimizer,
+    readonly settings: RunSettings,
+  ) {
+    validateRunSettings(settings, surface.dimension);
+    const n = surface.dimension;
+    const x = Float64Array.from(settings.start);
+    const grad = new Float64Array(n);
+    const loss = surface.valueGradient(x, grad);
+    this.state = {
+      t: 0,
+      x,
+      grad,
+      loss,
+      initialLoss: loss,
+      optimizerState: optimizer.init(Float64Array.from(x)),
+      rng: createRng(settings.seed),
+      calmSteps: 0,
+      evaluations: 1,
+      startReported: false,
+      outcome: null,
+    };
+    this.work = new Float64Array(n);
+    this.oracle = noisyOracle(surface, settings.gradientNoise ?? 0, this.state);
+    this.state.outcome = this.checkPoint();
+  }
+
+  get outcome(): RunOutcome | null {
+    return this.state.outcome;
+  }
+
+  /** Takes up to `maxSteps` steps (fewer if the run ends) and returns the recorded rows. */
+  advance(maxSteps: number): TrajectoryBatch {
+    const s = this.state;
+    const n = this.surface.dimension;
+    const limit = this.settings.stop.maxSteps;
+    const steps = s.outcome ? 0 : Math.max(0, Math.min(maxSteps, limit - s.t));
+    const withStart = !s.startReported;
+    const batch = allocateBatch(withStart ? 0 : s.t + 1, steps + (withStart ? 1 : 0), n);
+    if (withStart) {
+      this.record(batch, Number.NaN);
+      s.startReported = true;
+    }
+    const noise = this.settings.gradientNoise ?? 0;
+    for (let k = 0; k < steps && !s.outcome; k++) {
+      const previousLoss = s.loss;
+      this.work.set(s.grad);
+      if (noise > 0) addNoise(this.work, noise, s.rng);
+      s.t += 1;
+      const report = this.optimizer.step(s.x, this.work, s.optimizerState, { t: s.t, loss: s.loss, oracle: this.oracle });
+      s.evaluations += report.extraEvaluations;
+      if (report.lossAtNewPoint !== undefined && noise === 0) {
+        s.loss = report.lossAtNewPoint;
+        s.grad.set(this.work);
+      } else {
+        s.loss = this.surface.valueGradient(s.x, s.grad);
+        s.evaluations += 1;
+      }
+      this.record(batch, report.learningRate);
+      s.outcome = this.checkPoint() ?? this.checkProgress(previousLoss);
+    }
+    batch.outcome = s.outcome;
+    return trimBatch(batch);
+  }
+
+  /** Runs to the end in batches of `batchSize` steps (for tests and the command line). */
+  runToEnd(batchSize = 4096): TrajectoryBatch[] {
+    const batches: TrajectoryBatch[] = [];
+    do batches.push(this.advance(batchSize));
+    while (!this.state.outcome);
+    return batches;
+  }
+
+  private record(batch: TrajectoryBatch, learningRate: number): void {
+    const s = this.state;
+    const row = batch.count++;
+    batch.points.set(s.x, row * s.x.length);
+    batch.loss[row] = s.loss;
+    batch.gradNorm[row] = norm2(s.grad);
+    batch.learningRate[row] = learningRate;
+  }
+
+  /** Divergence and gradient-norm tests that apply at every point, the start included. */
+  private checkPoint(): RunOutcome | null {
+    const s = this.state;
+    const step = s.t;
+    if (!allFinite(s.x)) return { kind: 'diverged', reason: 'non-finite', step, detail: 'a coordinate became non-finite' };
+    if (!Number.isFinite(s.loss)) return { kind: 'diverged', reason: 'non-finite', step, detail: `the loss became ${s.loss}` };
+    if (!allFinite(s.grad)) return { kind: 'diverged', reason: 'non-finite', step, detail: 'the gradient became non-finite' };
+    const blowUp = this.settings.stop.blowUpFactor ?? DEFAULT_BLOW_UP_FACTOR;
+    if (s.loss - s.initialLoss > blowUp * Math.max(1, Math.abs(s.initialLoss)))
+      return { kind: 'diverged', reason: 'blow-up', step, detail: `the loss rose to ${s.loss.toPrecision(4)} from ${s.initialLoss.toPrecision(4)} at the start` };
+    const gTol = this.settings.stop.gradientNormTolerance;
+    if (gTol !== undefined && norm2(s.grad) <= gTol) return { kind: 'converged', rule: 'gradient-norm', step };
+    return null;
+  }
+
+  private checkProgress(previousLoss: number): RunOutcome | null {
+    const s = this.state;
+    const { lossChangeTolerance, lossChangePatience = DEFAULT_LOSS_CHANGE_PATIENCE, maxSteps } = this.settings.stop;
+    if (lossChangeTolerance !== undefined) {
+      const scale = Math.max(1, Math.abs(s.loss), Math.abs(previousLoss));
+      s.calmSteps = Math.abs(s.loss - previousLoss) / scale <= lossChangeTolerance ? s.calmSteps + 1 : 0;
+      if (s.calmSteps >= lossChangePatience) return { kind: 'converged', rule: 'loss-change', step: s.t };
+    }
+    if (s.t >= maxSteps) return { kind: 'step-limit', step: s.t };
+    return null;
+  }
+}
+
+function addNoise(g: Float64Array, std: number, rng: RngState): void {
+  for (let i = 0; i < g.length; i++) g[i] += std * nextGaussian(rng);
+}
+
+/** The surface as optimizers see it: with the run's gradient noise, counting evaluations. */
+function noisyOracle(surface: Surface, std: number, state: { rng: RngState }): Oracle {
+  return {
+    dimension: surface.dimension,
+    value(x) {
+      return surface.value(x);
+    },
+    valueGradient(x, grad) {
+      const f = surface.valueGradient(x, grad);
+      if (std > 0) addNoise(grad, std, state.rng);
+      return f;
+    },
+    valueGradientHessian(x, grad, hessian) {
+      const f = surface.valueGradientHessian(x, grad, hessian);
+      if (std > 0) addNoise(grad, std, state.rng);
+      return f;
+    },
+  };
+}

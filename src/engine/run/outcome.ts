@@ -1,0 +1,21 @@
+/** How a run ended. Step numbers count optimizer steps; step 0 is the start point. */
+export type RunOutcome =
+  | { kind: 'converged'; rule: 'loss-change' | 'gradient-norm'; step: number }
+  | { kind: 'step-limit'; step: number }
+  | { kind: 'diverged'; reason: 'non-finite' | 'blow-up'; step: number; detail: string }
+  | { kind: 'cancelled'; step: number };
+
+export function describeOutcome(o: RunOutcome): string {
+  switch (o.kind) {
+    case 'converged':
+      return o.rule === 'loss-change'
+        ? `converged (loss change) at step ${o.step}`
+        : `converged (gradient norm) at step ${o.step}`;
+    case 'step-limit':
+      return `step limit reached at step ${o.step}`;
+    case 'diverged':
+      return `diverged at step ${o.step}: ${o.detail}`;
+    case 'cancelled':
+      return `cancelled at step ${o.step}`;
+  }
+}
