@@ -4,3 +4,4 @@ export * from './vector';
 export * from './rng';
 export * from './run';
 export { SettingError, type Optimizer, type Oracle, type StepContext, type StepReport } from './optim/types';
+export * from './slice';

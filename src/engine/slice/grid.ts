@@ -1,0 +1,71 @@
+import type { Surface } from '../surface';
+import { planePoint, type SlicePlane } from './plane';
+
+/**
+ * A regular grid of samples on a slice plane. Samples sit on cell corners:
+ * a_i = a[0] + i (a[1] - a[0]) / (nx - 1), b_j = b[0] + j (b[1] - b[0]) / (ny - 1), stored row-major in a
+ * flat Float64Array at index i + j nx, with j = 0 at b[0] (the bottom of the view).
+ */
+export interface GridRequest {
+  plane: SlicePlane;
+  a: [number, number];
+  b: [number, number];
+  nx: number;
+  ny: number;
+}
+
+export const MAX_GRID_SIDE = 2048;
+
+export function validateGridRequest(req: GridRequest, dimension: number): void {
+  const { nx, ny, a, b, plane } = req;
+  for (const [name, n] of [['nx', nx], ['ny', ny]] as const)
+    if (!Number.isInteger(n) || n < 2 || n > MAX_GRID_SIDE)
+      throw new Error(`grid: ${name} must be a whole number from 2 to ${MAX_GRID_SIDE}, got ${n}`);
+  for (const [name, r] of [['a', a], ['b', b]] as const)
+    if (!(Number.isFinite(r[0]) && Number.isFinite(r[1]) && r[0] < r[1]))
+      throw new Error(`grid: the ${name} range must be two finite numbers, low < high, got [${r[0]}, ${r[1]}]`);
+  if (plane.origin.length !== dimension || plane.u.length !== dimension || plane.v.length !== dimension)
+    throw new Error(`grid: the slice plane has ${plane.origin.length} coordinates but the surface has ${dimension}`);
+}
+
+export function gridA(req: GridRequest, i: number): number {
+  return req.a[0] + (i * (req.a[1] - req.a[0])) / (req.nx - 1);
+}
+
+export function gridB(req: GridRequest, j: number): number {
+  return req.b[0] + (j * (req.b[1] - req.b[0])) / (req.ny - 1);
+}
+
+/**
+ * Evaluates the surface on rows j0 <= j < j1 of the grid into `out` (length nx * ny), so the work can be
+ * split into bands for progress reports or for several workers. Returns `out`.
+ */
+export function sampleGrid(
+  surface: Surface,
+  req: GridRequest,
+  out: Float64Array = new Float64Array(req.nx * req.ny),
+  j0 = 0,
+  j1 = req.ny,
+): Float64Array {
+  const p = new Float64Array(surface.dimension);
+  const { nx } = req;
+  for (let j = j0; j < j1; j++) {
+    const b = gridB(req, j);
+    const row = j * nx;
+    for (let i = 0; i < nx; i++) out[row + i] = surface.value(planePoint(req.plane, gridA(req, i), b, p));
+  }
+  return out;
+}
+
+/** Smallest and largest finite values (NaN when none is finite). */
+export function finiteRange(values: ArrayLike<number>): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let k = 0; k < values.length; k++) {
+    const v = values[k];
+    if (!Number.isFinite(v)) continue;
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  return Number.isFinite(min) && Number.isFinite(max) ? { min, max } : { min: Number.NaN, max: Number.NaN };
+}
