@@ -5,3 +5,5 @@ export * from './rng';
 export * from './run';
 export { SettingError, type Optimizer, type Oracle, type StepContext, type StepReport } from './optim/types';
 export * from './slice';
+export * from './optim';
+export * from './linalg';

@@ -1,0 +1,11 @@
+// The optimizers' one public door.
+export { SettingError, type Optimizer, type Oracle, type StepContext, type StepReport } from './types';
+export type { OptimizerKind, OptimizerSpec, HyperparameterInfo, HyperValue, OptimizerInfo, ResolvedSpec } from './spec';
+export { learningRateAt, SCHEDULES, scheduleInfo, type ScheduleSpec, type ScheduleKind, type ScheduleInfo } from './schedule';
+export { OPTIMIZERS, optimizerInfo, defaultOptimizerSpec } from './catalogue';
+export { validateOptimizerSpec, resolveSpec } from './validate';
+export { buildOptimizer } from './build';
+export { chain, applyTransforms, initTransforms, type GradientTransform, type ChainState } from './transform';
+export * from './transforms';
+export { strongWolfeSearch, backtrackingSearch, cubicMinimizer, safeguardedCubic, type LineFunction, type LinePoint, type LineSearchResult, type StrongWolfeOptions } from './search';
+export { createHistory, clearHistory, pushPair, twoLoopDirection, type CurvatureHistory } from './quasiNewton/history';

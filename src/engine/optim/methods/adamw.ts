@@ -1,0 +1,48 @@
+import { scaleByAdam, type AdamEpsilonForm } from '../transforms';
+import { adamEpsilonFormInfo } from './adam';
+import { firstOrderChain } from './firstOrder';
+import { num, str, type MethodDefinition } from './method';
+import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
+
+/**
+ * AdamW (Loshchilov & Hutter, "Decoupled Weight Decay Regularization", ICLR 2019, Algorithm 2):
+ * Adam's moments from the raw gradient, with the decay kept out of them:
+ *   'library' (default; PyTorch AdamW, Optax adamw, Keras AdamW):
+ *       x_t = x_{t-1} - lr_t ( mhat_t / (sqrt(vhat_t) + eps) + lambda x_{t-1} ),
+ *   'paper': x_t = x_{t-1} - eta_t ( alpha mhat_t / (sqrt(vhat_t) + eps) + lambda x_{t-1} ),
+ *       alpha = the base learning rate, eta_t = lr_t / alpha the schedule multiplier: the decay
+ *       follows the schedule but is not multiplied by alpha.
+ * So PyTorch's lambda is the paper's lambda / alpha. lambda is the spec's weightDecay, default 0.01
+ * (PyTorch; Optax 1e-4, Keras 0.004 from memory). Other defaults as Adam (lr 0.001).
+ */
+export const adamw: MethodDefinition = {
+  info: {
+    kind: 'adamw',
+    label: 'AdamW',
+    defaultLearningRate: 0.001,
+    hyperparameters: [
+      beta1Info(),
+      beta2Info(),
+      epsilonInfo(1e-8),
+      adamEpsilonFormInfo,
+      {
+        name: 'decayForm',
+        label: 'decay form',
+        default: 'library',
+        choices: ['library', 'paper'],
+        help: "'library': decay multiplied by the learning rate (PyTorch, Optax, Keras); 'paper': multiplied by the schedule only, not by the base rate (Loshchilov & Hutter).",
+      },
+    ],
+    usesSchedule: true,
+    defaultWeightDecay: 0.01,
+    summary: 'Adam with weight decay applied to the parameters directly rather than through the gradient.',
+    source: 'I. Loshchilov & F. Hutter, "Decoupled Weight Decay Regularization", ICLR 2019.',
+  },
+  build: (spec) => {
+    const paper = str(spec, 'decayForm') === 'paper';
+    const core = [scaleByAdam(num(spec, 'beta1'), num(spec, 'beta2'), num(spec, 'epsilon'), str<AdamEpsilonForm>(spec, 'epsilonForm'))];
+    // Paper form: lr_t (lambda / alpha) x = eta_t lambda x.
+    const decay = paper ? spec.weightDecay / spec.learningRate : spec.weightDecay;
+    return firstOrderChain(paper ? 'AdamW (paper decay)' : 'AdamW', spec, core, decay);
+  },
+};

@@ -1,0 +1,63 @@
+import { scaleByRms, type EpsilonPlacement } from '../transforms';
+import { firstOrderChain } from './firstOrder';
+import { bool, num, str, type MethodDefinition } from './method';
+import { epsilonInfo, momentumInfo, placementInfo } from './sharedSettings';
+
+/**
+ * RMSProp (Tieleman & Hinton, "Neural Networks for Machine Learning", Coursera, 2012, lecture 6e):
+ *   v_t = rho v_{t-1} + (1 - rho) g_t^2,  x_t = x_{t-1} - lr_t g_t / (sqrt(v_t) + eps);
+ * centred (Graves, "Generating Sequences With Recurrent Neural Networks", arXiv:1308.0850, 2013):
+ * v_t is replaced by v_t - gbar_t^2 with gbar_t = rho gbar_{t-1} + (1 - rho) g_t; with momentum mu:
+ * b_t = mu b_{t-1} + g_t / (sqrt(v_t) + eps), x_t = x_{t-1} - lr_t b_t.
+ * Defaults: lr 0.01, rho 0.9 (the lecture slide, Keras, Optax; PyTorch's alpha defaults to 0.99),
+ * eps 1e-8 outside the root (PyTorch), v_0 = 0, not centred, no momentum.
+ *
+ * Library differences: Keras/TF and Optax (eps_in_sqrt=True) put eps inside, g / sqrt(v + eps); Keras
+ * eps 1e-7; TF1's RMSPropOptimizer starts v at 1; tfjs puts eps (1e-7) inside and lr inside the
+ * momentum buffer, and in its centred form subtracts eps: g / sqrt(v - gbar^2 - eps) (tfjs-core 4.22.0
+ * source, rmsprop_optimizer.js). The lecture has no epsilon.
+ */
+export const rmsprop: MethodDefinition = {
+  info: {
+    kind: 'rmsprop',
+    label: 'RMSProp',
+    defaultLearningRate: 0.01,
+    hyperparameters: [
+      {
+        name: 'decay',
+        label: 'decay (rho)',
+        default: 0.9,
+        min: 0,
+        max: 1,
+        maxExclusive: true,
+        help: 'Decay of the running mean of squared gradients (PyTorch calls it alpha, default 0.99; Keras rho 0.9).',
+      },
+      epsilonInfo(1e-8),
+      placementInfo,
+      {
+        name: 'initialMeanSquare',
+        label: 'initial mean square',
+        default: 0,
+        min: 0,
+        help: 'Starting value of the running mean of squared gradients (PyTorch, Keras 0; TF1 1).',
+      },
+      { name: 'centered', label: 'centred', default: false, help: 'Divide by an estimate of the gradient variance, v - gbar^2, instead of v.' },
+      momentumInfo(0, 'Momentum applied to the scaled gradient (0 = none).'),
+    ],
+    usesSchedule: true,
+    defaultWeightDecay: 0,
+    summary: 'Divides each coordinate by the root of a running mean of its squared gradients.',
+    source: 'T. Tieleman & G. Hinton, "Neural Networks for Machine Learning", Coursera, lecture 6e, 2012.',
+  },
+  build: (spec) =>
+    firstOrderChain('RMSProp', spec, [
+      scaleByRms({
+        decay: num(spec, 'decay'),
+        epsilon: num(spec, 'epsilon'),
+        placement: str<EpsilonPlacement>(spec, 'epsilonPlacement'),
+        initialMeanSquare: num(spec, 'initialMeanSquare'),
+        centered: bool(spec, 'centered'),
+        momentum: num(spec, 'momentum'),
+      }),
+    ]),
+};

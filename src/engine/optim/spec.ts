@@ -1,0 +1,92 @@
+import type { ScheduleSpec } from './schedule';
+
+/**
+ * The optimizer families Fall Line can run. First-order kinds are chains of gradient transforms
+ * (transform.ts); 'lbfgs' and 'newton' take line-search or Hessian steps through the oracle.
+ */
+export type OptimizerKind =
+  | 'gd'
+  | 'momentum'
+  | 'nesterov'
+  | 'adagrad'
+  | 'rmsprop'
+  | 'adam'
+  | 'adamw'
+  | 'amsgrad'
+  | 'nadam'
+  | 'lbfgs'
+  | 'newton';
+
+export type HyperValue = number | boolean | string;
+
+/**
+ * A configured optimizer as plain JSON-serialisable data: what the page edits, the experiment file
+ * stores and the worker receives. `buildOptimizer` turns it into a running `Optimizer`.
+ */
+export interface OptimizerSpec {
+  kind: OptimizerKind;
+  /**
+   * Base learning rate. L-BFGS: the first trial step of each line search (1 for quasi-Newton steps);
+   * Newton: the damping factor on the Newton step (1 = full step).
+   */
+  learningRate: number;
+  /** Kind-specific settings by name (see OPTIMIZERS); missing ones take their defaults. */
+  hyper?: Record<string, HyperValue>;
+  /** Learning-rate schedule over steps (first-order kinds only); default constant. */
+  schedule?: ScheduleSpec;
+  /** Rescale the gradient to this Euclidean norm when it is longer (first-order kinds only). */
+  clipNorm?: number;
+  /** Coupled L2 penalty: the gradient becomes g + l2Penalty * x (for L-BFGS and Newton the whole
+   * objective becomes f + l2Penalty/2 |x|^2, so the line search and the Hessian see it too). */
+  l2Penalty?: number;
+  /**
+   * Decoupled weight decay: after the method's own scaling, the update gains weightDecay * x, and the
+   * sum is multiplied by the (scheduled) learning rate: x <- x - lr_t (u + weightDecay x) (the PyTorch
+   * and Optax convention). First-order kinds only; default 0, except AdamW's own default 0.01.
+   */
+  weightDecay?: number;
+}
+
+/** One kind-specific setting, described for validation and for the settings panel. */
+export interface HyperparameterInfo {
+  name: string;
+  label: string;
+  default: HyperValue;
+  min?: number;
+  max?: number;
+  minExclusive?: boolean;
+  maxExclusive?: boolean;
+  integer?: boolean;
+  /** For string settings: the allowed values. */
+  choices?: string[];
+  help: string;
+}
+
+export interface OptimizerInfo {
+  kind: OptimizerKind;
+  label: string;
+  defaultLearningRate: number;
+  hyperparameters: HyperparameterInfo[];
+  /**
+   * Whether the learning-rate schedule applies. It also marks the first-order kinds, the ones that
+   * accept clipNorm and weightDecay.
+   */
+  usesSchedule: boolean;
+  /** Default of the top-level weightDecay field (0 except AdamW). Added beyond the first sketch of
+   * this interface so the settings panel can show AdamW's own default. */
+  defaultWeightDecay: number;
+  summary: string;
+  /** The paper or book the method comes from. */
+  source: string;
+}
+
+/** A spec with every default filled in, as the method builders receive it. */
+export interface ResolvedSpec {
+  kind: OptimizerKind;
+  learningRate: number;
+  hyper: Record<string, HyperValue>;
+  schedule: ScheduleSpec;
+  clipNorm: number | undefined;
+  l2Penalty: number;
+  weightDecay: number;
+}

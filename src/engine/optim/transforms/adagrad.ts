@@ -1,0 +1,24 @@
+import type { GradientTransform } from '../transform';
+
+export type EpsilonPlacement = 'outside' | 'inside';
+
+/**
+ * AdaGrad scaling: G_t = G_{t-1} + g_t^2 (G_0 = initialAccumulator), then
+ *   u = g / (sqrt(G_t) + eps)  ('outside': Duchi et al., PyTorch)  or  u = g / sqrt(G_t + eps)
+ *   ('inside': Optax, tfjs). A zero denominator (g and G both 0) gives u = 0.
+ */
+export function scaleByAdagrad(epsilon: number, placement: EpsilonPlacement, initialAccumulator: number): GradientTransform<{ sumSquares: Float64Array }> {
+  return {
+    name: 'scaleByAdagrad',
+    init: (p) => ({ sumSquares: new Float64Array(p.length).fill(initialAccumulator) }),
+    update(u, s) {
+      const G = s.sumSquares;
+      for (let i = 0; i < u.length; i++) {
+        G[i] += u[i] * u[i];
+        const d = placement === 'outside' ? Math.sqrt(G[i]) + epsilon : Math.sqrt(G[i] + epsilon);
+        u[i] = d > 0 ? u[i] / d : 0;
+      }
+      return s;
+    },
+  };
+}

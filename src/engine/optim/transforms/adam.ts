@@ -1,0 +1,42 @@
+import type { GradientTransform } from '../transform';
+
+export interface MomentsState {
+  m: Float64Array;
+  v: Float64Array;
+}
+
+export type AdamEpsilonForm = 'algorithm1' | 'hat';
+
+/**
+ * Adam scaling (Kingma & Ba, ICLR 2015): m_t = b1 m + (1 - b1) g, v_t = b2 v + (1 - b2) g^2,
+ *   'algorithm1': u = mhat / (sqrt(vhat) + eps), mhat = m_t / (1 - b1^t), vhat = v_t / (1 - b2^t)
+ *                 (the paper's Algorithm 1; PyTorch, Optax, tfjs);
+ *   'hat':        u = [sqrt(1 - b2^t) / (1 - b1^t)] m_t / (sqrt(v_t) + eps)
+ *                 (the paper's "efficient" form with epsilon-hat; Keras/TF). The two agree when
+ *                 eps_hat = eps sqrt(1 - b2^t).
+ */
+export function scaleByAdam(beta1: number, beta2: number, epsilon: number, form: AdamEpsilonForm = 'algorithm1'): GradientTransform<MomentsState> {
+  return {
+    name: 'scaleByAdam',
+    init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length) }),
+    update(u, s, _p, t) {
+      const { m, v } = s;
+      const c1 = 1 - Math.pow(beta1, t);
+      const c2 = 1 - Math.pow(beta2, t);
+      const hatScale = Math.sqrt(c2) / c1;
+      for (let i = 0; i < u.length; i++) {
+        const g = u[i];
+        m[i] = beta1 * m[i] + (1 - beta1) * g;
+        v[i] = beta2 * v[i] + (1 - beta2) * g * g;
+        if (form === 'algorithm1') {
+          const d = Math.sqrt(v[i] / c2) + epsilon;
+          u[i] = d > 0 ? m[i] / c1 / d : 0;
+        } else {
+          const d = Math.sqrt(v[i]) + epsilon;
+          u[i] = d > 0 ? (hatScale * m[i]) / d : 0;
+        }
+      }
+      return s;
+    },
+  };
+}
