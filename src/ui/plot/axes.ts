@@ -8,6 +8,7 @@
  * margins (AXES_MARGIN is a size that fits the labels).
  */
 import { tickFormat, ticks } from 'd3';
+import { asciiMinus } from './legend';
 import { canvasFont, PLOT_STYLE, type DrawingContext } from './context';
 import type { ViewTransform } from './scales';
 
@@ -54,7 +55,7 @@ export function niceTicks(range: readonly [number, number], approxCount: number)
   if (!(Number.isFinite(lo) && Number.isFinite(hi))) return [];
   const count = Math.max(1, Math.round(approxCount));
   const label = tickFormat(lo, hi, count);
-  return ticks(lo, hi, count).map((value) => ({ value, label: label(value).replace('\u2212', '-') }));
+  return ticks(lo, hi, count).map((value) => ({ value, label: asciiMinus(label(value)) }));
 }
 
 export function axesModel(transform: ViewTransform, labels: AxisLabels): AxesModel {

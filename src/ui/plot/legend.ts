@@ -35,15 +35,17 @@ export interface LegendModel {
   ticks: LegendTick[];
 }
 
-const significant = format('.6~r');
-const exponent = format('.3~e');
-
-/** A readable label for a loss value: plain decimals for 1e-4 <= |v| < 1e6, else exponent form. */
+/**
+ * A readable label for a loss value: the fewest significant digits (up to 12) that give the value back,
+ * plain decimals for 1e-4 <= |v| < 1e6, exponent form otherwise. Hyphen-minus for negatives.
+ */
 export function formatValue(v: number): string {
-  if (v === 0 || Object.is(v, -0)) return '0';
+  if (v === 0) return '0';
   if (!Number.isFinite(v)) return String(v);
+  let p = 1;
+  while (p < 12 && Number(v.toPrecision(p)) !== v) p++;
   const m = Math.abs(v);
-  return m >= 1e-4 && m < 1e6 ? significant(v) : exponent(v);
+  return asciiMinus(format(m >= 1e-4 && m < 1e6 ? `.${p}~r` : `.${Math.max(0, p - 1)}~e`)(v));
 }
 
 export function legendTicks(scale: ValueScale, approxCount = 6): LegendTick[] {
@@ -58,7 +60,7 @@ export function legendTicks(scale: ValueScale, approxCount = 6): LegendTick[] {
 
 function linearTicks(scale: ValueScale, count: number): LegendTick[] {
   const label = tickFormat(scale.min, scale.max, count);
-  return ticks(scale.min, scale.max, count).map((value) => ({ value, position: scale.normalise(value), label: tidy(label(value)) }));
+  return ticks(scale.min, scale.max, count).map((value) => ({ value, position: scale.normalise(value), label: asciiMinus(label(value)) }));
 }
 
 function logTicks(scale: ValueScale, count: number): LegendTick[] {
@@ -92,8 +94,9 @@ function roundTo(v: number, step: number): number {
   return Number(r.toPrecision(12)) + 0; // + 0 turns -0 into 0
 }
 
-function tidy(label: string): string {
-  return label.replace('\u2212', '-');
+/** d3-format writes the Unicode minus sign; labels use the ASCII hyphen-minus so they parse as numbers. */
+export function asciiMinus(label: string): string {
+  return label.replace(/\u2212/g, '-');
 }
 
 /** Bands (one block per contour level, same colours as the plot) and ticks for the legend bar. */
