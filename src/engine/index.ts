@@ -7,3 +7,4 @@ export { SettingError, type Optimizer, type Oracle, type StepContext, type StepR
 export * from './slice';
 export * from './optim';
 export * from './linalg';
+export * from './expr';
