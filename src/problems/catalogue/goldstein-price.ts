@@ -25,7 +25,7 @@ export const goldsteinPrice: CatalogueEntry = {
     [-2, 2],
     [-2, 2],
   ],
-  suggestedStart: [-1.5, 1.5],
+  suggestedStart: [1, 1],
   knownPoints: [
     { point: [0, -1], value: 3, kind: 'global-min', source: `${SCIPY_GO_CITING_JY}; eigenvalues ${COMPUTED_IN_REFERENCE}`, hessianEigenvalues: [402.831012, 965.168988] },
     { point: [-0.6, -0.4], value: 30, kind: 'local-min', source: LOCAL_SOURCE, hessianEigenvalues: [447.917782, 4340.082218] },

@@ -8,7 +8,7 @@ import type { CatalogueEntry, KnownPointsRule } from './types';
  * decays like 4 exp(-2q / w^2) |grad q| / w^2, a wide nearly flat region. tanh is increasing and q has one
  * minimum, so the only stationary point is the global minimum f(1, 0.5) = 0; since tanh'(0) = 1 and
  * tanh''(0) = 0 the Hessian there is diag(2, 8) / w^2 (closed form). At the suggested start (-2.5, 2)
- * with w = 2 the gradient norm is about 3.8e-4: plain descent barely moves while sign-like updates do.
+ * with w = 2 the gradient norm is about 3.4e-4: plain descent barely moves while sign-like updates do.
  */
 export const plateauPoints: KnownPointsRule = (c) => {
   const w2 = c.w * c.w;

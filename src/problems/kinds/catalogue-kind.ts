@@ -1,7 +1,19 @@
-import { compileFormula, type Surface } from '../../engine';
-import { catalogueEntry, knownPointsFor, resolveConstants } from '../catalogue';
+import { compileFormula, type FormulaSurface, type Surface } from '../../engine';
+import { catalogueEntry, knownPointsFor, resolveConstants, type CatalogueEntry } from '../catalogue';
 import type { CatalogueSpec, SurfaceDescription, SurfaceKind } from '../spec';
 import { checkConstants, checkString } from './check';
+
+/** Each entry's formula compiled once (with its default constants); builds rebind constants only. */
+const COMPILED = new Map<string, FormulaSurface>();
+
+function compiled(entry: CatalogueEntry): FormulaSurface {
+  let surface = COMPILED.get(entry.id);
+  if (!surface) {
+    surface = compileFormula(entry.formula, { variables: [...entry.variables], constants: { ...(entry.constants ?? {}) } });
+    COMPILED.set(entry.id, surface);
+  }
+  return surface;
+}
 
 /** Catalogue specs: an entry id plus optional constant overrides, compiled from the entry's formula. */
 export const catalogueKind: SurfaceKind<CatalogueSpec> = {
@@ -11,9 +23,10 @@ export const catalogueKind: SurfaceKind<CatalogueSpec> = {
     return constants ? { kind: 'catalogue', id, constants } : { kind: 'catalogue', id };
   },
 
+  /** A fresh FormulaSurface with the entry's constants, overridden by the spec's. */
   build(spec): Surface {
     const entry = catalogueEntry(spec.id);
-    return compileFormula(entry.formula, { variables: entry.variables, constants: resolveConstants(entry, spec.constants) });
+    return compiled(entry).withConstants(resolveConstants(entry, spec.constants));
   },
 
   describe(spec): SurfaceDescription {
@@ -29,6 +42,7 @@ export const catalogueKind: SurfaceKind<CatalogueSpec> = {
       knownPoints,
       suggestedStart: [...entry.suggestedStart],
     };
+    // With the published constants the entry says; otherwise the lowest known global minimum, if not 0.
     const lowest = Math.min(...knownPoints.filter((p) => p.kind === 'global-min').map((p) => p.value));
     if (changed.length === 0 && entry.logScaleOffset !== undefined) description.logScaleOffset = entry.logScaleOffset;
     else if (changed.length > 0 && Number.isFinite(lowest) && lowest !== 0) description.logScaleOffset = lowest;
