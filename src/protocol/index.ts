@@ -1,0 +1,1 @@
+export type { FromWorker, Pace, RunControl, RunOutcome, RunSpec, ToWorker } from './messages';

@@ -1,0 +1,366 @@
+import { createStore, type StoreApi } from 'zustand/vanilla';
+import { axisPlane, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
+import { buildSurface, describeSurface, type SurfaceDescription, type SurfaceSpec } from '../problems';
+import type { FromWorker, Pace, RunControl, RunSpec } from '../protocol';
+import type { ViewBox } from '../ui/plot';
+import type { EngineLink } from './engine-link';
+import { freshId } from './ids';
+import { LiveRuns, type RunStatus } from './live-runs';
+import { demoWorkspace } from './demo';
+import { newRunConfig, nextStyle } from './run-configs';
+import type { DisplaySettings, PanelSettings, RunConfig, SliceSettings, Workspace } from './workspace';
+
+/** The surface grid as last received from the worker. */
+export interface GridState {
+  requestId: string | null;
+  phase: 'idle' | 'computing' | 'ready' | 'error';
+  /** Rows done / rows, while computing. */
+  progress: number;
+  request: GridRequest | null;
+  values: Float64Array | null;
+  min: number;
+  max: number;
+  stage: 'coarse' | 'final' | null;
+  error: string | null;
+}
+
+/** Label, variables, default box, known points, suggested start of the current surface. */
+export type SurfaceInfo = SurfaceDescription;
+
+export interface AppState extends Workspace {
+  surfaceInfo: SurfaceInfo;
+  /** Problems with the last surface the user tried to set (it was not applied). */
+  surfaceError: string | null;
+  /** A message for the user that is not tied to one field (storage trouble, a file that did not load). */
+  notice: string | null;
+  grid: GridState;
+  status: Record<string, RunStatus>;
+  selectedRunId: string | null;
+  /** Whether a click on the surface sets the start of every run or only of the selected one. */
+  startTarget: 'all' | 'selected';
+  /** The slice point under the pointer, shared by every panel (linked hover). */
+  hover: { a: number; b: number } | null;
+  actions: AppActions;
+}
+
+export interface AppActions {
+  /** Applies a new surface if it builds; otherwise records the error and leaves the workspace as it was. */
+  setSurface(spec: SurfaceSpec): boolean;
+  setConstant(name: string, value: number): void;
+  setSlice(slice: Partial<SliceSettings>): void;
+  setView(view: ViewBox): void;
+  setHover(point: { a: number; b: number } | null): void;
+  resetView(): void;
+  setDisplay(patch: Partial<DisplaySettings>): void;
+  addRun(kind?: OptimizerKind): string;
+  updateRun(id: string, patch: Partial<Omit<RunConfig, 'id'>>): void;
+  duplicateRun(id: string): string | null;
+  removeRun(id: string): void;
+  selectRun(id: string | null): void;
+  setStartTarget(target: 'all' | 'selected'): void;
+  /** Sets the start point (full coordinates) of the selected run or of all runs, and restarts them. */
+  setStart(point: number[]): void;
+  control(id: string, action: RunControl): void;
+  controlAll(action: RunControl): void;
+  restart(id: string): void;
+  restartAll(): void;
+  setPace(pace: Pace): void;
+  setTolerance(tolerance: number): void;
+  setPanels(patch: Partial<PanelSettings>): void;
+  /** Replaces the table runs with one run per optimizer x learning rate cell. */
+  buildTableRuns(): void;
+  dismissNotice(): void;
+  /** Loads a whole workspace (from storage or an experiment file) and launches its runs. */
+  loadWorkspace(workspace: Workspace): void;
+}
+
+export interface AppStore {
+  store: StoreApi<AppState>;
+  live: LiveRuns;
+  workspaceOf(state: AppState): Workspace;
+}
+
+/** Quiet time after a zoom or pan before the grid is sampled again. */
+export const GRID_SETTLE_MS = 80;
+
+export interface StoreOptions {
+  link: EngineLink;
+  requestFrame: (fn: () => void) => void;
+  initial?: Workspace;
+}
+
+export function createAppStore({ link, requestFrame, initial }: StoreOptions): AppStore {
+  const start = initial ?? demoWorkspace();
+  let store!: StoreApi<AppState>;
+  const live = new LiveRuns(link, requestFrame, (changed) => {
+    store.setState((s) => {
+      const status = { ...s.status };
+      for (const [id, st] of changed) {
+        if (st) status[id] = st;
+        else delete status[id];
+      }
+      return { status };
+    });
+  });
+
+  const get = () => store.getState();
+  let gridTimer: ReturnType<typeof setTimeout> | undefined;
+  const set = (patch: Partial<AppState>) => store.setState(patch);
+
+  function runSpec(s: AppState, run: RunConfig): RunSpec {
+    return { surface: s.surface, optimizer: run.optimizer, settings: run.settings };
+  }
+
+  function launch(run: RunConfig): void {
+    const problems = validateOptimizerSpec(run.optimizer);
+    if (problems.length) return live.reject(run.id, problems[0].message, problems[0].field);
+    live.launch(run.id, runSpec(get(), run));
+  }
+
+  function launchAll(): void {
+    for (const run of get().runs) launch(run);
+  }
+
+  function requestGrid(): void {
+    const s = get();
+    const n = s.surfaceInfo.variables.length;
+    const [i, j] = n >= 2 ? s.slice.axes : [0, 0];
+    if (n < 2) {
+      set({ grid: { ...s.grid, phase: 'error', error: 'the surface needs at least two variables to draw a slice' } });
+      return;
+    }
+    const requestId = freshId('g');
+    const side = s.display.resolution;
+    const grid: GridRequest = { plane: axisPlane(s.slice.at, i, j), a: s.view.a, b: s.view.b, nx: side, ny: side };
+    set({ grid: { ...s.grid, requestId, phase: 'computing', progress: 0, error: null } });
+    link.send({ type: 'grid/sample', requestId, surface: s.surface, grid, coarseFirst: true });
+  }
+
+  function handle(msg: FromWorker): void {
+    if (msg.type === 'run/batch' || msg.type === 'run/error') return live.handle(msg);
+    const g = get().grid;
+    if (msg.requestId !== g.requestId) return; // superseded
+    if (msg.type === 'grid/progress') set({ grid: { ...g, progress: msg.rowsDone / msg.rows } });
+    else if (msg.type === 'grid/error') set({ grid: { ...g, phase: 'error', error: msg.message } });
+    else
+      set({
+        grid: {
+          ...g,
+          phase: msg.stage === 'final' ? 'ready' : 'computing',
+          request: msg.grid,
+          values: msg.values,
+          min: msg.min,
+          max: msg.max,
+          stage: msg.stage,
+          progress: msg.stage === 'final' ? 1 : g.progress,
+        },
+      });
+  }
+  link.listen(handle);
+
+  function updateReference(): void {
+    const s = get();
+    const minima = s.surfaceInfo.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min');
+    live.setReference(minima.filter((p) => p.kind === 'global-min').length ? minima : [], s.tolerance);
+  }
+
+  function applySurface(spec: SurfaceSpec, keepView: boolean): void {
+    buildSurface(spec); // throws a specific error for a bad spec before anything changes
+    const info = describeSurface(spec);
+    const s = get();
+    const n = info.variables.length;
+    const sameShape = n === s.surfaceInfo.variables.length;
+    const slice: SliceSettings = sameShape ? s.slice : { axes: [0, Math.min(1, n - 1)], at: info.view.map(([lo, hi]) => (lo + hi) / 2) };
+    const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
+    const runs = sameShape ? s.runs : s.runs.map((r) => ({ ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
+    set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs });
+    updateReference();
+    launchAll();
+    requestGrid();
+  }
+
+  function mutateRun(id: string, f: (r: RunConfig) => RunConfig): RunConfig | null {
+    let changed: RunConfig | null = null;
+    set({ runs: get().runs.map((r) => (r.id === id ? (changed = f(r)) : r)) });
+    return changed;
+  }
+
+  const actions: AppActions = {
+    setSurface(spec) {
+      try {
+        applySurface(spec, false);
+        return true;
+      } catch (e) {
+        set({ surfaceError: e instanceof Error ? e.message : String(e) });
+        return false;
+      }
+    },
+    setConstant(name, value) {
+      const s = get();
+      if (!Number.isFinite(value)) return;
+      applySurface({ ...s.surface, constants: { ...(s.surface.constants ?? {}), [name]: value } } as SurfaceSpec, true);
+    },
+    setSlice(patch) {
+      const s = get();
+      const slice = { ...s.slice, ...patch };
+      const axesChanged = patch.axes && (patch.axes[0] !== s.slice.axes[0] || patch.axes[1] !== s.slice.axes[1]);
+      set({ slice, view: axesChanged ? viewFor(s.surfaceInfo.view, slice.axes) : s.view });
+      requestGrid();
+    },
+    setView(view) {
+      set({ view });
+      // Zooming and panning fire many events; the drawn contours follow at once (they live in parameter
+      // space) and the finer grid is asked for when the gesture pauses.
+      clearTimeout(gridTimer);
+      gridTimer = setTimeout(requestGrid, GRID_SETTLE_MS);
+    },
+    setHover(hover) {
+      set({ hover });
+    },
+    resetView() {
+      const s = get();
+      actions.setView(viewFor(s.surfaceInfo.view, s.slice.axes));
+    },
+    setDisplay(patch) {
+      const s = get();
+      set({ display: { ...s.display, ...patch } });
+      if (patch.resolution !== undefined && patch.resolution !== s.display.resolution) requestGrid();
+    },
+    addRun(kind = 'adam') {
+      const s = get();
+      const run = newRunConfig(kind, s.runs, suggestedStartOf(s));
+      set({ runs: [...s.runs, run], selectedRunId: run.id });
+      launch(run);
+      return run.id;
+    },
+    updateRun(id, patch) {
+      const run = mutateRun(id, (r) => ({ ...r, ...patch }));
+      if (!run) return;
+      const relaunch = patch.optimizer !== undefined || patch.settings !== undefined;
+      if (relaunch) launch(run);
+    },
+    duplicateRun(id) {
+      const s = get();
+      const source = s.runs.find((r) => r.id === id);
+      if (!source) return null;
+      const copy: RunConfig = { ...structuredClone(source), id: freshId('c'), label: `${source.label} (copy)`, style: nextStyle(s.runs), cell: undefined };
+      const at = s.runs.indexOf(source) + 1;
+      set({ runs: [...s.runs.slice(0, at), copy, ...s.runs.slice(at)], selectedRunId: copy.id });
+      launch(copy);
+      return copy.id;
+    },
+    removeRun(id) {
+      live.forget(id);
+      const s = get();
+      set({ runs: s.runs.filter((r) => r.id !== id), selectedRunId: s.selectedRunId === id ? null : s.selectedRunId });
+    },
+    selectRun(id) {
+      set({ selectedRunId: id });
+    },
+    setStartTarget(startTarget) {
+      set({ startTarget });
+    },
+    setStart(point) {
+      const s = get();
+      const targets = s.startTarget === 'selected' && s.selectedRunId ? [s.selectedRunId] : s.runs.map((r) => r.id);
+      for (const id of targets) actions.updateRun(id, { settings: { ...get().runs.find((r) => r.id === id)!.settings, start: point.slice() } });
+    },
+    control(id, action) {
+      live.control(id, action);
+    },
+    controlAll(action) {
+      for (const r of get().runs) live.control(r.id, action);
+    },
+    restart(id) {
+      const run = get().runs.find((r) => r.id === id);
+      if (run) launch(run);
+    },
+    restartAll() {
+      launchAll();
+    },
+    setPace(pace) {
+      set({ pace });
+      link.send({ type: 'run/pace', pace });
+    },
+    setTolerance(tolerance) {
+      if (!(tolerance >= 0) || !Number.isFinite(tolerance)) return;
+      set({ tolerance });
+      updateReference();
+    },
+    setPanels(patch) {
+      set({ panels: { ...get().panels, ...patch } });
+    },
+    buildTableRuns() {
+      const s = get();
+      for (const r of s.runs) if (r.cell) live.forget(r.id);
+      const kept = s.runs.filter((r) => !r.cell);
+      const start = suggestedStartOf(s);
+      const table: RunConfig[] = [];
+      s.panels.tableOptimizers.forEach((kind, row) =>
+        s.panels.tableLearningRates.forEach((lr, column) => {
+          const run = newRunConfig(kind, [...kept, ...table], start);
+          run.optimizer = { ...run.optimizer, learningRate: lr };
+          run.label = `${run.label} lr=${lr}`;
+          run.cell = { row, column };
+          table.push(run);
+        }),
+      );
+      set({ runs: [...kept, ...table], panels: { ...s.panels, mode: 'table' } });
+      table.forEach(launch);
+    },
+    dismissNotice() {
+      set({ notice: null });
+    },
+    loadWorkspace(workspace) {
+      for (const r of get().runs) live.forget(r.id);
+      const info = describeSurface(workspace.surface);
+      set({ ...workspace, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null });
+      link.send({ type: 'run/pace', pace: workspace.pace });
+      updateReference();
+      launchAll();
+      requestGrid();
+    },
+  };
+
+  store = createStore<AppState>(() => ({
+    ...start,
+    surfaceInfo: describeSurface(start.surface),
+    surfaceError: null,
+    notice: null,
+    grid: { requestId: null, phase: 'idle', progress: 0, request: null, values: null, min: Number.NaN, max: Number.NaN, stage: null, error: null },
+    status: {},
+    selectedRunId: null,
+    startTarget: 'all',
+    hover: null,
+    actions,
+  }));
+  actions.loadWorkspace(start);
+
+  return { store, live, workspaceOf };
+}
+
+const WORKSPACE_KEYS = ['version', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace'] as const;
+
+/** The saved part of the state. */
+export function workspaceOf(s: AppState): Workspace {
+  const { version, surface, slice, view, display, runs, panels, tolerance, pace } = s;
+  return { version, surface, slice, view, display, runs, panels, tolerance, pace };
+}
+
+/** Whether any saved field changed (the store replaces objects on change, so identity suffices). */
+export function workspaceChanged(a: AppState, b: AppState): boolean {
+  return WORKSPACE_KEYS.some((k) => a[k] !== b[k]);
+}
+
+function viewFor(view: [number, number][], [i, j]: [number, number]): ViewBox {
+  return { a: [...view[i]] as [number, number], b: [...view[j]] as [number, number] };
+}
+
+function suggestedStart(info: SurfaceInfo): number[] {
+  return info.suggestedStart ?? info.view.map(([lo, hi]) => lo + 0.25 * (hi - lo));
+}
+
+function suggestedStartOf(s: AppState): number[] {
+  return s.runs[0]?.settings.start.slice() ?? suggestedStart(s.surfaceInfo);
+}
+

@@ -1,0 +1,29 @@
+import { defaultOptimizerSpec, optimizerInfo, type OptimizerKind } from '../engine';
+import { freshId } from './ids';
+import type { RunConfig } from './workspace';
+
+/** Stop rules a new run gets: generous enough to watch, tight enough to end. */
+export const DEFAULT_STOP = { maxSteps: 2000, lossChangeTolerance: 1e-12, gradientNormTolerance: 1e-8 };
+
+/** The lowest style index no other run uses, so each run keeps a distinct colour and marker. */
+export function nextStyle(runs: readonly RunConfig[]): number {
+  const used = new Set(runs.map((r) => r.style));
+  let k = 0;
+  while (used.has(k)) k++;
+  return k;
+}
+
+/** A new run with the optimizer's defaults, a label not used yet, and its own style. */
+export function newRunConfig(kind: OptimizerKind, existing: readonly RunConfig[], start: number[]): RunConfig {
+  const base = optimizerInfo(kind).label;
+  const labels = new Set(existing.map((r) => r.label));
+  let label = base;
+  for (let k = 2; labels.has(label); k++) label = `${base} ${k}`;
+  return {
+    id: freshId('c'),
+    label,
+    optimizer: defaultOptimizerSpec(kind),
+    settings: { start: start.slice(), seed: 1, stop: { ...DEFAULT_STOP } },
+    style: nextStyle(existing),
+  };
+}

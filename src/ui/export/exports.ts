@@ -1,0 +1,109 @@
+import { optimizerInfo } from '../../engine';
+import { runTableCsv, trajectoryCsv, type RunSummaryRow, type TrajectoryExportRun } from '../../io/csv';
+import type { AppState } from '../../store/app-store';
+import type { LiveRuns } from '../../store/live-runs';
+import { formatValue, runStyle, surfaceToSvg, type KnownPoint as PlotKnownPoint, type PixelSize } from '../plot';
+import { frameLayout, frameTransform } from '../view/frame';
+import { drawBase, drawOverlay, markerInterval, surfacePicture } from '../view/scene';
+
+const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
+
+/** Trajectories of every run, one row per run per step (columns in the README). */
+export function trajectoriesCsv(s: AppState, live: LiveRuns): string {
+  const runs: TrajectoryExportRun[] = [];
+  for (const r of s.runs) {
+    const b = live.trajectory(r.id);
+    if (!b) continue;
+    runs.push({ id: r.id, label: r.label, optimizer: optimizerInfo(r.optimizer.kind).label, learningRate: r.optimizer.learningRate, variables: s.surfaceInfo.variables, batch: b.asBatch() });
+  }
+  return trajectoryCsv(runs);
+}
+
+/** The run table as shown on the page. */
+export function resultsCsv(s: AppState): string {
+  const minima = s.surfaceInfo.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min');
+  const rows: RunSummaryRow[] = s.runs.map((r) => {
+    const sum = s.status[r.id]?.summary;
+    const near = sum?.nearestMinimum ?? null;
+    return {
+      id: r.id,
+      label: r.label,
+      optimizer: optimizerInfo(r.optimizer.kind).label,
+      learningRate: r.optimizer.learningRate,
+      outcome: sum?.outcome ?? null,
+      steps: sum?.steps ?? 0,
+      finalLoss: sum?.finalLoss ?? Number.NaN,
+      variables: s.surfaceInfo.variables,
+      finalPoint: sum?.finalPoint ?? [],
+      distanceToNearestMinimum: near?.distance ?? null,
+      nearestMinimum: near ? `(${minima[near.index].point.map(formatValue).join(', ')})` : null,
+      stepsToTolerance: sum?.stepsToTolerance ?? null,
+    };
+  });
+  return runTableCsv(rows);
+}
+
+function knownPointsOf(s: AppState): PlotKnownPoint[] {
+  if (!s.display.showKnownPoints || s.surfaceInfo.variables.length !== 2) return [];
+  const [i, j] = s.slice.axes;
+  return s.surfaceInfo.knownPoints.map((p) => ({ at: { a: p.point[i], b: p.point[j] }, kind: KIND_OF_POINT[p.kind] }));
+}
+
+function visibleTrajectories(s: AppState, live: LiveRuns) {
+  return s.runs.flatMap((r) => {
+    const b = live.trajectory(r.id);
+    return !r.hidden && b && b.count ? [{ run: r, buffer: b }] : [];
+  });
+}
+
+/** The overlaid surface view drawn onto a fresh canvas at `scale` times the CSS size, as PNG. */
+export function viewPng(s: AppState, live: LiveRuns, size: PixelSize, scale = 2): Promise<Blob> {
+  const canvas = document.createElement('canvas');
+  canvas.width = size.width * scale;
+  canvas.height = size.height * scale;
+  const ctx = canvas.getContext('2d')!;
+  ctx.scale(scale, scale);
+  const layout = frameLayout(size, true);
+  const axes = s.slice.axes;
+  drawBase(ctx, {
+    layout,
+    view: s.view,
+    picture: surfacePicture(s.grid, s.display, s.surfaceInfo.logScaleOffset),
+    axisLabels: { a: s.surfaceInfo.variables[axes[0]], b: s.surfaceInfo.variables[axes[1]] },
+    knownPoints: knownPointsOf(s),
+    arrows: [],
+    title: s.surfaceInfo.label,
+  });
+  drawOverlay(ctx, {
+    layout,
+    view: s.view,
+    axes,
+    hover: null,
+    trajectories: visibleTrajectories(s, live).map(({ run, buffer }) => ({ points: buffer.points, count: buffer.count, dimension: buffer.dimension, style: runStyle(run.style), selected: false })),
+  });
+  return new Promise((resolve, reject) => canvas.toBlob((b) => (b ? resolve(b) : reject(new Error('the browser could not encode the PNG'))), 'image/png'));
+}
+
+/** The same view as a standalone SVG document. */
+export function viewSvg(s: AppState, live: LiveRuns, size: PixelSize): string {
+  const layout = frameLayout(size, true);
+  const picture = surfacePicture(s.grid, s.display, s.surfaceInfo.logScaleOffset);
+  const axes = s.slice.axes;
+  return surfaceToSvg({
+    transform: frameTransform(s.view, layout),
+    title: s.surfaceInfo.label,
+    bands: picture?.bands,
+    colours: picture?.colours,
+    grid: picture?.grid,
+    axes: { a: s.surfaceInfo.variables[axes[0]], b: s.surfaceInfo.variables[axes[1]] },
+    legend: picture ? { model: picture.legend, title: 'loss' } : undefined,
+    knownPoints: knownPointsOf(s),
+    trajectories: visibleTrajectories(s, live).map(({ run, buffer }) => ({
+      points: buffer.points,
+      count: buffer.count,
+      style: runStyle(run.style),
+      label: run.label,
+      options: { layout: { stride: buffer.dimension, a: axes[0], b: axes[1] }, markerEvery: markerInterval(buffer.count) },
+    })),
+  });
+}

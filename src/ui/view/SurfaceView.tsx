@@ -1,0 +1,197 @@
+import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent, type WheelEvent } from 'react';
+import { gradientArrows, panBy, runStyle, zoomAt, type Arrow, type KnownPoint as PlotKnownPoint } from '../plot';
+import { useActions, useApp, useLiveRuns } from '../app-context';
+import { canvasToFrame, frameLayout, frameTransform, insideFrame } from './frame';
+import { drawBase, drawOverlay, surfacePicture, type TrajectoryLayerItem } from './scene';
+import { fullPoint } from './slice-point';
+import { prepareCanvas, useElementSize } from './use-canvas-size';
+import { useMainThreadSurface } from './use-surface';
+import { HoverReadout } from './HoverReadout';
+
+export interface SurfaceViewProps {
+  /** Which runs to draw: all visible ones, or only these ids (one panel of the panel grid). */
+  runIds?: string[];
+  title?: string;
+  compact?: boolean;
+}
+
+const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
+
+/**
+ * The surface slice with the runs over it. Two stacked canvases: the base (contours, arrows, known
+ * points, axes, legend) redraws when the grid or the view changes; the overlay (trajectories, crosshair)
+ * redraws at most once per animation frame while runs stream, reading trajectories straight from the
+ * live buffers. Mouse: wheel zooms, drag pans, click sets the start point. Keyboard: arrows pan,
+ * + and - zoom, 0 resets the view.
+ */
+export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
+  const actions = useActions();
+  const live = useLiveRuns();
+  const boxRef = useRef<HTMLDivElement>(null);
+  const baseRef = useRef<HTMLCanvasElement>(null);
+  const overlayRef = useRef<HTMLCanvasElement>(null);
+  const size = useElementSize(boxRef);
+  const view = useApp((s) => s.view);
+  const grid = useApp((s) => s.grid);
+  const display = useApp((s) => s.display);
+  const info = useApp((s) => s.surfaceInfo);
+  const slice = useApp((s) => s.slice);
+  const runs = useApp((s) => s.runs);
+  const selected = useApp((s) => s.selectedRunId);
+  const hover = useApp((s) => s.hover);
+  const surfaceSpec = useApp((s) => s.surface);
+  const surface = useMainThreadSurface(surfaceSpec);
+  const layout = useMemo(() => (size ? frameLayout(size, !compact) : null), [size, compact]);
+  const axes = slice.axes;
+  const n = info.variables.length;
+
+  const knownPoints: PlotKnownPoint[] = useMemo(() => {
+    if (!display.showKnownPoints || n !== 2) return [];
+    return info.knownPoints.map((p) => ({ at: { a: p.point[axes[0]], b: p.point[axes[1]] }, kind: KIND_OF_POINT[p.kind] }));
+  }, [display.showKnownPoints, info.knownPoints, axes, n]);
+
+  const arrows: Arrow[] = useMemo(() => {
+    if (!display.showArrows || !surface || !layout) return [];
+    const t = frameTransform(view, layout);
+    const g = new Float64Array(surface.dimension);
+    return gradientArrows((p) => {
+      surface.valueGradient(fullPoint(slice, n, p.a, p.b), g);
+      return { da: g[axes[0]], db: g[axes[1]] };
+    }, t, compact ? 28 : 36);
+  }, [display.showArrows, surface, layout, view, slice, axes, n, compact]);
+
+  // Base layer.
+  useEffect(() => {
+    const canvas = baseRef.current;
+    if (!canvas || !layout) return;
+    const ctx = prepareCanvas(canvas, layout.canvas);
+    if (!ctx) return;
+    const picture = surfacePicture(grid, display, info.logScaleOffset);
+    drawBase(ctx, { layout, view, picture, axisLabels: { a: info.variables[axes[0]] ?? 'a', b: info.variables[axes[1]] ?? 'b' }, knownPoints, arrows, title });
+    canvas.dataset.drawn = picture ? 'contours' : 'empty';
+  }, [layout, grid, display, view, info, axes, knownPoints, arrows, title]);
+
+  // Overlay layer: once per animation frame, only when something changed.
+  const overlayInput = useRef({ view, runs, selected, hover, axes, runIds, layout });
+  overlayInput.current = { view, runs, selected, hover, axes, runIds, layout };
+  useEffect(() => {
+    let frame = 0;
+    let drawnVersion = -1;
+    let drawnInput: unknown = null;
+    const tick = () => {
+      frame = requestAnimationFrame(tick);
+      const input = overlayInput.current;
+      const canvas = overlayRef.current;
+      if (!canvas || !input.layout) return;
+      if (drawnVersion === live.version && drawnInput === input) return;
+      drawnVersion = live.version;
+      drawnInput = input;
+      const ctx = prepareCanvas(canvas, input.layout.canvas);
+      if (!ctx) return;
+      ctx.clearRect(0, 0, input.layout.canvas.width, input.layout.canvas.height);
+      const trajectories: TrajectoryLayerItem[] = [];
+      for (const r of input.runs) {
+        if (r.hidden || (input.runIds && !input.runIds.includes(r.id))) continue;
+        const buffer = live.trajectory(r.id);
+        if (!buffer || buffer.count === 0) continue;
+        trajectories.push({ points: buffer.points, count: buffer.count, dimension: buffer.dimension, style: runStyle(r.style), selected: r.id === input.selected });
+      }
+      drawOverlay(ctx, { layout: input.layout, view: input.view, axes: input.axes, trajectories, hover: input.hover });
+      canvas.dataset.trajectories = String(trajectories.length);
+    };
+    frame = requestAnimationFrame(tick);
+    return () => cancelAnimationFrame(frame);
+  }, [live]);
+
+  // Interaction.
+  const drag = useRef<{ x: number; y: number; moved: boolean } | null>(null);
+  function framePoint(e: { clientX: number; clientY: number }) {
+    const rect = overlayRef.current!.getBoundingClientRect();
+    return canvasToFrame(layout!, { px: e.clientX - rect.left, py: e.clientY - rect.top });
+  }
+  function onWheel(e: WheelEvent) {
+    if (!layout) return;
+    const p = framePoint(e);
+    if (!insideFrame(layout, p)) return;
+    actions.setView(zoomAt(view, layout.frame, p, e.deltaY < 0 ? 1 / 1.15 : 1.15));
+  }
+  function onPointerDown(e: PointerEvent) {
+    if (e.button !== 0) return;
+    drag.current = { x: e.clientX, y: e.clientY, moved: false };
+    (e.target as Element).setPointerCapture?.(e.pointerId);
+  }
+  function onPointerMove(e: PointerEvent) {
+    if (!layout) return;
+    const p = framePoint(e);
+    const d = drag.current;
+    if (d) {
+      const dx = e.clientX - d.x;
+      const dy = e.clientY - d.y;
+      if (d.moved || Math.hypot(dx, dy) > 4) {
+        d.moved = true;
+        d.x = e.clientX;
+        d.y = e.clientY;
+        actions.setView(panBy(view, layout.frame, dx, dy));
+        return;
+      }
+    }
+    actions.setHover(insideFrame(layout, p) ? frameTransform(view, layout).toParam(p) : null);
+  }
+  function onPointerUp(e: PointerEvent) {
+    const d = drag.current;
+    drag.current = null;
+    if (!d || d.moved || !layout) return;
+    const p = framePoint(e);
+    if (!insideFrame(layout, p)) return;
+    const q = frameTransform(view, layout).toParam(p);
+    actions.setStart(fullPoint(slice, n, q.a, q.b));
+  }
+  function onKeyDown(e: KeyboardEvent) {
+    if (!layout) return;
+    const { width, height } = layout.frame;
+    const centre = { px: width / 2, py: height / 2 };
+    const moves: Record<string, () => void> = {
+      ArrowLeft: () => actions.setView(panBy(view, layout.frame, width * 0.1, 0)),
+      ArrowRight: () => actions.setView(panBy(view, layout.frame, -width * 0.1, 0)),
+      ArrowUp: () => actions.setView(panBy(view, layout.frame, 0, height * 0.1)),
+      ArrowDown: () => actions.setView(panBy(view, layout.frame, 0, -height * 0.1)),
+      '+': () => actions.setView(zoomAt(view, layout.frame, centre, 1 / 1.25)),
+      '=': () => actions.setView(zoomAt(view, layout.frame, centre, 1 / 1.25)),
+      '-': () => actions.setView(zoomAt(view, layout.frame, centre, 1.25)),
+      '0': () => actions.resetView(),
+    };
+    const move = moves[e.key];
+    if (move) {
+      e.preventDefault();
+      move();
+    }
+  }
+
+  return (
+    <div className={compact ? 'surface-view compact' : 'surface-view'}>
+      <div
+        ref={boxRef}
+        className="surface-canvas-box"
+        tabIndex={0}
+        role="img"
+        aria-label={`${title ?? info.label}: contour map of the loss over ${info.variables[axes[0]]} and ${info.variables[axes[1]]}. Arrow keys pan, plus and minus zoom, 0 resets; click sets the start point.`}
+        onWheel={onWheel}
+        onPointerDown={onPointerDown}
+        onPointerMove={onPointerMove}
+        onPointerUp={onPointerUp}
+        onPointerLeave={() => actions.setHover(null)}
+        onKeyDown={onKeyDown}
+      >
+        <canvas ref={baseRef} className="surface-base" data-testid="surface-base" />
+        <canvas ref={overlayRef} className="surface-overlay" data-testid="surface-overlay" />
+        {grid.phase === 'computing' && (
+          <div className="grid-progress" role="progressbar" aria-label="Sampling the surface" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(grid.progress * 100)}>
+            sampling {Math.round(grid.progress * 100)}%
+          </div>
+        )}
+        {grid.phase === 'error' && <div className="grid-error" role="alert">{grid.error}</div>}
+      </div>
+      {!compact && <HoverReadout surface={surface} />}
+    </div>
+  );
+}

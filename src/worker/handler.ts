@@ -1,0 +1,24 @@
+import type { FromWorker, ToWorker } from '../protocol';
+import { GridSampler } from './grids';
+import { RunPool } from './runs';
+import type { Timing } from './scheduler';
+
+/** The worker's message switch, free of worker globals so tests can drive it directly. */
+export function createHandler(post: (msg: FromWorker, transfer?: Transferable[]) => void, timing: Timing) {
+  const runs = new RunPool(post, timing);
+  const grids = new GridSampler(post, timing);
+  return function handle(msg: ToWorker): void {
+    switch (msg.type) {
+      case 'run/start':
+        return runs.start(msg.runId, msg.spec, msg.paused);
+      case 'run/control':
+        return runs.control(msg.runId, msg.action);
+      case 'run/pace':
+        return runs.setPace(msg.pace);
+      case 'grid/sample':
+        return grids.request(msg.requestId, msg.surface, msg.grid, msg.coarseFirst);
+      case 'grid/cancel':
+        return grids.cancel(msg.requestId);
+    }
+  };
+}

@@ -1,0 +1,97 @@
+import { describe, expect, it } from 'vitest';
+import Papa from 'papaparse';
+import { createAppStore } from '../../src/store/app-store';
+import { demoWorkspace } from '../../src/store/demo';
+import { inProcessLink } from './in-process-link';
+
+function setup(initial = demoWorkspace()) {
+  const env = inProcessLink();
+  const app = createAppStore({ link: env.link, requestFrame: env.requestFrame, initial });
+  return { ...env, app, state: () => app.store.getState(), actions: app.store.getState().actions };
+}
+
+describe('app store with the real worker handler', () => {
+  it('loads the demo: three runs stream to an end and the grid arrives', () => {
+    const t = setup();
+    t.app.store.getState().actions.setPace('max');
+    t.drain();
+    const s = t.state();
+    expect(s.runs).toHaveLength(3);
+    for (const r of s.runs) {
+      const st = s.status[r.id];
+      expect(st.phase).toBe('ended');
+      expect(st.summary.outcome).not.toBeNull();
+      expect(t.app.live.trajectory(r.id)!.count).toBe(st.summary.steps + 1);
+    }
+    expect(s.grid.phase).toBe('ready');
+    expect(s.grid.values!.length).toBe(s.display.resolution ** 2);
+  });
+
+  it('drops batches of a superseded launch: editing a run restarts it from step 0', () => {
+    const t = setup();
+    t.actions.setPace(1000);
+    const id = t.state().runs[2].id;
+    t.drain(3);
+    t.actions.updateRun(id, { optimizer: { ...t.state().runs[2].optimizer, learningRate: 0.01 } });
+    t.actions.setPace('max');
+    t.drain();
+    const buffer = t.app.live.trajectory(id)!;
+    // Only the new launch's rows: one contiguous trajectory from step 0 that ends with the outcome.
+    expect(buffer.count).toBe(t.state().status[id].summary.steps + 1);
+    expect(Array.from(buffer.point(0))).toEqual([-1.2, 1]);
+  });
+
+  it('a bad optimizer setting is reported on the run and nothing is launched', () => {
+    const t = setup();
+    const run = t.state().runs[2];
+    const before = t.sent.filter((m) => m.type === 'run/start').length;
+    t.actions.updateRun(run.id, { optimizer: { ...run.optimizer, hyper: { beta1: 1.2 } } });
+    t.drain();
+    expect(t.sent.filter((m) => m.type === 'run/start').length).toBe(before);
+    expect(t.state().status[run.id].error?.message).toMatch(/beta1/);
+  });
+
+  it('the trajectory CSV has one row per run per step and its last row matches the run table', async () => {
+    const { trajectoriesCsv } = await import('../../src/ui/export/exports');
+    const t = setup();
+    t.actions.setPace('max');
+    t.drain();
+    const csv = trajectoriesCsv(t.state(), t.app.live);
+    const parsed = Papa.parse<string[]>(csv.trim(), { skipEmptyLines: true });
+    const [header, ...rows] = parsed.data;
+    expect(header.slice(0, 5)).toEqual(['run_id', 'run_label', 'optimizer', 'learning_rate', 'step']);
+    const total = t.state().runs.reduce((n, r) => n + t.app.live.trajectory(r.id)!.count, 0);
+    expect(rows).toHaveLength(total);
+    const last = rows[rows.length - 1];
+    const lastRun = t.state().runs[2];
+    expect(Number(last[header.indexOf('loss')])).toBe(t.state().status[lastRun.id].summary.finalLoss);
+  });
+
+  it('a typed formula with an error leaves the surface as it was and says what is wrong', () => {
+    const t = setup();
+    expect(t.actions.setSurface({ kind: 'formula', text: 'x^2 + sinn(y)' })).toBe(false);
+    expect(t.state().surfaceError).toMatch(/sinn/);
+    expect(t.state().surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
+  });
+
+  it('a surface in three variables is sliced; runs start in three dimensions', () => {
+    const t = setup();
+    expect(t.actions.setSurface({ kind: 'formula', text: 'x^2 + 2*y^2 + 3*z^2' })).toBe(true);
+    t.actions.setPace('max');
+    t.drain();
+    const s = t.state();
+    expect(s.surfaceInfo.variables).toEqual(['x', 'y', 'z']);
+    for (const r of s.runs) expect(r.settings.start).toHaveLength(3);
+    expect(s.grid.request!.plane.origin).toHaveLength(3);
+  });
+
+  it('the table builds one run per optimizer and learning rate', () => {
+    const t = setup();
+    t.actions.setPanels({ tableOptimizers: ['gd', 'adam'], tableLearningRates: [0.001, 0.01, 0.1] });
+    t.actions.buildTableRuns();
+    const cells = t.state().runs.filter((r) => r.cell);
+    expect(cells).toHaveLength(6);
+    expect(cells.map((r) => [r.optimizer.kind, r.optimizer.learningRate])).toContainEqual(['adam', 0.1]);
+    expect(new Set(cells.map((r) => r.style)).size).toBe(6);
+  });
+});
