@@ -67,6 +67,7 @@ export function trajectoryPath(points: Float64Array, count: number, transform: V
     throw new Error(`trajectory: layout columns ${ca}, ${cb} must lie inside rows of ${stride} numbers`);
   const rows = Math.max(0, Math.min(Math.floor(count), Math.floor(points.length / stride)));
   const tol = options.minPixelStep ?? TRAJECTORY_DEFAULTS.minPixelStep;
+  const tol2 = tol * tol;
   const margin = options.clipMarginPx ?? TRAJECTORY_DEFAULTS.clipMarginPx;
   const box = { x0: -margin, y0: -margin, x1: transform.size.width + margin, y1: transform.size.height + margin };
   const xOf = (r: number) => transform.pxOfA(points[r * stride + ca]);
@@ -108,18 +109,22 @@ export function trajectoryPath(points: Float64Array, count: number, transform: V
     if (!prevOk) {
       if (inside(box, x, y)) start(x, y);
     } else {
-      const clip = clipSegment(box, prevX, prevY, x, y, seg);
-      if (clip === null) flush();
+      const clip = inside(box, x, y) && inside(box, prevX, prevY) ? WHOLE : clipInto(box, prevX, prevY, x, y, seg);
+      if (clip === HIDDEN) flush();
       else {
-        if (line === null || clip.startClipped) {
+        if (clip === WHOLE) {
+          seg[0] = prevX;
+          seg[1] = prevY;
+        }
+        if (line === null || clip & START_CUT) {
           flush();
           start(seg[0], seg[1]);
         }
-        if (clip.endClipped) {
+        if (clip & END_CUT) {
           if (pending) emit(pendX, pendY);
           emit(seg[2], seg[3]);
           flush();
-        } else if (Math.hypot(x - lastX, y - lastY) >= tol) emit(x, y);
+        } else if ((x - lastX) * (x - lastX) + (y - lastY) * (y - lastY) >= tol2) emit(x, y);
         else {
           pending = true;
           pendX = x;
@@ -179,36 +184,44 @@ function inside(b: Box, x: number, y: number): boolean {
   return x >= b.x0 && x <= b.x1 && y >= b.y0 && y <= b.y1;
 }
 
+const WHOLE = 0;
+const START_CUT = 1;
+const END_CUT = 2;
+const HIDDEN = 4;
+
 /**
  * Liang-Barsky clipping of the segment (x1, y1)-(x2, y2) to the box. Writes the visible part into out
  * and reports which ends were cut; null when nothing is visible.
  */
 export function clipSegment(b: Box, x1: number, y1: number, x2: number, y2: number, out: Float64Array): { startClipped: boolean; endClipped: boolean } | null {
+  const code = clipInto(b, x1, y1, x2, y2, out);
+  return code === HIDDEN ? null : { startClipped: (code & START_CUT) !== 0, endClipped: (code & END_CUT) !== 0 };
+}
+
+/** The allocation-free core of clipSegment: HIDDEN, or WHOLE with START_CUT / END_CUT bits. */
+function clipInto(b: Box, x1: number, y1: number, x2: number, y2: number, out: Float64Array): number {
   const dx = x2 - x1;
   const dy = y2 - y1;
   let t0 = 0;
   let t1 = 1;
-  const p = [-dx, dx, -dy, dy];
-  const q = [x1 - b.x0, b.x1 - x1, y1 - b.y0, b.y1 - y1];
-  for (let k = 0; k < 4; k++) {
-    if (p[k] === 0) {
-      if (q[k] < 0) return null;
-      continue;
-    }
-    const t = q[k] / p[k];
-    if (p[k] < 0) {
-      if (t > t1) return null;
+  const edge = (p: number, q: number): boolean => {
+    if (p === 0) return q >= 0;
+    const t = q / p;
+    if (p < 0) {
+      if (t > t1) return false;
       if (t > t0) t0 = t;
     } else {
-      if (t < t0) return null;
+      if (t < t0) return false;
       if (t < t1) t1 = t;
     }
-  }
+    return true;
+  };
+  if (!(edge(-dx, x1 - b.x0) && edge(dx, b.x1 - x1) && edge(-dy, y1 - b.y0) && edge(dy, b.y1 - y1))) return HIDDEN;
   out[0] = t0 > 0 ? x1 + t0 * dx : x1;
   out[1] = t0 > 0 ? y1 + t0 * dy : y1;
   out[2] = t1 < 1 ? x1 + t1 * dx : x2;
   out[3] = t1 < 1 ? y1 + t1 * dy : y2;
-  return { startClipped: t0 > 0, endClipped: t1 < 1 };
+  return (t0 > 0 ? START_CUT : 0) | (t1 < 1 ? END_CUT : 0);
 }
 
 /** Sizes and outlines of the three marker kinds, shared with the SVG export. */

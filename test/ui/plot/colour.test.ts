@@ -122,3 +122,22 @@ describe('legendTicks', () => {
     for (let k = 1; k < m.bands.length; k++) expect(m.bands[k].from).toBeCloseTo(m.bands[k - 1].to, 12);
   });
 });
+
+describe('drawLegend', () => {
+  it('draws one block per band from the bottom up in band colours, and every tick label beside the bar', async () => {
+    const { drawLegend } = await import('../../../src/ui/plot');
+    const { RecordingContext } = await import('./recording-context');
+    const s = valueScale(0, 100);
+    const t = levelThresholds(0, 100, 5);
+    const m = legendModel(s, t, bandColours(t, s));
+    const ctx = new RecordingContext();
+    drawLegend(ctx, m, { px: 10, py: 20, width: 14, height: 200 }, 'loss');
+    const blocks = ctx.paints.filter((p) => p.op === 'fill');
+    expect(blocks.map((b) => b.colour)).toEqual(bandColours(t, s));
+    const bottoms = blocks.map((b) => Math.max(...b.subpaths[0].map(([, y]) => y)));
+    expect(bottoms[0]).toBeCloseTo(220, 9); // the lowest band sits at the bottom of the bar
+    for (let k = 1; k < bottoms.length; k++) expect(bottoms[k]).toBeLessThan(bottoms[k - 1]);
+    expect(ctx.texts.map((x) => x.text)).toEqual([...m.ticks.map((tk) => tk.label), 'loss']);
+    for (const x of ctx.texts.slice(0, -1)) expect(x.x).toBeGreaterThan(24);
+  });
+});
