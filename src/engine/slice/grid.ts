@@ -47,14 +47,43 @@ export function sampleGrid(
   j0 = 0,
   j1 = req.ny,
 ): Float64Array {
-  const p = new Float64Array(surface.dimension);
-  const { nx } = req;
+  const { nx, plane } = req;
+  const n = surface.dimension;
+  const p = new Float64Array(n);
+  const rowBase = new Float64Array(n);
+  const axis = unitAxis(plane.u);
   for (let j = j0; j < j1; j++) {
     const b = gridB(req, j);
     const row = j * nx;
-    for (let i = 0; i < nx; i++) out[row + i] = surface.value(planePoint(req.plane, gridA(req, i), b, p));
+    if (axis >= 0) {
+      // Axis-aligned a direction: only one coordinate changes along a row.
+      planePoint(plane, 0, b, p);
+      const base = p[axis];
+      for (let i = 0; i < nx; i++) {
+        p[axis] = base + gridA(req, i);
+        out[row + i] = surface.value(p);
+      }
+    } else {
+      planePoint(plane, 0, b, rowBase);
+      for (let i = 0; i < nx; i++) {
+        const a = gridA(req, i);
+        for (let k = 0; k < n; k++) p[k] = rowBase[k] + a * plane.u[k];
+        out[row + i] = surface.value(p);
+      }
+    }
   }
   return out;
+}
+
+/** The index i when u is the unit vector e_i, else -1. */
+function unitAxis(u: readonly number[]): number {
+  let axis = -1;
+  for (let k = 0; k < u.length; k++) {
+    if (u[k] === 0) continue;
+    if (u[k] !== 1 || axis >= 0) return -1;
+    axis = k;
+  }
+  return axis;
 }
 
 /** Smallest and largest finite values (NaN when none is finite). */
