@@ -21,7 +21,8 @@ import { num, str, type MethodDefinition } from './method';
  * Defaults m = 10 (SciPy L-BFGS-B; PyTorch 100), at most 20 evaluations per search.
  * 'none' line search takes the fixed step a = lr (PyTorch's default line_search_fn=None).
  * The step leaves the gradient at the new point in the work buffer and reports lossAtNewPoint, so the
- * run loop does not re-evaluate; extraEvaluations counts the other evaluations of the search.
+ * run loop does not re-evaluate (it then counts none of its own); extraEvaluations is therefore every
+ * evaluation the search made.
  * With l2Penalty the objective is f + l2/2 |x|^2 throughout; the recorded loss stays f.
  */
 export const lbfgs: MethodDefinition = {
@@ -139,7 +140,7 @@ function buildLbfgs(spec: ResolvedSpec): Optimizer<LbfgsState> {
           if (ys > 1e-10 * norm2(s) * norm2(y)) pushPair(h, s, y, ys);
           x.set(trial);
           grad.set(trialGrad);
-          return { learningRate: a, extraEvaluations: evaluations - 1, lossAtNewPoint: lastF };
+          return { learningRate: a, extraEvaluations: evaluations, lossAtNewPoint: lastF };
         }
         if (h.count === 0) return stayPut();
         clearHistory(h);

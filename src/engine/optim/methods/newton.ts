@@ -22,8 +22,9 @@ import { num, str, type MethodDefinition } from './method';
  * 'backtracking' line search: start from a = lr, halve (factor 0.5) until the Armijo condition
  * f(x + a p) <= f(x) + c1 a g^T p holds (N&W Alg. 3.1, c1 = 1e-4). When p is not a descent direction
  * (plain Newton at an indefinite Hessian) the search uses -g instead. With backtracking the step
- * reports lossAtNewPoint and leaves the gradient there; the Hessian costs one extra evaluation per
- * step. Reported learning rate: the step factor a actually taken (0 if no step was accepted).
+ * reports lossAtNewPoint and leaves the gradient there (the run loop then makes no evaluation of its
+ * own, so extraEvaluations counts the Hessian evaluation and every trial); without it the Hessian is
+ * the one extra evaluation per step. Reported learning rate: the step factor a actually taken (0 if no step was accepted).
  * With l2Penalty the objective is f + l2/2 |x|^2 (Hessian + l2 I); the recorded loss stays f.
  */
 export const newton: MethodDefinition = {
@@ -140,7 +141,7 @@ function buildNewton(spec: ResolvedSpec): Optimizer<null> {
       if (result.step === 0) return { learningRate: 0, extraEvaluations: 1 + result.evaluations, lossAtNewPoint: ctx.loss };
       x.set(trial);
       grad.set(trialGrad);
-      return { learningRate: result.step, extraEvaluations: result.evaluations, lossAtNewPoint: rawLoss };
+      return { learningRate: result.step, extraEvaluations: 1 + result.evaluations, lossAtNewPoint: rawLoss };
     },
   };
 }

@@ -16,16 +16,17 @@ export function cubicMinimizer(a: number, fa: number, da: number, b: number, fb:
 }
 
 /**
- * A trial step inside the interval between lo and hi: the cubic minimiser when it lies at least
- * `margin` of the interval's width away from both ends, else the midpoint (bisection). The margin
- * keeps the interval shrinking by a fixed fraction (N&W Sec. 3.5 ask for a safeguard of this kind;
- * 10 % is common practice, SciPy rejects the cubic within 20 % and then tries a quadratic).
+ * A trial step inside the interval between a and b: the cubic minimiser, pulled in to at least
+ * `margin` of the interval's width from either end; the midpoint when the cubic has no minimiser.
+ * The margin keeps every trial informative (N&W Sec. 3.5 ask for a safeguard of this kind; 10 % is
+ * common practice, and clamping rather than bisecting is what minFunc and PyTorch do). The zoom loop
+ * adds the guarantee of progress by bisecting when the interval stops shrinking.
  */
 export function safeguardedCubic(a: number, fa: number, da: number, b: number, fb: number, db: number, margin = 0.1): number {
   const left = Math.min(a, b);
   const right = Math.max(a, b);
   const w = right - left;
   const x = cubicMinimizer(a, fa, da, b, fb, db);
-  if (Number.isFinite(x) && x >= left + margin * w && x <= right - margin * w) return x;
-  return left + 0.5 * w;
+  if (!Number.isFinite(x)) return left + 0.5 * w;
+  return Math.min(right - margin * w, Math.max(left + margin * w, x));
 }

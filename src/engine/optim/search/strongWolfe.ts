@@ -39,8 +39,9 @@ export interface LineSearchResult {
  * [a_{i-1}, a_i] when a_i breaks sufficient decrease or does not improve on a_{i-1}, or into
  * [a_i, a_{i-1}] when phi'(a_i) >= 0; otherwise double the trial (SciPy's extrapolation, capped at
  * maxStep). zoom (Alg. 3.6) keeps a_lo as the best sufficient-decrease point, picks trials by
- * safeguarded cubic interpolation between a_lo and a_hi (cubic.ts), and maintains an interval that
- * contains a strong-Wolfe step. `phi'(0)` must be negative (a descent direction).
+ * safeguarded cubic interpolation between a_lo and a_hi (cubic.ts) with a bisection whenever two
+ * trials have not shrunk the interval enough, and maintains an interval that contains a strong-Wolfe
+ * step. `phi'(0)` must be negative (a descent direction).
  */
 export function strongWolfeSearch(phi: LineFunction, phi0: number, dphi0: number, a1: number, o: StrongWolfeOptions): LineSearchResult {
   const maxStep = o.maxStep ?? 1e10;
@@ -55,12 +56,17 @@ export function strongWolfeSearch(phi: LineFunction, phi0: number, dphi0: number
   };
 
   const zoom = (lo: LinePoint, hi: LinePoint): LineSearchResult => {
+    // Widths before the last two trials: when two trials have not shrunk the interval to 0.66 of its
+    // width, bisect (More & Thuente, ACM TOMS 20(3), 1994, use this rule to guarantee progress).
+    let widthTwoAgo = Infinity;
+    let widthOneAgo = Infinity;
     while (evaluations < o.maxEvaluations) {
       const width = Math.abs(hi.a - lo.a);
       if (width <= 1e-14 * Math.max(1, Math.abs(lo.a))) break;
-      const trial = evaluate(
-        Number.isFinite(hi.f) && Number.isFinite(hi.d) ? safeguardedCubic(lo.a, lo.f, lo.d, hi.a, hi.f, hi.d) : 0.5 * (lo.a + hi.a),
-      );
+      const bisect = width > 0.66 * widthTwoAgo || !Number.isFinite(hi.f) || !Number.isFinite(hi.d);
+      widthTwoAgo = widthOneAgo;
+      widthOneAgo = width;
+      const trial = evaluate(bisect ? 0.5 * (lo.a + hi.a) : safeguardedCubic(lo.a, lo.f, lo.d, hi.a, hi.f, hi.d));
       if (!Number.isFinite(trial.f) || !sufficient(trial) || trial.f >= lo.f) {
         hi = trial;
       } else {
