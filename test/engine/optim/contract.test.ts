@@ -9,6 +9,7 @@ import {
   RunCursor,
   scaleByAdam,
   scaleByLearningRate,
+  type Optimizer,
   type Oracle,
   type OptimizerSpec,
   type Surface,
@@ -90,7 +91,7 @@ describe('chain', () => {
   it('a hand-built chain equals the named optimizer', () => {
     const hand = chain('my adam', [scaleByAdam(0.9, 0.999, 1e-8), scaleByLearningRate(0.01)]);
     const named = buildOptimizer({ kind: 'adam', learningRate: 0.01 });
-    const run = (o: typeof hand) => Array.from(concatBatches(new RunCursor(rosenbrock, o, { start: [-1.2, 1], seed: 1, stop: { maxSteps: 50 } }).runToEnd(), 2).points);
+    const run = (o: Optimizer) => Array.from(concatBatches(new RunCursor(rosenbrock, o, { start: [-1.2, 1], seed: 1, stop: { maxSteps: 50 } }).runToEnd(), 2).points);
     expect(run(hand)).toEqual(run(named));
   });
 });

@@ -25,7 +25,14 @@ const adamBetas = { beta1: 0.9, beta2: 0.999, epsilon: 1e-8 };
 const heavyBall: OptimizerSpec = { kind: 'momentum', learningRate: 0.05, hyper: { momentum: 0.9 } };
 
 /** Every convention in the fixture, matched by the start of its name, with the spec that expresses it. */
-const cases: { prefix: string; spec: OptimizerSpec; surface: Surface; start: number[] }[] = [
+interface Case {
+  prefix: string;
+  spec: OptimizerSpec;
+  surface?: Surface;
+  start?: number[];
+}
+const cases = (
+  [
   { prefix: 'GD lr=0.05', spec: { kind: 'gd', learningRate: 0.05 } },
   { prefix: 'Momentum (heavy ball)', spec: heavyBall },
   { prefix: 'Polyak heavy ball', spec: heavyBall },
@@ -46,7 +53,8 @@ const cases: { prefix: string; spec: OptimizerSpec; surface: Surface; start: num
   { prefix: 'EXTRA AdamW lr=0.1 weight_decay=0.01 (PyTorch', spec: { kind: 'adamw', learningRate: 0.1, weightDecay: 0.01, hyper: adamBetas } },
   { prefix: 'EXTRA AdamW alpha=0.1 lambda=0.01', spec: { kind: 'adamw', learningRate: 0.1, weightDecay: 0.01, hyper: { ...adamBetas, decayForm: 'paper' } } },
   { prefix: 'Pure Newton Rosenbrock', spec: { kind: 'newton', learningRate: 1 }, surface: rosenbrock, start: [-1.2, 1] },
-].map((c) => ({ surface: bowl, start: [1, 1], ...c }));
+  ] satisfies Case[]
+).map((c: Case) => ({ surface: bowl, start: [1, 1], ...c }));
 
 const close = (actual: number, expected: number) => Math.abs(actual - expected) <= 1e-10 * Math.max(1, Math.abs(expected));
 
