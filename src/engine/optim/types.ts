@@ -34,7 +34,10 @@ export interface StepReport {
    * line-search step length for L-BFGS, the damping factor for Newton.
    */
   learningRate: number;
-  /** Surface evaluations the step spent beyond the one the run loop makes at each new point. */
+  /**
+   * Surface evaluations the step itself made. Without `lossAtNewPoint` the run loop adds one more for
+   * the new point; with it, the count must already include the step's evaluation there.
+   */
   extraEvaluations: number;
   /**
    * Set when the step already evaluated the new point: `grad` then holds the gradient there and this

@@ -27,7 +27,7 @@ export function SurfacePanel() {
       </div>
       {mode === 'catalogue' ? (
         <div className="field">
-          <label htmlFor={`${id}-entry`}>Test function</label>
+          <label htmlFor={`${id}-entry`}>Catalogue entry</label>
           <select id={`${id}-entry`} value={entry?.id ?? ''} onChange={(e) => actions.setSurface({ kind: 'catalogue', id: e.target.value })}>
             {!entry && <option value="">(choose one)</option>}
             {CATALOGUE.map((c) => (

@@ -15,6 +15,9 @@ export interface SurfaceViewProps {
   compact?: boolean;
 }
 
+/** Performance mark set when contours are first on screen (read by the browser performance check). */
+export const FIRST_CONTOUR_MARK = 'fall-line:first-contour';
+
 const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
 
 /**
@@ -69,6 +72,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     const picture = surfacePicture(grid, display, info.logScaleOffset);
     drawBase(ctx, { layout, view, picture, axisLabels: { a: info.variables[axes[0]] ?? 'a', b: info.variables[axes[1]] ?? 'b' }, knownPoints, arrows, title });
     canvas.dataset.drawn = picture ? 'contours' : 'empty';
+    if (picture && performance.getEntriesByName(FIRST_CONTOUR_MARK).length === 0) performance.mark(FIRST_CONTOUR_MARK);
   }, [layout, grid, display, view, info, axes, knownPoints, arrows, title]);
 
   // Overlay layer: once per animation frame, only when something changed.

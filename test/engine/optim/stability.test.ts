@@ -6,8 +6,8 @@ import { quadratic, rotatedDiagonal } from './surfaces';
 /**
  * Source: reference optimizer-rules.md, section 1. On f = 1/2 (x - c)^T A (x - c) the error obeys
  * e_t = (I - lr A) e_{t-1}, so fixed-step GD converges from every start iff 0 < lr < 2 / lambda_max
- * (Polyak, Introduction to Optimization, 1987, Sec. 1.4; Nesterov, Introductory Lectures on Convex
- * Optimization, 2004, Thm 2.1.15; both from memory in the reference). Heavy ball: per eigenvalue the
+ * (Polyak, Introduction to Optimization, 1987, Sec. 1.4; Nesterov, convex optimization textbook,
+ * Kluwer 2004, Thm 2.1.15; both from memory in the reference). Heavy ball: per eigenvalue the
  * characteristic polynomial z^2 - (1 + beta - lr lambda) z + beta is stable iff 0 < lr lambda < 2 (1 + beta)
  * (derived in the reference, section 1).
  */

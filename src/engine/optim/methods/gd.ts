@@ -7,7 +7,7 @@ import type { MethodDefinition } from './method';
  * Default lr 0.01 (a workbench starting point; Keras SGD's default too). On a quadratic with Hessian
  * eigenvalues lambda_i the error shrinks by |1 - lr lambda_i| per step, so a fixed step converges iff 0 < lr < 2 / lambda_max and is best at
  * 2 / (lambda_min + lambda_max) (Polyak, Introduction to Optimization, 1987, Sec. 1.4; Nesterov,
- * Introductory Lectures on Convex Optimization, 2004, Thm 2.1.15). Cauchy (1847) proposed the method.
+ * convex optimization textbook, Kluwer 2004, Thm 2.1.15). Cauchy (1847) proposed the method.
  * With plain descent, coupled L2 (g + l2 x) and decoupled decay (lr * weightDecay * x) are the same step.
  */
 export const gd: MethodDefinition = {

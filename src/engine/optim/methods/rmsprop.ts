@@ -4,18 +4,18 @@ import { bool, num, str, type MethodDefinition } from './method';
 import { epsilonInfo, momentumInfo, placementInfo } from './sharedSettings';
 
 /**
- * RMSProp (Tieleman & Hinton, "Neural Networks for Machine Learning", Coursera, 2012, lecture 6e):
+ * RMSProp (Tieleman & Hinton, course slides "Neural Networks for Machine Learning", Coursera, 2012, slide set 6e):
  *   v_t = rho v_{t-1} + (1 - rho) g_t^2,  x_t = x_{t-1} - lr_t g_t / (sqrt(v_t) + eps);
  * centred (Graves, "Generating Sequences With Recurrent Neural Networks", arXiv:1308.0850, 2013):
  * v_t is replaced by v_t - gbar_t^2 with gbar_t = rho gbar_{t-1} + (1 - rho) g_t; with momentum mu:
  * b_t = mu b_{t-1} + g_t / (sqrt(v_t) + eps), x_t = x_{t-1} - lr_t b_t.
- * Defaults: lr 0.01, rho 0.9 (the lecture slide, Keras, Optax; PyTorch's alpha defaults to 0.99),
+ * Defaults: lr 0.01, rho 0.9 (the slides, Keras, Optax; PyTorch's alpha defaults to 0.99),
  * eps 1e-8 outside the root (PyTorch), v_0 = 0, not centred, no momentum.
  *
  * Library differences: Keras/TF and Optax (eps_in_sqrt=True) put eps inside, g / sqrt(v + eps); Keras
  * eps 1e-7; TF1's RMSPropOptimizer starts v at 1; tfjs puts eps (1e-7) inside and lr inside the
  * momentum buffer, and in its centred form subtracts eps: g / sqrt(v - gbar^2 - eps) (tfjs-core 4.22.0
- * source, rmsprop_optimizer.js). The lecture has no epsilon.
+ * source, rmsprop_optimizer.js). The slides have no epsilon.
  */
 export const rmsprop: MethodDefinition = {
   info: {
@@ -47,7 +47,7 @@ export const rmsprop: MethodDefinition = {
     usesSchedule: true,
     defaultWeightDecay: 0,
     summary: 'Divides each coordinate by the root of a running mean of its squared gradients.',
-    source: 'T. Tieleman & G. Hinton, "Neural Networks for Machine Learning", Coursera, lecture 6e, 2012.',
+    source: 'T. Tieleman & G. Hinton, "Neural Networks for Machine Learning", Coursera course slides 6e, 2012.',
   },
   build: (spec) =>
     firstOrderChain('RMSProp', spec, [
