@@ -1,6 +1,6 @@
 /**
  * Each catalogue formula against an independent hand-written JavaScript version of the published
- * formula (catches transcription typos such as Goldstein-Price's 48y printed as 4y). The versions
+ * formula (catches copying typos such as Goldstein-Price's 48y printed as 4y). The versions
  * below are written from the formulas in the reference notes (../shared/reference/test-functions.md,
  * copied here by hand), not from the catalogue text.
  */

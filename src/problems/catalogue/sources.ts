@@ -7,7 +7,7 @@
 /** SciPy's global-optimization benchmark suite, benchmarks/go_benchmark_functions (commit 3dbf660a). */
 export const SCIPY_GO = 'SciPy global-optimization benchmarks (go_benchmark_functions)';
 
-/** The survey most SciPy docstrings cite; values attributed to it are as transcribed by SciPy. */
+/** The survey most SciPy docstrings cite; values attributed to it are as SciPy copied them. */
 export const JAMIL_YANG =
   'Jamil & Yang (2013), "A literature survey of benchmark functions for global optimisation problems", ' +
   'Int. J. Math. Modelling and Numerical Optimisation 4(2), 150-194';
