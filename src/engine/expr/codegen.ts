@@ -195,7 +195,8 @@ export function assertSafeSource(source: string): void {
     if (token === '"use strict"') {
       if (i !== 0) fail('the prologue may only open the source');
     } else if (/^[A-Za-z_]/.test(token)) {
-      if (!isAllowedWord(token)) fail('not an allowed name');
+      const isKernelProperty = tokens[i - 1] === '.' && isKernelName(token);
+      if (!isAllowedWord(token) && !isKernelProperty) fail('not an allowed name');
     } else if (token === '.') {
       if (tokens[i - 1] !== 'K' || !isKernelName(tokens[i + 1] ?? '')) fail("'.' only in K.<kernel>");
     } else if (token === '[') {

@@ -30,7 +30,7 @@ const LOOKALIKE_HINTS: ReadonlyMap<string, string> = new Map([
   ['\u22c5', "use '*'"],
   ['\u2217', "use '*'"],
   ['\u00f7', "use '/'"],
-  ['\u00a0', 'a no-break space; use a plain space'],
+  ['\u00a0', 'that is a no-break space, use a plain one'],
   ['\u00b2', "use '^2'"],
   ['\u03c0', "use 'pi'"],
 ]);
@@ -108,8 +108,8 @@ export function tokenize(text: string): { tokens: Token[]; errors: FormulaError[
         end += characterLength(text, end);
       }
       const run = text.slice(i, end);
-      const hint = [...run].length === 1 ? LOOKALIKE_HINTS.get(run) : undefined;
-      errors.push(errorAt(`${describeCharacters(run)}${hint ? ` (${hint})` : ''}`, { start: i, end }));
+      const hint = LOOKALIKE_HINTS.get(run) ?? (/\p{L}/u.test(run) ? 'names use the letters A-Z, a-z and _ only' : undefined);
+      errors.push(errorAt(describeCharacters(run), { start: i, end }, hint));
       push('invalid', i, end);
       i = end;
     }

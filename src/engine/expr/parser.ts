@@ -285,7 +285,7 @@ class Parser {
     if (before?.kind === 'invalid') {
       // The lexer has already reported this spot.
     } else if (before === undefined && token.kind === 'end') {
-      this.report('empty formula', token);
+      this.report('empty formula', { start: 0, end: token.start });
     } else if (before?.kind === 'operator') {
       this.report(`missing operand after '${before.text}'`, before);
     } else if (token.kind === 'operator') {
