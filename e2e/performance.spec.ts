@@ -9,11 +9,21 @@ import { openFresh, waitForContours, waitForRunsToEnd } from './helpers';
  */
 test('main-thread long tasks while 8 runs of 5,000 steps stream', async ({ page }) => {
   await page.addInitScript(() => {
-    const w = window as unknown as { __longTasks: number[] };
+    const w = window as unknown as { __longTasks: number[]; __frameGap: number };
     w.__longTasks = [];
     new PerformanceObserver((list) => {
       for (const e of list.getEntries()) w.__longTasks.push(e.duration);
     }).observe({ type: 'longtask', buffered: true });
+    // The long-task API reports only tasks over 50 ms; the largest gap between animation frames shows
+    // how close to that the page came.
+    w.__frameGap = 0;
+    let last = 0;
+    const frame = (t: number) => {
+      if (last) w.__frameGap = Math.max(w.__frameGap, t - last);
+      last = t;
+      requestAnimationFrame(frame);
+    };
+    requestAnimationFrame(frame);
   });
   await openFresh(page);
   const kinds = ['gd', 'momentum', 'nesterov', 'adagrad', 'rmsprop', 'adam', 'amsgrad', 'nadam'] as const;
@@ -35,19 +45,34 @@ test('main-thread long tasks while 8 runs of 5,000 steps stream', async ({ page 
     tolerance: 1e-6,
     pace: 2500,
   };
-  await page.evaluate(() => ((window as unknown as { __longTasks: number[] }).__longTasks = []));
+  await page.evaluate(() => {
+    const w = window as unknown as { __longTasks: number[]; __frameGap: number };
+    w.__longTasks = [];
+    w.__frameGap = 0;
+  });
   await page.locator('input[type="file"]').setInputFiles({ name: 'perf.fall.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(workspace)) });
   await expect(page.locator('.run-item')).toHaveCount(8);
   await waitForRunsToEnd(page, 8);
   await expect(page.locator('td[data-col="steps"]', { hasText: '5000' })).toHaveCount(8);
-  const longest = await page.evaluate(() => Math.max(0, ...(window as unknown as { __longTasks: number[] }).__longTasks));
+  const { longest, frameGap } = await page.evaluate(() => {
+    const w = window as unknown as { __longTasks: number[]; __frameGap: number };
+    return { longest: Math.max(0, ...w.__longTasks), frameGap: w.__frameGap };
+  });
 
   // Time to first contour on a fresh load.
   await page.reload();
   await waitForContours(page);
   const firstContour = await page.evaluate(() => performance.getEntriesByName('fall-line:first-contour')[0]?.startTime ?? Number.NaN);
 
-  const result = { longest_task_ms: Math.round(longest * 10) / 10, first_contour_ms: Math.round(firstContour * 10) / 10, target_task_ms: 50, runs: 8, steps_per_run: 5000 };
+  const result = {
+    longest_task_ms: Math.round(longest * 10) / 10,
+    first_contour_ms: Math.round(firstContour * 10) / 10,
+    longest_frame_gap_ms: Math.round(frameGap * 10) / 10,
+    note: 'longest_task_ms is 0 when the long-task API saw no task over 50 ms',
+    target_task_ms: 50,
+    runs: 8,
+    steps_per_run: 5000,
+  };
   console.log(`performance: ${JSON.stringify(result)}`);
   mkdirSync('e2e-results', { recursive: true });
   writeFileSync('e2e-results/perf.json', JSON.stringify(result, null, 2));

@@ -4,7 +4,8 @@ import type { AppState } from '../../store/app-store';
 import type { LiveRuns } from '../../store/live-runs';
 import { formatValue, runStyle, surfaceToSvg, type KnownPoint as PlotKnownPoint, type PixelSize } from '../plot';
 import { frameLayout, frameTransform } from '../view/frame';
-import { drawBase, drawOverlay, markerInterval, surfacePicture } from '../view/scene';
+import { cachedPicture } from '../view/picture';
+import { drawBase, drawOverlay, markerInterval } from '../view/scene';
 
 const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
 
@@ -68,7 +69,7 @@ export function viewPng(s: AppState, live: LiveRuns, size: PixelSize, scale = 2)
   drawBase(ctx, {
     layout,
     view: s.view,
-    picture: surfacePicture(s.grid, s.display, s.surfaceInfo.logScaleOffset),
+    picture: cachedPicture(s.grid, s.display, s.surfaceInfo.logScaleOffset),
     axisLabels: { a: s.surfaceInfo.variables[axes[0]], b: s.surfaceInfo.variables[axes[1]] },
     knownPoints: knownPointsOf(s),
     arrows: [],
@@ -87,7 +88,7 @@ export function viewPng(s: AppState, live: LiveRuns, size: PixelSize, scale = 2)
 /** The same view as a standalone SVG document. */
 export function viewSvg(s: AppState, live: LiveRuns, size: PixelSize): string {
   const layout = frameLayout(size, true);
-  const picture = surfacePicture(s.grid, s.display, s.surfaceInfo.logScaleOffset);
+  const picture = cachedPicture(s.grid, s.display, s.surfaceInfo.logScaleOffset);
   const axes = s.slice.axes;
   return surfaceToSvg({
     transform: frameTransform(s.view, layout),

@@ -2,7 +2,8 @@ import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent, type
 import { gradientArrows, panBy, runStyle, zoomAt, type Arrow, type KnownPoint as PlotKnownPoint } from '../plot';
 import { useActions, useApp, useLiveRuns } from '../app-context';
 import { canvasToFrame, frameLayout, frameTransform, insideFrame } from './frame';
-import { drawBase, drawOverlay, surfacePicture, type TrajectoryLayerItem } from './scene';
+import { useSurfacePicture } from './picture';
+import { drawBase, drawOverlay, type TrajectoryLayerItem } from './scene';
 import { fullPoint } from './slice-point';
 import { prepareCanvas, useElementSize } from './use-canvas-size';
 import { useMainThreadSurface } from './use-surface';
@@ -45,6 +46,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const surfaceSpec = useApp((s) => s.surface);
   const surface = useMainThreadSurface(surfaceSpec);
   const layout = useMemo(() => (size ? frameLayout(size, !compact) : null), [size, compact]);
+  const picture = useSurfacePicture(grid, display, info.logScaleOffset);
   const axes = slice.axes;
   const n = info.variables.length;
 
@@ -69,11 +71,10 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     if (!canvas || !layout) return;
     const ctx = prepareCanvas(canvas, layout.canvas);
     if (!ctx) return;
-    const picture = surfacePicture(grid, display, info.logScaleOffset);
     drawBase(ctx, { layout, view, picture, axisLabels: { a: info.variables[axes[0]] ?? 'a', b: info.variables[axes[1]] ?? 'b' }, knownPoints, arrows, title });
     canvas.dataset.drawn = picture ? 'contours' : 'empty';
     if (picture && performance.getEntriesByName(FIRST_CONTOUR_MARK).length === 0) performance.mark(FIRST_CONTOUR_MARK);
-  }, [layout, grid, display, view, info, axes, knownPoints, arrows, title]);
+  }, [layout, picture, view, info, axes, knownPoints, arrows, title]);
 
   // Overlay layer: once per animation frame, only when something changed.
   const overlayInput = useRef({ view, runs, selected, hover, axes, runIds, layout });

@@ -1,53 +1,18 @@
-import type { GridState } from '../../store/app-store';
-import type { DisplaySettings } from '../../store/workspace';
 import {
-  bandColours,
-  contourBands,
   drawAxes,
   drawFilledContours,
   drawKnownPoints,
   drawLegend,
   drawTrajectory,
-  legendModel,
-  thresholdsFor,
-  valueScale,
   drawArrows,
   type Arrow,
-  type ContourBand,
   type DrawingContext,
-  type GridSpec,
   type KnownPoint,
-  type LegendModel,
   type RunStyle,
   type ViewBox,
 } from '../plot';
 import { frameTransform, LEGEND_WIDTH, type FrameLayout } from './frame';
-
-/** The contoured surface: computed once per grid and display setting, drawn by every panel. */
-export interface SurfacePicture {
-  grid: GridSpec;
-  bands: ContourBand[];
-  colours: string[];
-  legend: LegendModel;
-}
-
-const pictures = new WeakMap<Float64Array, { key: string; picture: SurfacePicture }>();
-
-/** Contours and legend for the current grid (cached per grid values and display settings). */
-export function surfacePicture(grid: GridState, display: DisplaySettings, logOffset?: number): SurfacePicture | null {
-  if (!grid.values || !grid.request) return null;
-  const key = `${display.scale}|${display.levels}|${display.colourMap}|${logOffset ?? ''}`;
-  const cached = pictures.get(grid.values);
-  if (cached?.key === key) return cached.picture;
-  const spec: GridSpec = { a: grid.request.a, b: grid.request.b, nx: grid.request.nx, ny: grid.request.ny };
-  const scale = valueScale(grid.min, grid.max, display.scale, display.scale === 'log' ? logOffset : undefined);
-  const thresholds = thresholdsFor(scale, display.levels);
-  const bands = contourBands(grid.values, spec, thresholds, scale.transform);
-  const colours = bandColours(thresholds, scale, display.colourMap);
-  const picture = { grid: spec, bands, colours, legend: legendModel(scale, thresholds, colours) };
-  pictures.set(grid.values, { key, picture });
-  return picture;
-}
+import type { SurfacePicture } from './picture';
 
 export interface BaseLayer {
   layout: FrameLayout;
