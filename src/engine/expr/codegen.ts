@@ -161,7 +161,7 @@ export function generateSource(g: Graph, outputs: CodeOutputs, shape: CodeShape)
   return source;
 }
 
-const TOKEN = /\s+|"use strict"|[A-Za-z_][A-Za-z0-9_]*|\d+(?:\.\d+)?(?:e[+-]\d+)?|<=|[()[\]{};,=+\-*/?:<.]/y;
+const TOKEN = /[ \n]+|"use strict"|[A-Za-z_][A-Za-z0-9_]*|\d+(?:\.\d+)?(?:e[+-]\d+)?|<=|[()[\]{};,=+\-*/?:<.]/y;
 const FIXED_WORDS = new Set(['const', 'return', 'function', 'K', 'c', 'x', 'v', 'g', 'h', 'value', 'valueGradient', 'valueGradientHessian']);
 const ARRAYS = new Set(['x', 'v', 'c', 'g', 'h']);
 const INTEGER = /^\d+$/;
@@ -172,7 +172,7 @@ function isAllowedWord(word: string): boolean {
 }
 
 /**
- * Throws unless `source` is made only of allowed tokens: whitespace, the one `"use strict"` prologue,
+ * Throws unless `source` is made only of allowed tokens: spaces and newlines, the one `"use strict"` prologue,
  * the fixed words above, temporaries `t<digits>`, kernel aliases `m_<kernel>`, unsigned decimal
  * numbers, and the punctuation `( ) [ ] { } ; , = + - * / ? : < <= .`. Further, `.` may only appear
  * as `K.<kernel>`, and `[` only as `<x|v|c|g|h>[<integer>]`. No string, no other name, no other
@@ -186,7 +186,7 @@ export function assertSafeSource(source: string): void {
     const match = TOKEN.exec(source);
     if (!match) throw new Error(`codegen: disallowed character at offset ${at}`);
     at += match[0].length;
-    if (!/^\s+$/.test(match[0])) tokens.push(match[0]);
+    if (!/^[ \n]+$/.test(match[0])) tokens.push(match[0]);
   }
   tokens.forEach((token, i) => {
     const fail = (why: string) => {
