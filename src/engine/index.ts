@@ -1,5 +1,5 @@
 // The engine's one public door: pure numerics, no DOM, no React, no worker globals.
-export type { Surface } from './surface';
+export { hasParameterGroups, isRowwiseSurface, type GroupedSurface, type ParameterGroup, type RowwiseSurface, type Surface } from './surface';
 export * from './vector';
 export * from './rng';
 export * from './run';
