@@ -1,7 +1,8 @@
-import type { Surface } from '../surface';
+import { isRowwiseSurface, type RowwiseSurface, type Surface } from '../surface';
 import type { Optimizer, Oracle } from '../optim/types';
 import { createRng, nextGaussian, type RngState } from '../rng';
 import { allFinite, norm2 } from '../vector';
+import { createMinibatchState, nextMinibatch, type MinibatchState } from './minibatch';
 import type { RunOutcome } from './outcome';
 import {
   DEFAULT_BLOW_UP_FACTOR,
@@ -24,7 +25,10 @@ export interface RunState {
   rng: RngState;
   /** Consecutive steps that met the loss-change test. */
   calmSteps: number;
+  /** Surface evaluations so far; a minibatch evaluation counts as one. */
   evaluations: number;
+  /** Epoch order and position, for minibatch runs; null otherwise. */
+  minibatch: MinibatchState | null;
   /** Whether step 0 has been handed out in a batch. */
   startReported: boolean;
   outcome: RunOutcome | null;
@@ -33,19 +37,24 @@ export interface RunState {
 /**
  * Steps one run forward in batches. The cursor binds a surface and an optimizer to a plain-data
  * `RunState`; `advance(n)` takes up to n steps and returns them as a batch, the first batch also
- * holding step 0 (the start). Same settings and seed, same numbers.
+ * holding step 0 (the start). Same settings and seed, same numbers. On a minibatch run the optimizer
+ * steps on the next batch's loss and gradient (minibatch.ts) while the recorded loss and gradient norm
+ * stay the exact full-data ones.
  */
 export class RunCursor {
   readonly state: RunState;
   private readonly oracle: Oracle;
   private readonly work: Float64Array;
+  /** The current minibatch (row indices, count), shared with the oracle. */
+  private readonly batch: RowBatch;
 
   constructor(
     readonly surface: Surface,
     readonly optimizer: Optimizer,
     readonly settings: RunSettings,
   ) {
-    validateRunSettings(settings, surface.dimension);
+    const rowwise = isRowwiseSurface(surface) ? surface : null;
+    validateRunSettings(settings, surface.dimension, rowwise?.rows);
     const n = surface.dimension;
     const x = Float64Array.from(settings.start);
     const grad = new Float64Array(n);
@@ -60,11 +69,14 @@ export class RunCursor {
       rng: createRng(settings.seed),
       calmSteps: 0,
       evaluations: 1,
+      minibatch: settings.minibatch && rowwise ? createMinibatchState(rowwise.rows) : null,
       startReported: false,
       outcome: null,
     };
     this.work = new Float64Array(n);
-    this.oracle = noisyOracle(surface, settings.gradientNoise ?? 0, this.state);
+    this.batch = { indices: new Int32Array(settings.minibatch?.size ?? 0), count: 0 };
+    const noise = settings.gradientNoise ?? 0;
+    this.oracle = this.state.minibatch && rowwise ? batchOracle(rowwise, this.batch, noise, this.state) : noisyOracle(surface, noise, this.state);
     this.state.outcome = this.checkPoint();
   }
 
@@ -87,12 +99,15 @@ export class RunCursor {
     const noise = this.settings.gradientNoise ?? 0;
     for (let k = 0; k < steps && !s.outcome; k++) {
       const previousLoss = s.loss;
-      this.work.set(s.grad);
+      // The optimizer sees the next batch's loss and gradient on a minibatch run, the exact ones otherwise.
+      let stepLoss = s.loss;
+      if (s.minibatch) stepLoss = this.drawBatch(s.minibatch);
+      else this.work.set(s.grad);
       if (noise > 0) addNoise(this.work, noise, s.rng);
       s.t += 1;
-      const report = this.optimizer.step(s.x, this.work, s.optimizerState, { t: s.t, loss: s.loss, oracle: this.oracle });
+      const report = this.optimizer.step(s.x, this.work, s.optimizerState, { t: s.t, loss: stepLoss, oracle: this.oracle });
       s.evaluations += report.extraEvaluations;
-      if (report.lossAtNewPoint !== undefined && noise === 0) {
+      if (report.lossAtNewPoint !== undefined && noise === 0 && !s.minibatch) {
         s.loss = report.lossAtNewPoint;
         s.grad.set(this.work);
       } else {
@@ -112,6 +127,15 @@ export class RunCursor {
     do batches.push(this.advance(batchSize));
     while (!this.state.outcome);
     return batches;
+  }
+
+  /** Draws the next minibatch, writes its gradient into `work` and returns its loss. */
+  private drawBatch(minibatch: MinibatchState): number {
+    const surface = this.surface as RowwiseSurface;
+    const b = this.batch;
+    b.count = nextMinibatch(minibatch, b.indices.length, this.state.rng, b.indices);
+    this.state.evaluations += 1;
+    return surface.valueGradientOnRows(this.state.x, this.work, b.indices, b.count);
   }
 
   private record(batch: TrajectoryBatch, learningRate: number): void {
@@ -155,6 +179,11 @@ function addNoise(g: Float64Array, std: number, rng: RngState): void {
   for (let i = 0; i < g.length; i++) g[i] += std * nextGaussian(rng);
 }
 
+interface RowBatch {
+  indices: Int32Array;
+  count: number;
+}
+
 /** The surface as optimizers see it: with the run's gradient noise, counting evaluations. */
 function noisyOracle(surface: Surface, std: number, state: { rng: RngState }): Oracle {
   return {
@@ -169,6 +198,30 @@ function noisyOracle(surface: Surface, std: number, state: { rng: RngState }): O
     },
     valueGradientHessian(x, grad, hessian) {
       const f = surface.valueGradientHessian(x, grad, hessian);
+      if (std > 0) addNoise(grad, std, state.rng);
+      return f;
+    },
+  };
+}
+
+/**
+ * The surface as optimizers see it on a minibatch run: the current batch's loss (line searches and
+ * Newton steps work on the same batch the step's gradient came from), with the run's gradient noise.
+ */
+function batchOracle(surface: RowwiseSurface, batch: RowBatch, std: number, state: { rng: RngState }): Oracle {
+  const scratch = new Float64Array(surface.dimension);
+  return {
+    dimension: surface.dimension,
+    value(x) {
+      return surface.valueGradientOnRows(x, scratch, batch.indices, batch.count);
+    },
+    valueGradient(x, grad) {
+      const f = surface.valueGradientOnRows(x, grad, batch.indices, batch.count);
+      if (std > 0) addNoise(grad, std, state.rng);
+      return f;
+    },
+    valueGradientHessian(x, grad, hessian) {
+      const f = surface.valueGradientHessianOnRows(x, grad, hessian, batch.indices, batch.count);
       if (std > 0) addNoise(grad, std, state.rng);
       return f;
     },

@@ -1,4 +1,5 @@
 import { SettingError } from '../optim/types';
+import { validateMinibatch, type MinibatchSettings } from './minibatch';
 
 /** When a run stops. Plain data, validated by `validateStopRules`. */
 export interface StopRules {
@@ -33,6 +34,12 @@ export interface RunSettings {
    * always the exact ones.
    */
   gradientNoise?: number;
+  /**
+   * Minibatch training on a data-fit surface: each step the optimizer sees the loss and gradient of the
+   * next batch of rows (see minibatch.ts for the epoch order). The recorded loss and gradient norm are
+   * always the exact full-data ones.
+   */
+  minibatch?: MinibatchSettings;
 }
 
 export const DEFAULT_LOSS_CHANGE_PATIENCE = 3;
@@ -53,7 +60,8 @@ export function validateStopRules(stop: StopRules): void {
     throw new SettingError('blowUpFactor', `stop: blowUpFactor must be a finite number > 0, got ${blowUp}`);
 }
 
-export function validateRunSettings(settings: RunSettings, dimension: number): void {
+/** `rows`: the surface's data rows, for surfaces that have them (needed to check `minibatch`). */
+export function validateRunSettings(settings: RunSettings, dimension: number, rows?: number): void {
   const { start } = settings;
   if (start.length !== dimension)
     throw new SettingError('start', `start: expected ${dimension} coordinates, got ${start.length}`);
@@ -62,6 +70,7 @@ export function validateRunSettings(settings: RunSettings, dimension: number): v
   });
   if (!Number.isFinite(settings.seed)) throw new SettingError('seed', `seed must be a finite number, got ${settings.seed}`);
   nonNegative('gradientNoise', settings.gradientNoise);
+  if (settings.minibatch !== undefined) validateMinibatch(settings.minibatch, rows);
   validateStopRules(settings.stop);
 }
 
