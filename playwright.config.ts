@@ -4,7 +4,7 @@ const executablePath = process.env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium'
 
 export default defineConfig({
   testDir: 'e2e',
-  timeout: 60_000,
+  timeout: 120_000,
   fullyParallel: false,
   workers: 1,
   reporter: [['list']],

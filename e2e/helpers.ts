@@ -36,5 +36,5 @@ export function countColour(px: { data: number[] }, hex: string, tolerance = 12)
 
 /** Waits until every run in the list shows an ended state (or error). */
 export async function waitForRunsToEnd(page: Page, count: number): Promise<void> {
-  await expect(page.locator('.run-status[data-phase="ended"]')).toHaveCount(count, { timeout: 30_000 });
+  await expect(page.locator('.run-status[data-phase="ended"]')).toHaveCount(count, { timeout: 60_000 });
 }

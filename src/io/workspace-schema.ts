@@ -51,7 +51,21 @@ const runConfig = z.object({
 export const workspaceSchema = z.object({
   version: z.literal(1),
   surface: surfaceSpec,
-  slice: z.object({ axes: z.tuple([z.number().int().min(0), z.number().int().min(0)]), at: z.array(finite) }),
+  slice: z.object({
+    axes: z.tuple([z.number().int().min(0), z.number().int().min(0)]),
+    at: z.array(finite),
+    plane: z
+      .object({
+        method: z.enum(['random', 'pca']),
+        origin: z.array(finite),
+        u: z.array(finite),
+        v: z.array(finite),
+        labels: z.tuple([z.string(), z.string()]),
+        note: z.string(),
+      })
+      .nullable()
+      .optional(),
+  }),
   view: z.object({ a: range, b: range }),
   display: z.object({
     scale: z.enum(['log', 'linear']),

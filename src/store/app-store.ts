@@ -1,5 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { axisPlane, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
+import { validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
 import { buildSurface, describeSurface, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import type { FromWorker, Pace, RunControl, RunSpec } from '../protocol';
 import type { ViewBox } from '../ui/plot';
@@ -8,6 +8,7 @@ import { freshId } from './ids';
 import { LiveRuns, type RunStatus } from './live-runs';
 import { demoWorkspace } from './demo';
 import { newRunConfig, nextStyle } from './run-configs';
+import { slicePlane } from './slice-plane';
 import type { DisplaySettings, PanelSettings, RunConfig, SliceSettings, Workspace } from './workspace';
 
 /** The surface grid as last received from the worker. */
@@ -47,7 +48,8 @@ export interface AppActions {
   /** Applies a new surface if it builds; otherwise records the error and leaves the workspace as it was. */
   setSurface(spec: SurfaceSpec): boolean;
   setConstant(name: string, value: number): void;
-  setSlice(slice: Partial<SliceSettings>): void;
+  /** Changes the slice; a new plane or new axes also reset the view (to `view` if given). */
+  setSlice(slice: Partial<SliceSettings> & { view?: ViewBox }): void;
   setView(view: ViewBox): void;
   setHover(point: { a: number; b: number } | null): void;
   resetView(): void;
@@ -124,14 +126,13 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
   function requestGrid(): void {
     const s = get();
     const n = s.surfaceInfo.variables.length;
-    const [i, j] = n >= 2 ? s.slice.axes : [0, 0];
     if (n < 2) {
       set({ grid: { ...s.grid, phase: 'error', error: 'the surface needs at least two variables to draw a slice' } });
       return;
     }
     const requestId = freshId('g');
     const side = s.display.resolution;
-    const grid: GridRequest = { plane: axisPlane(s.slice.at, i, j), a: s.view.a, b: s.view.b, nx: side, ny: side };
+    const grid: GridRequest = { plane: slicePlane(s.slice, n), a: s.view.a, b: s.view.b, nx: side, ny: side };
     set({ grid: { ...s.grid, requestId, phase: 'computing', progress: 0, error: null } });
     link.send({ type: 'grid/sample', requestId, surface: s.surface, grid, coarseFirst: true });
   }
@@ -170,7 +171,7 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
     const s = get();
     const n = info.variables.length;
     const sameShape = n === s.surfaceInfo.variables.length;
-    const slice: SliceSettings = sameShape ? s.slice : { axes: [0, Math.min(1, n - 1)], at: info.view.map(([lo, hi]) => (lo + hi) / 2) };
+    const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, Math.min(1, n - 1)], at: info.view.map(([lo, hi]) => (lo + hi) / 2), plane: null };
     const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
     const runs = sameShape ? s.runs : s.runs.map((r) => ({ ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
     set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs });
@@ -200,11 +201,12 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
       if (!Number.isFinite(value)) return;
       applySurface({ ...s.surface, constants: { ...(s.surface.constants ?? {}), [name]: value } } as SurfaceSpec, true);
     },
-    setSlice(patch) {
+    setSlice({ view: requestedView, ...patch }) {
       const s = get();
       const slice = { ...s.slice, ...patch };
       const axesChanged = patch.axes && (patch.axes[0] !== s.slice.axes[0] || patch.axes[1] !== s.slice.axes[1]);
-      set({ slice, view: axesChanged ? viewFor(s.surfaceInfo.view, slice.axes) : s.view });
+      const planeChanged = patch.plane !== undefined && patch.plane !== s.slice.plane;
+      set({ slice, view: planeChanged || axesChanged ? defaultView(s.surfaceInfo, slice, requestedView) : requestedView ?? s.view });
       requestGrid();
     },
     setView(view) {
@@ -219,7 +221,7 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
     },
     resetView() {
       const s = get();
-      actions.setView(viewFor(s.surfaceInfo.view, s.slice.axes));
+      actions.setView(defaultView(s.surfaceInfo, s.slice));
     },
     setDisplay(patch) {
       const s = get();
@@ -350,6 +352,13 @@ export function workspaceOf(s: AppState): Workspace {
 /** Whether any saved field changed (the store replaces objects on change, so identity suffices). */
 export function workspaceChanged(a: AppState, b: AppState): boolean {
   return WORKSPACE_KEYS.some((k) => a[k] !== b[k]);
+}
+
+/** Default view of a slice: the surface's box on the two axes, or [-1, 1]^2 in a method plane's units. */
+function defaultView(info: SurfaceInfo, slice: SliceSettings, requested?: ViewBox): ViewBox {
+  if (requested) return requested;
+  if (slice.plane) return { a: [-1, 1], b: [-1, 1] };
+  return viewFor(info.view, slice.axes);
 }
 
 function viewFor(view: [number, number][], [i, j]: [number, number]): ViewBox {

@@ -25,6 +25,20 @@ export interface SliceSettings {
   axes: [number, number];
   /** Held value of every variable (the drawn two are ignored). */
   at: number[];
+  /** A plane not spanned by two variables (random directions, a run's principal directions); null: axes. */
+  plane?: PlaneSlice | null;
+}
+
+/** A slice plane chosen by a method rather than by two variables, stored as plain data. */
+export interface PlaneSlice {
+  method: 'random' | 'pca';
+  origin: number[];
+  u: number[];
+  v: number[];
+  /** Axis titles, e.g. "direction 1" or "PC1 (83% of variance)". */
+  labels: [string, string];
+  /** One line saying how the plane was made (shown beside the view). */
+  note: string;
 }
 
 export interface DisplaySettings {

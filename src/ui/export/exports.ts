@@ -2,12 +2,12 @@ import { optimizerInfo } from '../../engine';
 import { runTableCsv, trajectoryCsv, type RunSummaryRow, type TrajectoryExportRun } from '../../io/csv';
 import type { AppState } from '../../store/app-store';
 import type { LiveRuns } from '../../store/live-runs';
-import { formatValue, runStyle, surfaceToSvg, type KnownPoint as PlotKnownPoint, type PixelSize } from '../plot';
+import { sliceTitles } from '../../store/slice-plane';
+import { formatValue, surfaceToSvg, type PixelSize } from '../plot';
 import { frameLayout, frameTransform } from '../view/frame';
 import { cachedPicture } from '../view/picture';
 import { drawBase, drawOverlay, markerInterval } from '../view/scene';
-
-const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
+import { knownPointsOnSlice, trajectoryItems } from '../view/scene-input';
 
 /** Trajectories of every run, one row per run per step (columns in the README). */
 export function trajectoriesCsv(s: AppState, live: LiveRuns): string {
@@ -44,19 +44,6 @@ export function resultsCsv(s: AppState): string {
   return runTableCsv(rows);
 }
 
-function knownPointsOf(s: AppState): PlotKnownPoint[] {
-  if (!s.display.showKnownPoints || s.surfaceInfo.variables.length !== 2) return [];
-  const [i, j] = s.slice.axes;
-  return s.surfaceInfo.knownPoints.map((p) => ({ at: { a: p.point[i], b: p.point[j] }, kind: KIND_OF_POINT[p.kind] }));
-}
-
-function visibleTrajectories(s: AppState, live: LiveRuns) {
-  return s.runs.flatMap((r) => {
-    const b = live.trajectory(r.id);
-    return !r.hidden && b && b.count ? [{ run: r, buffer: b }] : [];
-  });
-}
-
 /** The overlaid surface view drawn onto a fresh canvas at `scale` times the CSS size, as PNG. */
 export function viewPng(s: AppState, live: LiveRuns, size: PixelSize, scale = 2): Promise<Blob> {
   const canvas = document.createElement('canvas');
@@ -65,23 +52,16 @@ export function viewPng(s: AppState, live: LiveRuns, size: PixelSize, scale = 2)
   const ctx = canvas.getContext('2d')!;
   ctx.scale(scale, scale);
   const layout = frameLayout(size, true);
-  const axes = s.slice.axes;
   drawBase(ctx, {
     layout,
     view: s.view,
     picture: cachedPicture(s.grid, s.display, s.surfaceInfo.logScaleOffset),
-    axisLabels: { a: s.surfaceInfo.variables[axes[0]], b: s.surfaceInfo.variables[axes[1]] },
-    knownPoints: knownPointsOf(s),
+    axisLabels: sliceTitles(s.slice, s.surfaceInfo.variables),
+    knownPoints: knownPointsOnSlice(s),
     arrows: [],
     title: s.surfaceInfo.label,
   });
-  drawOverlay(ctx, {
-    layout,
-    view: s.view,
-    axes,
-    hover: null,
-    trajectories: visibleTrajectories(s, live).map(({ run, buffer }) => ({ points: buffer.points, count: buffer.count, dimension: buffer.dimension, style: runStyle(run.style), selected: false })),
-  });
+  drawOverlay(ctx, { layout, view: s.view, hover: null, trajectories: trajectoryItems({ ...s, selectedRunId: null }, live) });
   return new Promise((resolve, reject) => canvas.toBlob((b) => (b ? resolve(b) : reject(new Error('the browser could not encode the PNG'))), 'image/png'));
 }
 
@@ -89,22 +69,21 @@ export function viewPng(s: AppState, live: LiveRuns, size: PixelSize, scale = 2)
 export function viewSvg(s: AppState, live: LiveRuns, size: PixelSize): string {
   const layout = frameLayout(size, true);
   const picture = cachedPicture(s.grid, s.display, s.surfaceInfo.logScaleOffset);
-  const axes = s.slice.axes;
   return surfaceToSvg({
     transform: frameTransform(s.view, layout),
     title: s.surfaceInfo.label,
     bands: picture?.bands,
     colours: picture?.colours,
     grid: picture?.grid,
-    axes: { a: s.surfaceInfo.variables[axes[0]], b: s.surfaceInfo.variables[axes[1]] },
+    axes: sliceTitles(s.slice, s.surfaceInfo.variables),
     legend: picture ? { model: picture.legend, title: 'loss' } : undefined,
-    knownPoints: knownPointsOf(s),
-    trajectories: visibleTrajectories(s, live).map(({ run, buffer }) => ({
-      points: buffer.points,
-      count: buffer.count,
-      style: runStyle(run.style),
-      label: run.label,
-      options: { layout: { stride: buffer.dimension, a: axes[0], b: axes[1] }, markerEvery: markerInterval(buffer.count) },
+    knownPoints: knownPointsOnSlice(s),
+    trajectories: trajectoryItems(s, live).map((t) => ({
+      points: t.points,
+      count: t.count,
+      style: t.style,
+      label: t.label,
+      options: { layout: t.layout, markerEvery: markerInterval(t.count) },
     })),
   });
 }

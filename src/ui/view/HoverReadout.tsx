@@ -1,7 +1,8 @@
 import type { Surface } from '../../engine';
 import { formatValue } from '../plot';
 import { useApp } from '../app-context';
-import { fullPoint, probe } from './slice-point';
+import { slicePoint } from '../../store/slice-plane';
+import { probe } from './probe';
 
 /** Point, loss and gradient norm under the pointer (computed exactly at that point). */
 export function HoverReadout({ surface }: { surface: Surface | null }) {
@@ -9,11 +10,11 @@ export function HoverReadout({ surface }: { surface: Surface | null }) {
   const slice = useApp((s) => s.slice);
   const variables = useApp((s) => s.surfaceInfo.variables);
   if (!hover || !surface) return <div className="hover-readout" aria-live="polite">Point at the surface to read the loss.</div>;
-  const x = fullPoint(slice, variables.length, hover.a, hover.b);
+  const x = slicePoint(slice, variables.length, hover.a, hover.b);
   const { loss, gradNorm } = probe(surface, x);
   return (
     <div className="hover-readout mono" aria-live="polite" data-testid="hover-readout">
-      {variables.map((v, k) => `${v} = ${formatValue(x[k])}`).join(', ')} · loss {formatValue(loss)} · |gradient| {formatValue(gradNorm)}
+      {x.length > 6 ? `${x.length} parameters (${variables.slice(0, 3).map((v, k) => `${v} = ${formatValue(x[k])}`).join(', ')}, ...)` : variables.map((v, k) => `${v} = ${formatValue(x[k])}`).join(', ')} · loss {formatValue(loss)} · |gradient| {formatValue(gradNorm)}
     </div>
   );
 }

@@ -1,10 +1,11 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent, type WheelEvent } from 'react';
-import { gradientArrows, panBy, runStyle, zoomAt, type Arrow, type KnownPoint as PlotKnownPoint } from '../plot';
-import { useActions, useApp, useLiveRuns } from '../app-context';
+import { slicePlane, slicePoint, sliceTitles } from '../../store/slice-plane';
+import { gradientArrows, panBy, zoomAt, type Arrow } from '../plot';
+import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
 import { canvasToFrame, frameLayout, frameTransform, insideFrame } from './frame';
 import { useSurfacePicture } from './picture';
-import { drawBase, drawOverlay, type TrajectoryLayerItem } from './scene';
-import { fullPoint } from './slice-point';
+import { drawBase, drawOverlay } from './scene';
+import { knownPointsOnSlice, trajectoryItems } from './scene-input';
 import { prepareCanvas, useElementSize } from './use-canvas-size';
 import { useMainThreadSurface } from './use-surface';
 import { HoverReadout } from './HoverReadout';
@@ -19,8 +20,6 @@ export interface SurfaceViewProps {
 /** Performance mark set when contours are first on screen (read by the browser performance check). */
 export const FIRST_CONTOUR_MARK = 'fall-line:first-contour';
 
-const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
-
 /**
  * The surface slice with the runs over it. Two stacked canvases: the base (contours, arrows, known
  * points, axes, legend) redraws when the grid or the view changes; the overlay (trajectories, crosshair)
@@ -31,6 +30,7 @@ const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-
 export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const actions = useActions();
   const live = useLiveRuns();
+  const storeApi = useStoreApi();
   const boxRef = useRef<HTMLDivElement>(null);
   const baseRef = useRef<HTMLCanvasElement>(null);
   const overlayRef = useRef<HTMLCanvasElement>(null);
@@ -47,23 +47,27 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const surface = useMainThreadSurface(surfaceSpec);
   const layout = useMemo(() => (size ? frameLayout(size, !compact) : null), [size, compact]);
   const picture = useSurfacePicture(grid, display, info.logScaleOffset);
-  const axes = slice.axes;
   const n = info.variables.length;
-
-  const knownPoints: PlotKnownPoint[] = useMemo(() => {
-    if (!display.showKnownPoints || n !== 2) return [];
-    return info.knownPoints.map((p) => ({ at: { a: p.point[axes[0]], b: p.point[axes[1]] }, kind: KIND_OF_POINT[p.kind] }));
-  }, [display.showKnownPoints, info.knownPoints, axes, n]);
+  const titles = sliceTitles(slice, info.variables);
+  const knownPoints = useMemo(() => knownPointsOnSlice({ slice, surfaceInfo: info, display, runs, selectedRunId: selected }), [slice, info, display, runs, selected]);
 
   const arrows: Arrow[] = useMemo(() => {
-    if (!display.showArrows || !surface || !layout) return [];
+    if (!display.showArrows || !surface || !layout || surface.dimension !== n) return [];
     const t = frameTransform(view, layout);
-    const g = new Float64Array(surface.dimension);
+    const plane = slicePlane(slice, n);
+    const g = new Float64Array(n);
+    // The gradient restricted to the plane: (u . grad, v . grad).
     return gradientArrows((p) => {
-      surface.valueGradient(fullPoint(slice, n, p.a, p.b), g);
-      return { da: g[axes[0]], db: g[axes[1]] };
+      surface.valueGradient(slicePoint(slice, n, p.a, p.b), g);
+      let da = 0;
+      let db = 0;
+      for (let k = 0; k < n; k++) {
+        da += plane.u[k] * g[k];
+        db += plane.v[k] * g[k];
+      }
+      return { da, db };
     }, t, compact ? 28 : 36);
-  }, [display.showArrows, surface, layout, view, slice, axes, n, compact]);
+  }, [display.showArrows, surface, layout, view, slice, n, compact]);
 
   // Base layer.
   useEffect(() => {
@@ -71,14 +75,14 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     if (!canvas || !layout) return;
     const ctx = prepareCanvas(canvas, layout.canvas);
     if (!ctx) return;
-    drawBase(ctx, { layout, view, picture, axisLabels: { a: info.variables[axes[0]] ?? 'a', b: info.variables[axes[1]] ?? 'b' }, knownPoints, arrows, title });
+    drawBase(ctx, { layout, view, picture, axisLabels: titles, knownPoints, arrows, title });
     canvas.dataset.drawn = picture ? 'contours' : 'empty';
     if (picture && performance.getEntriesByName(FIRST_CONTOUR_MARK).length === 0) performance.mark(FIRST_CONTOUR_MARK);
-  }, [layout, picture, view, info, axes, knownPoints, arrows, title]);
+  }, [layout, picture, view, titles.a, titles.b, knownPoints, arrows, title]);
 
   // Overlay layer: once per animation frame, only when something changed.
-  const overlayInput = useRef({ view, runs, selected, hover, axes, runIds, layout });
-  overlayInput.current = { view, runs, selected, hover, axes, runIds, layout };
+  const overlayInput = useRef({ view, runs, selected, hover, slice, runIds, layout });
+  overlayInput.current = { view, runs, selected, hover, slice, runIds, layout };
   useEffect(() => {
     let frame = 0;
     let drawnVersion = -1;
@@ -94,19 +98,13 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
       const ctx = prepareCanvas(canvas, input.layout.canvas);
       if (!ctx) return;
       ctx.clearRect(0, 0, input.layout.canvas.width, input.layout.canvas.height);
-      const trajectories: TrajectoryLayerItem[] = [];
-      for (const r of input.runs) {
-        if (r.hidden || (input.runIds && !input.runIds.includes(r.id))) continue;
-        const buffer = live.trajectory(r.id);
-        if (!buffer || buffer.count === 0) continue;
-        trajectories.push({ points: buffer.points, count: buffer.count, dimension: buffer.dimension, style: runStyle(r.style), selected: r.id === input.selected });
-      }
-      drawOverlay(ctx, { layout: input.layout, view: input.view, axes: input.axes, trajectories, hover: input.hover });
+      const trajectories = trajectoryItems(storeApi.getState(), live, input.runIds);
+      drawOverlay(ctx, { layout: input.layout, view: input.view, trajectories, hover: input.hover });
       canvas.dataset.trajectories = String(trajectories.length);
     };
     frame = requestAnimationFrame(tick);
     return () => cancelAnimationFrame(frame);
-  }, [live]);
+  }, [live, storeApi]);
 
   // Interaction.
   const drag = useRef<{ x: number; y: number; moved: boolean } | null>(null);
@@ -149,7 +147,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     const p = framePoint(e);
     if (!insideFrame(layout, p)) return;
     const q = frameTransform(view, layout).toParam(p);
-    actions.setStart(fullPoint(slice, n, q.a, q.b));
+    actions.setStart(slicePoint(slice, n, q.a, q.b));
   }
   function onKeyDown(e: KeyboardEvent) {
     if (!layout) return;
@@ -179,7 +177,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
         className="surface-canvas-box"
         tabIndex={0}
         role="img"
-        aria-label={`${title ?? info.label}: contour map of the loss over ${info.variables[axes[0]]} and ${info.variables[axes[1]]}. Arrow keys pan, plus and minus zoom, 0 resets; click sets the start point.`}
+        aria-label={`${title ?? info.label}: contour map of the loss over ${titles.a} and ${titles.b}. Arrow keys pan, plus and minus zoom, 0 resets; click sets the start point.`}
         onWheel={onWheel}
         onPointerDown={onPointerDown}
         onPointerMove={onPointerMove}

@@ -59,15 +59,16 @@ export function drawBase(ctx: DrawingContext, base: BaseLayer): void {
 export interface TrajectoryLayerItem {
   points: Float64Array;
   count: number;
-  dimension: number;
+  /** Where a and b sit in each row of `points`. */
+  layout: { stride: number; a: number; b: number };
   style: RunStyle;
   selected: boolean;
+  label: string;
 }
 
 export interface OverlayLayer {
   layout: FrameLayout;
   view: ViewBox;
-  axes: [number, number];
   trajectories: TrajectoryLayerItem[];
   /** Linked hover position in parameter space (drawn as a crosshair). */
   hover: { a: number; b: number } | null;
@@ -84,7 +85,7 @@ export function drawOverlay(ctx: DrawingContext, overlay: OverlayLayer): void {
   ctx.clip();
   for (const tr of overlay.trajectories) {
     drawTrajectory(ctx, tr.points, tr.count, t, tr.style, {
-      layout: { stride: tr.dimension, a: overlay.axes[0], b: overlay.axes[1] },
+      layout: tr.layout,
       markerEvery: markerInterval(tr.count),
       lineWidth: tr.selected ? 2.75 : 1.75,
     });
