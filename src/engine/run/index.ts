@@ -1,6 +1,6 @@
 export { RunCursor, type RunState } from './cursor';
 export { createMinibatchState, nextMinibatch, stepsForEpochs, validateMinibatch, type MinibatchSettings, type MinibatchState } from './minibatch';
-export { describeOutcome, type RunOutcome } from './outcome';
+export { describeOutcome, outcomeLabel, type RunOutcome } from './outcome';
 export {
   validateRunSettings,
   validateStopRules,

@@ -19,3 +19,17 @@ export function describeOutcome(o: RunOutcome): string {
       return `cancelled at step ${o.step}`;
   }
 }
+
+/** The outcome without its step number, for tables that show the step in a column of its own. */
+export function outcomeLabel(o: RunOutcome): string {
+  switch (o.kind) {
+    case 'converged':
+      return o.rule === 'loss-change' ? 'converged: loss change' : 'converged: gradient norm';
+    case 'step-limit':
+      return 'step limit';
+    case 'diverged':
+      return `diverged at step ${o.step}: ${o.detail}`;
+    case 'cancelled':
+      return 'cancelled';
+  }
+}

@@ -29,7 +29,7 @@ export function axisValue(axis: LossAxis, loss: number): number {
   return loss;
 }
 
-export const CHART_MARGIN = { left: 70, right: 14, top: 10, bottom: 40 } as const;
+export const CHART_MARGIN = { left: 70, right: 24, top: 10, bottom: 40 } as const;
 
 /** Draws every run's loss against step. */
 export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: readonly LossSeries[], axis: LossAxis): void {

@@ -109,3 +109,12 @@ describe('RunCursor', () => {
     expect(() => new RunCursor(bowl, plainDescent(0.1), { start: [1, 1], seed: 1, stop: { maxSteps: 0 } })).toThrow(/maxSteps must be a whole number/);
   });
 });
+
+describe('outcome text', () => {
+  it('says which rule, or at which step and why', async () => {
+    const { describeOutcome, outcomeLabel } = await import('../../../src/engine');
+    expect(describeOutcome({ kind: 'converged', rule: 'gradient-norm', step: 138 })).toBe('converged (gradient norm) at step 138');
+    expect(outcomeLabel({ kind: 'diverged', reason: 'blow-up', step: 9, detail: 'the loss rose to 1e9' })).toBe('diverged at step 9: the loss rose to 1e9');
+    expect(outcomeLabel({ kind: 'step-limit', step: 5 })).toBe('step limit');
+  });
+});
