@@ -1,7 +1,7 @@
 import * as math from 'mathjs';
 import { compileFormula } from '../src/engine';
 import { HIMMELBLAU, himmelblauGrad, MIXED, mixed, mixedGrad, rosenbrock, ROSENBROCK, rosenbrockGrad } from './handwritten';
-import { opsPerMs, sink } from './measure';
+import { opsPerMs } from './measure';
 
 const POINTS = 1024;
 
@@ -33,8 +33,8 @@ export function formulaGradRatios() {
       if (Math.abs(a - b) > 1e-9 * (1 + Math.abs(b)) || Math.abs(g1[0] - g2[0]) > 1e-8 * (1 + Math.abs(g2[0])) || Math.abs(g1[1] - g2[1]) > 1e-8 * (1 + Math.abs(g2[1])))
         throw new Error(`bench: compiled and hand-written ${name} disagree at (${p[0]}, ${p[1]})`);
     }
-    const compiled = opsPerMs((k) => (sink.value += surface.valueGradient(pts[k & (POINTS - 1)], g1)));
-    const handwritten = opsPerMs((k) => (sink.value += hand(pts[k & (POINTS - 1)], g2)));
+    const compiled = opsPerMs((k) => surface.valueGradient(pts[k & (POINTS - 1)], g1));
+    const handwritten = opsPerMs((k) => hand(pts[k & (POINTS - 1)], g2));
     return { name, compiled, handwritten, ratio: compiled / handwritten };
   });
 }
@@ -54,16 +54,16 @@ export function formulaVsMathjs() {
     scope.x = check[0];
     scope.y = check[1];
     if (Math.abs(code.evaluate(scope) - surface.value(check)) > 1e-9 * (1 + Math.abs(hand(check[0], check[1])))) throw new Error(`bench: mathjs and compiled ${name} disagree`);
-    const ours = opsPerMs((k) => (sink.value += surface.value(pts[k & (POINTS - 1)])));
+    const ours = opsPerMs((k) => surface.value(pts[k & (POINTS - 1)]));
     const theirs = opsPerMs((k) => {
       const p = pts[k & (POINTS - 1)];
       scope.x = p[0];
       scope.y = p[1];
-      sink.value += code.evaluate(scope);
+      return code.evaluate(scope) as number;
     });
     const handwritten = opsPerMs((k) => {
       const p = pts[k & (POINTS - 1)];
-      sink.value += hand(p[0], p[1]);
+      return hand(p[0], p[1]);
     });
     return { name, compiled: ours, mathjs: theirs, handwritten, ratio: ours / theirs, handwrittenRatio: handwritten / theirs };
   });
