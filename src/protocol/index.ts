@@ -1,1 +1,1 @@
-export type { FromWorker, Pace, RunControl, RunOutcome, RunSpec, ToWorker } from './messages';
+export type { FromPoolMember, FromWorker, Pace, RowRange, RunControl, RunOutcome, RunSpec, ToPoolMember, ToWorker } from './messages';

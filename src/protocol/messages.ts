@@ -23,6 +23,12 @@ export type Pace = number | 'max';
 
 export type RunControl = 'pause' | 'resume' | 'step' | 'cancel';
 
+/**
+ * Rows j0 <= j < j1 of a grid: one pool member's share of a pooled grid request (see src/worker/pool.ts).
+ * A band's values are row-major nx (j1 - j0) numbers, row j0 first.
+ */
+export type RowRange = [number, number];
+
 export type ToWorker =
   | { type: 'run/start'; runId: string; spec: RunSpec; paused?: boolean }
   | { type: 'run/control'; runId: string; action: RunControl }
@@ -45,5 +51,23 @@ export type FromWorker =
       stage: 'coarse' | 'final';
     }
   | { type: 'grid/error'; requestId: string; message: string };
+
+/**
+ * Pooled grid sampling (src/worker/pool.ts): the page's pool sends each member worker bands of one grid
+ * request. Kept as unions of their own so the engine link's messages above are unchanged; the same
+ * worker entry (src/worker/engine.worker.ts) answers both.
+ */
+export type ToPoolMember =
+  /** Sample one band of a grid; a member queues bands and works through them in order. */
+  | { type: 'band/sample'; requestId: string; surface: SurfaceSpec; grid: GridRequest; rows: RowRange }
+  /** Drop every queued or unfinished band of this request. */
+  | { type: 'band/cancel'; requestId: string };
+
+export type FromPoolMember =
+  /** Rows of the band finished so far (0 to j1 - j0), sent between time slices of a long band. */
+  | { type: 'band/progress'; requestId: string; rows: RowRange; rowsDone: number }
+  /** The band's values (transferred) with their finite min and max (NaN when none is finite). */
+  | { type: 'band/result'; requestId: string; rows: RowRange; values: Float64Array; min: number; max: number }
+  | { type: 'band/error'; requestId: string; rows: RowRange; message: string };
 
 export type { RunOutcome };

@@ -1,9 +1,14 @@
 /// <reference lib="webworker" />
-// Worker entry: a thin shell around the message switch.
-import type { FromWorker, ToWorker } from '../protocol';
+// Worker entry: a thin shell around the message switches. The same entry serves the page's engine link
+// (runs, single-worker grids) and the grid pool's members (bands).
+import type { FromPoolMember, FromWorker, ToPoolMember, ToWorker } from '../protocol';
+import { createBandHandler, isPoolMessage } from './bands';
 import { createHandler } from './handler';
 import { workerTiming } from './scheduler';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
-const handle = createHandler((msg: FromWorker, transfer?: Transferable[]) => scope.postMessage(msg, transfer ?? []), workerTiming());
-scope.onmessage = (e: MessageEvent<ToWorker>) => handle(e.data);
+const post = (msg: FromWorker | FromPoolMember, transfer?: Transferable[]) => scope.postMessage(msg, transfer ?? []);
+const timing = workerTiming();
+const handle = createHandler(post, timing);
+const handleBand = createBandHandler(post, timing);
+scope.onmessage = (e: MessageEvent<ToWorker | ToPoolMember>) => (isPoolMessage(e.data) ? handleBand(e.data) : handle(e.data));

@@ -47,6 +47,15 @@ export function sampleGrid(
   j0 = 0,
   j1 = req.ny,
 ): Float64Array {
+  return sampleGridRows(surface, req, out, j0, j1, 0);
+}
+
+/**
+ * Like `sampleGrid`, for a buffer that holds only the rows from `firstRow` on: row j goes to
+ * out[(j - firstRow) nx + i]. A worker sampling one band of rows [j0, j1) passes firstRow = j0 and a
+ * buffer of nx (j1 - j0) values; the numbers are bit-identical to those of one whole-grid call.
+ */
+export function sampleGridRows(surface: Surface, req: GridRequest, out: Float64Array, j0: number, j1: number, firstRow: number): Float64Array {
   const { nx, plane } = req;
   const n = surface.dimension;
   const p = new Float64Array(n);
@@ -54,7 +63,7 @@ export function sampleGrid(
   const axis = unitAxis(plane.u);
   for (let j = j0; j < j1; j++) {
     const b = gridB(req, j);
-    const row = j * nx;
+    const row = (j - firstRow) * nx;
     if (axis >= 0) {
       // Axis-aligned a direction: only one coordinate changes along a row.
       planePoint(plane, 0, b, p);

@@ -1,5 +1,5 @@
 export { axisPlane, distanceToPlane, planePoint, projectToPlane, type SlicePlane } from './plane';
-export { finiteRange, gridA, gridB, MAX_GRID_SIDE, sampleGrid, validateGridRequest, type GridRequest } from './grid';
+export { finiteRange, gridA, gridB, MAX_GRID_SIDE, sampleGrid, sampleGridRows, validateGridRequest, type GridRequest } from './grid';
 export { validateGroups, wholeVectorGroup, type ParameterGroup } from './groups';
 export { blockNorm, randomPlane, type RandomPlaneOptions } from './random';
 export { pcaPlane, type PcaPlane, type PcaPlaneOptions } from './pca';

@@ -1,0 +1,296 @@
+import { validateGridRequest, type GridRequest } from '../engine';
+import type { SurfaceSpec } from '../problems';
+import type { FromPoolMember, FromWorker, RowRange, ToPoolMember } from '../protocol';
+import { COARSE_SIDE } from './grids';
+
+/**
+ * The least a pool needs of a worker, so the same pool code drives Web Workers in the page
+ * (`webWorkerLike`) and Node worker_threads in the benchmark. Members run the normal worker handler
+ * (src/worker/handler.ts), which answers 'band/sample' and 'band/cancel'.
+ */
+export interface WorkerLike {
+  postMessage(msg: ToPoolMember): void;
+  /**
+   * Registers the two listeners: messages from the worker (the pool reads only band replies, so a
+   * member may also be running trajectories), and failures of the worker itself.
+   */
+  listen(onMessage: (msg: FromPoolMember | FromWorker) => void, onFailure: (message: string) => void): void;
+  terminate(): void;
+}
+
+export interface GridPoolResult {
+  requestId: string;
+  grid: GridRequest;
+  /** nx ny values, row-major, as `sampleGrid` lays them out. */
+  values: Float64Array;
+  /** Finite min and max (NaN when no value is finite). */
+  min: number;
+  max: number;
+}
+
+export interface GridPoolRequestOptions {
+  /**
+   * Receives a quick COARSE_SIDE x COARSE_SIDE preview of a large grid (over 4 COARSE_SIDE^2 cells)
+   * before the full result, as the single-worker 'grid/sample' with coarseFirst does.
+   */
+  onCoarse?: (preview: GridPoolResult) => void;
+}
+
+/** Why a request's promise was rejected without an error of its own; callers normally ignore it. */
+export class GridRequestCancelled extends Error {
+  constructor(
+    readonly requestId: string,
+    readonly reason: 'superseded' | 'cancelled' | 'disposed',
+  ) {
+    super(`grid request ${requestId} was ${reason}`);
+    this.name = 'GridRequestCancelled';
+  }
+}
+
+/** Default size cap: beyond this, message and start-up costs outweigh more parallel rows for our grids. */
+export const MAX_DEFAULT_POOL_SIZE = 8;
+/** Bands per member: more bands than members balance uneven rows and a shared CPU. */
+export const BANDS_PER_MEMBER = 4;
+
+/** navigator.hardwareConcurrency clamped to [1, MAX_DEFAULT_POOL_SIZE] (1 where it is unknown). */
+export function defaultPoolSize(hardwareConcurrency = typeof navigator !== 'undefined' ? navigator.hardwareConcurrency : undefined): number {
+  const n = Math.floor(Number(hardwareConcurrency));
+  return Number.isFinite(n) ? Math.min(MAX_DEFAULT_POOL_SIZE, Math.max(1, n)) : 1;
+}
+
+interface Band {
+  rows: RowRange;
+  coarse: boolean;
+}
+
+interface Member {
+  worker: WorkerLike;
+  alive: boolean;
+  /** The band this member is working on for the current request, or null when idle. */
+  band: Band | null;
+  /** Rows of that band finished, as last reported. */
+  rowsDone: number;
+}
+
+interface Job {
+  requestId: string;
+  coarseId: string;
+  spec: SurfaceSpec;
+  grid: GridRequest;
+  coarseGrid: GridRequest | null;
+  values: Float64Array;
+  todo: Band[];
+  rowsDone: number;
+  min: number;
+  max: number;
+  reported: number;
+  onProgress?: (fraction: number) => void;
+  onCoarse?: (preview: GridPoolResult) => void;
+  resolve: (r: GridPoolResult) => void;
+  reject: (e: Error) => void;
+}
+
+/**
+ * Samples one grid at a time across several workers. A request is split into bands of whole rows
+ * (about BANDS_PER_MEMBER per member), handed out one band per idle member, so faster or less loaded
+ * members take more; each band's values are copied into place, so the result is exactly what one
+ * `sampleGrid` call gives. A new request supersedes the one in progress: its bands are cancelled in the
+ * workers and any of its late messages are dropped by request id. The first band error rejects the
+ * request (once) and cancels the rest. A member whose worker fails is retired and its band handed to
+ * another; when none is left, the request fails.
+ */
+export class GridPool {
+  private readonly members: Member[];
+  private job: Job | null = null;
+  private disposed = false;
+
+  constructor(factory: (index: number) => WorkerLike, size = defaultPoolSize()) {
+    if (!Number.isInteger(size) || size < 1) throw new Error(`grid pool: size must be a whole number of at least 1, got ${size}`);
+    this.members = Array.from({ length: size }, (_, index) => {
+      const member: Member = { worker: factory(index), alive: true, band: null, rowsDone: 0 };
+      member.worker.listen(
+        (msg) => this.onMessage(member, msg),
+        (message) => this.onFailure(member, message),
+      );
+      return member;
+    });
+  }
+
+  get size(): number {
+    return this.members.length;
+  }
+
+  /** Members whose worker has not failed. */
+  get aliveCount(): number {
+    return this.members.filter((m) => m.alive).length;
+  }
+
+  /**
+   * Samples `grid` of the surface `spec` names. Resolves with the whole grid; rejects with the first
+   * error a band reports, or with GridRequestCancelled when superseded, cancelled or disposed.
+   * `onProgress` gets the finished share of rows, non-decreasing, ending at exactly 1.
+   */
+  request(
+    requestId: string,
+    spec: SurfaceSpec,
+    grid: GridRequest,
+    onProgress?: (fraction: number) => void,
+    options: GridPoolRequestOptions = {},
+  ): Promise<GridPoolResult> {
+    if (this.job) this.abort(this.job, 'superseded');
+    if (this.disposed) return Promise.reject(new GridRequestCancelled(requestId, 'disposed'));
+    try {
+      // Shape only: the dimension check against the surface happens in the workers, which build it.
+      validateGridRequest(grid, grid.plane.origin.length);
+    } catch (e) {
+      return Promise.reject(e);
+    }
+    if (this.aliveCount === 0) return Promise.reject(new Error('grid pool: every worker has failed'));
+    const wantsCoarse = options.onCoarse !== undefined && grid.nx * grid.ny > 4 * COARSE_SIDE * COARSE_SIDE;
+    const todo: Band[] = wantsCoarse ? [{ rows: [0, COARSE_SIDE], coarse: true }] : [];
+    const bandRows = Math.max(1, Math.ceil(grid.ny / (this.members.length * BANDS_PER_MEMBER)));
+    for (let j = 0; j < grid.ny; j += bandRows) todo.push({ rows: [j, Math.min(grid.ny, j + bandRows)], coarse: false });
+    return new Promise<GridPoolResult>((resolve, reject) => {
+      this.job = {
+        requestId,
+        coarseId: `${requestId}#coarse`,
+        spec,
+        grid,
+        coarseGrid: wantsCoarse ? { ...grid, nx: COARSE_SIDE, ny: COARSE_SIDE } : null,
+        values: new Float64Array(grid.nx * grid.ny),
+        todo,
+        rowsDone: 0,
+        min: Infinity,
+        max: -Infinity,
+        reported: 0,
+        onProgress,
+        onCoarse: options.onCoarse,
+        resolve,
+        reject,
+      };
+      this.dispatch(this.job);
+    });
+  }
+
+  cancel(requestId: string): void {
+    if (this.job?.requestId === requestId) this.abort(this.job, 'cancelled');
+  }
+
+  /** Cancels the request in progress and terminates every worker. */
+  dispose(): void {
+    if (this.job) this.abort(this.job, 'disposed');
+    this.disposed = true;
+    for (const m of this.members) {
+      m.alive = false;
+      m.worker.terminate();
+    }
+  }
+
+  private dispatch(job: Job): void {
+    for (const m of this.members) {
+      if (!m.alive || m.band || job.todo.length === 0) continue;
+      const band = job.todo.shift()!;
+      m.band = band;
+      m.rowsDone = 0;
+      m.worker.postMessage({
+        type: 'band/sample',
+        requestId: band.coarse ? job.coarseId : job.requestId,
+        surface: job.spec,
+        grid: band.coarse ? job.coarseGrid! : job.grid,
+        rows: band.rows,
+      });
+    }
+  }
+
+  private onMessage(member: Member, msg: FromPoolMember | FromWorker): void {
+    const job = this.job;
+    if (!job || !member.band || !(msg.type === 'band/progress' || msg.type === 'band/result' || msg.type === 'band/error')) return;
+    const band = member.band;
+    if (msg.requestId !== (band.coarse ? job.coarseId : job.requestId)) return; // a late message of a superseded request
+    switch (msg.type) {
+      case 'band/progress':
+        if (!band.coarse) {
+          member.rowsDone = msg.rowsDone;
+          this.report(job);
+        }
+        return;
+      case 'band/error':
+        return this.fail(job, msg.message);
+      case 'band/result':
+        member.band = null;
+        member.rowsDone = 0;
+        if (band.coarse) job.onCoarse?.({ requestId: job.requestId, grid: job.coarseGrid!, values: msg.values, min: msg.min, max: msg.max });
+        else this.store(job, msg.rows, msg.values, msg.min, msg.max);
+        if (this.job !== job) return; // the preview callback may have started a new request
+        if (job.rowsDone === job.grid.ny) this.finish(job);
+        else {
+          this.report(job);
+          this.dispatch(job);
+        }
+    }
+  }
+
+  private store(job: Job, rows: RowRange, values: Float64Array, min: number, max: number): void {
+    job.values.set(values, rows[0] * job.grid.nx);
+    job.rowsDone += rows[1] - rows[0];
+    if (min < job.min) job.min = min;
+    if (max > job.max) job.max = max;
+  }
+
+  private report(job: Job): void {
+    let rows = job.rowsDone;
+    for (const m of this.members) if (m.band && !m.band.coarse) rows += m.rowsDone;
+    const fraction = Math.min(1, rows / job.grid.ny);
+    if (fraction > job.reported) {
+      job.reported = fraction;
+      job.onProgress?.(fraction);
+    }
+  }
+
+  private finish(job: Job): void {
+    this.release(job); // a preview still in flight is no longer wanted
+    this.job = null;
+    if (job.reported < 1) job.onProgress?.(1);
+    const finite = job.min <= job.max;
+    job.resolve({ requestId: job.requestId, grid: job.grid, values: job.values, min: finite ? job.min : Number.NaN, max: finite ? job.max : Number.NaN });
+  }
+
+  private fail(job: Job, message: string): void {
+    this.release(job);
+    this.job = null;
+    job.reject(new Error(message));
+  }
+
+  private abort(job: Job, reason: GridRequestCancelled['reason']): void {
+    this.release(job);
+    this.job = null;
+    job.reject(new GridRequestCancelled(job.requestId, reason));
+  }
+
+  /** Tells members still holding this job's bands to drop them, and marks them idle. */
+  private release(job: Job): void {
+    for (const m of this.members) {
+      if (!m.band) continue;
+      if (m.alive) m.worker.postMessage({ type: 'band/cancel', requestId: m.band.coarse ? job.coarseId : job.requestId });
+      m.band = null;
+      m.rowsDone = 0;
+    }
+  }
+
+  private onFailure(member: Member, message: string): void {
+    if (!member.alive) return;
+    member.alive = false;
+    const job = this.job;
+    if (!job) return;
+    if (member.band) job.todo.unshift(member.band);
+    member.band = null;
+    member.rowsDone = 0;
+    if (this.aliveCount === 0) this.fail(job, `grid pool: every worker has failed (last: ${message})`);
+    else this.dispatch(job);
+  }
+}
+
+/** A pool of `size` workers made by `factory` (default size: defaultPoolSize()). */
+export function createGridPool(factory: (index: number) => WorkerLike, size = defaultPoolSize()): GridPool {
+  return new GridPool(factory, size);
+}

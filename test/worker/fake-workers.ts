@@ -1,0 +1,71 @@
+import type { FromPoolMember, FromWorker, ToPoolMember } from '../../src/protocol';
+import { createBandHandler } from '../../src/worker/bands';
+import type { WorkerLike } from '../../src/worker/pool';
+import type { Timing } from '../../src/worker/scheduler';
+
+/**
+ * In-process stand-ins for pool members: each runs the real band handler (src/worker/bands.ts), and
+ * every message and every scheduled slice is a task in one FIFO queue, so deliveries are asynchronous
+ * and interleave as they would between real threads. Each member's clock ticks `msPerRead` on every
+ * read, so a slice (SLICE_MS of work) ends after a few rows and progress messages appear.
+ */
+export function fakeWorld(msPerRead = 4) {
+  const tasks: (() => void)[] = [];
+  const log: { member: number; direction: 'in' | 'out'; msg: ToPoolMember | FromPoolMember }[] = [];
+  const failing = new Set<number>();
+  const failures: ((message: string) => void)[] = [];
+
+  function factory(index: number): WorkerLike {
+    let clock = 0;
+    const timing: Timing = { now: () => (clock += msPerRead), later: (fn) => tasks.push(fn) };
+    let toPage: (msg: FromPoolMember | FromWorker) => void = () => {};
+    let terminated = false;
+    const handle = createBandHandler((msg) => {
+      if (terminated) return;
+      const copy = structuredClone(msg);
+      log.push({ member: index, direction: 'out', msg: copy });
+      tasks.push(() => toPage(copy));
+    }, timing);
+    return {
+      postMessage(msg) {
+        const copy = structuredClone(msg);
+        log.push({ member: index, direction: 'in', msg: copy });
+        tasks.push(() => {
+          if (terminated) return;
+          if (failing.has(index) && copy.type === 'band/sample') {
+            terminated = true;
+            failures[index]?.('simulated crash');
+            return;
+          }
+          handle(copy);
+        });
+      },
+      listen(onMessage, onFailure) {
+        toPage = onMessage;
+        failures[index] = onFailure;
+      },
+      terminate() {
+        terminated = true;
+      },
+    };
+  }
+
+  return {
+    factory,
+    log,
+    /** Members that crash on their next band. */
+    failing,
+    /** Runs queued tasks (messages and slices) until none is left or `limit` have run; returns how many ran. */
+    run(limit = 1_000_000): number {
+      let k = 0;
+      for (; k < limit && tasks.length; k++) tasks.shift()!();
+      return k;
+    },
+    get idle(): boolean {
+      return tasks.length === 0;
+    },
+  };
+}
+
+/** Lets settled promises run their callbacks. */
+export const flush = () => new Promise<void>((r) => setTimeout(r, 0));
