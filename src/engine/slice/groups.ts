@@ -1,17 +1,12 @@
-/**
- * Parameter groups: how a model's flat parameter vector splits into filters, for filter-wise
- * normalisation of slice directions (Li et al., NeurIPS 2018).
- *
- * A 'weights' group is one filter: for a fully connected layer, the weights feeding one output unit;
- * for a convolution, the weights producing one output channel. A 'bias' group holds bias (or
- * normalisation-layer) parameters, which the paper's experiments treat separately.
+import type { ParameterGroup } from '../surface';
+
+/*
+ * Parameter groups (ParameterGroup in ../surface.ts) say how a model's flat parameter vector splits
+ * into filters, for filter-wise normalisation of slice directions (Li et al., NeurIPS 2018): a
+ * 'weights' group is one filter (for a fully connected layer, the weights feeding one output unit;
+ * for a convolution, the weights producing one output channel); a 'bias' group holds bias or offset
+ * parameters, which the paper's experiments treat separately.
  */
-export interface ParameterGroup {
-  name: string;
-  /** Positions in the flat parameter vector, each in [0, n). */
-  indices: number[];
-  kind: 'weights' | 'bias';
-}
 
 /**
  * Checks that groups are disjoint and lie inside a vector of length n; throws a message naming the

@@ -1,5 +1,6 @@
 import { createRng, nextGaussian } from '../rng';
-import { validateGroups, wholeVectorGroup, type ParameterGroup } from './groups';
+import type { ParameterGroup } from '../surface';
+import { validateGroups, wholeVectorGroup } from './groups';
 import type { SlicePlane } from './plane';
 
 /**
