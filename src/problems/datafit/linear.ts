@@ -1,0 +1,95 @@
+import type { Design } from './design';
+import { affineAt, affineFromOriginal, affineGroups, affineNames, affineToOriginal } from './linear-layout';
+import { penaltyMask, RowLossSurface } from './row-loss';
+import type { RegressionLoss } from './spec';
+
+/**
+ * Linear regression with intercept: f_i = b + sum_j w_j x_ij, residual r_i = f_i - y_i, per-row loss
+ * l_i = r_i^2; the loss is their sum (RSS) or mean (MSE), plus lambda/2 |w|^2 on the weights (not the
+ * intercept). Exact derivatives, with x~_i = (1, x_i): gradient 2 scale sum_i r_i x~_i, Hessian
+ * 2 scale sum_i x~_i x~_i^T (constant: the surface is a quadratic bowl).
+ */
+export class LinearRegressionSurface extends RowLossSurface {
+  readonly model = 'linear' as const;
+  readonly lossName: string;
+
+  constructor(
+    design: Design,
+    readonly loss: RegressionLoss,
+    l2: number,
+  ) {
+    super(design, affineNames(design.inputs), affineGroups(design.p), loss === 'rss' ? 1 : 1 / design.rows, l2, penaltyMask(design.p + 1, [0]));
+    this.lossName = loss === 'rss' ? 'residual sum of squares' : 'mean squared error';
+  }
+
+  protected sumValue(w: Float64Array, rows: Int32Array | null, count: number): number {
+    const { x, y, p } = this.design;
+    const b = w[0];
+    let s = 0;
+    if (p === 1) {
+      const w1 = w[1];
+      for (let k = 0; k < count; k++) {
+        const i = rows === null ? k : rows[k];
+        const r = b + w1 * x[i] - y[i];
+        s += r * r;
+      }
+      return s;
+    }
+    for (let k = 0; k < count; k++) {
+      const i = rows === null ? k : rows[k];
+      const o = i * p;
+      let f = b;
+      for (let j = 0; j < p; j++) f += w[j + 1] * x[o + j];
+      const r = f - y[i];
+      s += r * r;
+    }
+    return s;
+  }
+
+  protected sumGradient(w: Float64Array, g: Float64Array, rows: Int32Array | null, count: number): number {
+    const { x, y, p } = this.design;
+    let s = 0;
+    for (let k = 0; k < count; k++) {
+      const i = rows === null ? k : rows[k];
+      const o = i * p;
+      let f = w[0];
+      for (let j = 0; j < p; j++) f += w[j + 1] * x[o + j];
+      const r = f - y[i];
+      s += r * r;
+      const r2 = 2 * r;
+      g[0] += r2;
+      for (let j = 0; j < p; j++) g[j + 1] += r2 * x[o + j];
+    }
+    return s;
+  }
+
+  protected sumHessian(w: Float64Array, g: Float64Array, h: Float64Array, rows: Int32Array | null, count: number): number {
+    const s = this.sumGradient(w, g, rows, count);
+    const { x, p } = this.design;
+    const n = p + 1;
+    for (let k = 0; k < count; k++) {
+      const i = rows === null ? k : rows[k];
+      const o = i * p;
+      h[0] += 2;
+      for (let a = 0; a < p; a++) {
+        const xa = x[o + a];
+        h[a + 1] += 2 * xa;
+        for (let c = a; c < p; c++) h[(a + 1) * n + c + 1] += 2 * xa * x[o + c];
+      }
+    }
+    for (let a = 0; a < n; a++) for (let c = 0; c < a; c++) h[a * n + c] = h[c * n + a];
+    return s;
+  }
+
+  toOriginalUnits(params: ArrayLike<number>): number[] {
+    return affineToOriginal(this.design, params);
+  }
+
+  fromOriginalUnits(params: ArrayLike<number>): number[] {
+    return affineFromOriginal(this.design, params);
+  }
+
+  predict(params: ArrayLike<number>, inputRow: ArrayLike<number>): number {
+    return affineAt(this.design, params, 1, 0, inputRow);
+  }
+}

@@ -1,0 +1,83 @@
+import type { Design } from './design';
+import { affineAt, affineFromOriginal, affineGroups, affineNames, affineToOriginal } from './linear-layout';
+import { penaltyMask, RowLossSurface } from './row-loss';
+import { sigmoid, softplus } from './stable';
+
+/**
+ * Logistic regression: logit z_i = b + w . x_i, P(y_i = 1) = sigmoid(z_i); per-row loss the binary
+ * cross-entropy l_i = softplus(z_i) - y_i z_i (stable form, stable.ts), averaged over rows, plus
+ * lambda/2 |w|^2 on the weights. Gradient (1/N) sum_i (sigmoid(z_i) - y_i) x~_i, Hessian
+ * (1/N) sum_i sigmoid(z_i) (1 - sigmoid(z_i)) x~_i x~_i^T with x~_i = (1, x_i). Targets are 0 or 1.
+ * On separable data the loss has no minimiser (it falls towards 0 as |w| grows); an L2 penalty gives
+ * it one.
+ */
+export class LogisticRegressionSurface extends RowLossSurface {
+  readonly model = 'logistic' as const;
+  readonly lossName = 'mean binary cross-entropy';
+
+  constructor(design: Design, l2: number) {
+    super(design, affineNames(design.inputs), affineGroups(design.p), 1 / design.rows, l2, penaltyMask(design.p + 1, [0]));
+  }
+
+  protected sumValue(w: Float64Array, rows: Int32Array | null, count: number): number {
+    const { x, y, p } = this.design;
+    let s = 0;
+    for (let k = 0; k < count; k++) {
+      const i = rows === null ? k : rows[k];
+      const o = i * p;
+      let z = w[0];
+      for (let j = 0; j < p; j++) z += w[j + 1] * x[o + j];
+      s += softplus(z) - y[i] * z;
+    }
+    return s;
+  }
+
+  protected sumGradient(w: Float64Array, g: Float64Array, rows: Int32Array | null, count: number): number {
+    return this.accumulate(w, g, null, rows, count);
+  }
+
+  protected sumHessian(w: Float64Array, g: Float64Array, h: Float64Array, rows: Int32Array | null, count: number): number {
+    return this.accumulate(w, g, h, rows, count);
+  }
+
+  private accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number {
+    const { x, y, p } = this.design;
+    const n = p + 1;
+    let s = 0;
+    for (let k = 0; k < count; k++) {
+      const i = rows === null ? k : rows[k];
+      const o = i * p;
+      let z = w[0];
+      for (let j = 0; j < p; j++) z += w[j + 1] * x[o + j];
+      s += softplus(z) - y[i] * z;
+      const q = sigmoid(z);
+      const d = q - y[i];
+      g[0] += d;
+      for (let j = 0; j < p; j++) g[j + 1] += d * x[o + j];
+      if (h) {
+        const c = q * (1 - q);
+        h[0] += c;
+        for (let a = 0; a < p; a++) {
+          const cx = c * x[o + a];
+          h[a + 1] += cx;
+          for (let b = a; b < p; b++) h[(a + 1) * n + b + 1] += cx * x[o + b];
+        }
+      }
+    }
+    if (h) for (let a = 0; a < n; a++) for (let b = 0; b < a; b++) h[a * n + b] = h[b * n + a];
+    return s;
+  }
+
+  toOriginalUnits(params: ArrayLike<number>): number[] {
+    return affineToOriginal(this.design, params);
+  }
+
+  fromOriginalUnits(params: ArrayLike<number>): number[] {
+    return affineFromOriginal(this.design, params);
+  }
+
+  /** P(y = 1) for one row of raw inputs. */
+  predict(params: ArrayLike<number>, inputRow: ArrayLike<number>): number {
+    return sigmoid(affineAt(this.design, params, 1, 0, inputRow));
+  }
+}
