@@ -8,7 +8,9 @@
  */
 import type { Surface } from '../engine';
 import type { KnownPoint } from './catalogue';
+import type { DataFitSpec } from './datafit';
 import { catalogueKind } from './kinds/catalogue-kind';
+import { dataFitKind } from './kinds/datafit-kind';
 import { formulaKind } from './kinds/formula-kind';
 
 export interface CatalogueSpec {
@@ -29,7 +31,10 @@ export interface FormulaSpec {
   constants?: Record<string, number>;
 }
 
-export type SurfaceSpec = CatalogueSpec | FormulaSpec;
+/** The loss of a model fitted to a dataset (see datafit/spec.ts); re-exported here with the other kinds. */
+export type { DataFitSpec } from './datafit';
+
+export type SurfaceSpec = CatalogueSpec | FormulaSpec | DataFitSpec;
 
 export type SurfaceSpecKind = SurfaceSpec['kind'];
 
@@ -56,6 +61,7 @@ export interface SurfaceKind<S extends SurfaceSpec> {
 const KINDS: { [K in SurfaceSpecKind]: SurfaceKind<Extract<SurfaceSpec, { kind: K }>> } = {
   catalogue: catalogueKind,
   formula: formulaKind,
+  datafit: dataFitKind,
 };
 
 function kindOf(spec: unknown): SurfaceKind<SurfaceSpec> {
