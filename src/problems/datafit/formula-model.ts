@@ -34,7 +34,7 @@ export class FormulaModelSurface extends RowLossSurface {
       design,
       names,
       names.map((name, j) => ({ name, indices: [j], kind: 'weights' as const })),
-      loss === 'rss' ? 1 : 1 / design.rows,
+      loss === 'rss' ? 'sum' : 'mean',
       l2,
       penaltyMask(names.length, []),
     );

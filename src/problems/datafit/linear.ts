@@ -18,7 +18,7 @@ export class LinearRegressionSurface extends RowLossSurface {
     readonly loss: RegressionLoss,
     l2: number,
   ) {
-    super(design, affineNames(design.inputs), affineGroups(design.p), loss === 'rss' ? 1 : 1 / design.rows, l2, penaltyMask(design.p + 1, [0]));
+    super(design, affineNames(design.inputs), affineGroups(design.p), loss === 'rss' ? 'sum' : 'mean', l2, penaltyMask(design.p + 1, [0]));
     this.lossName = loss === 'rss' ? 'residual sum of squares' : 'mean squared error';
   }
 

@@ -16,7 +16,7 @@ export class LogisticRegressionSurface extends RowLossSurface {
   readonly lossName = 'mean binary cross-entropy';
 
   constructor(design: Design, l2: number) {
-    super(design, affineNames(design.inputs), affineGroups(design.p), 1 / design.rows, l2, penaltyMask(design.p + 1, [0]));
+    super(design, affineNames(design.inputs), affineGroups(design.p), 'mean', l2, penaltyMask(design.p + 1, [0]));
   }
 
   protected sumValue(w: Float64Array, rows: Int32Array | null, count: number): number {

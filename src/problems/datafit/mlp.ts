@@ -55,7 +55,7 @@ export class MlpSurface extends RowLossSurface {
     const sizes = shape.sizes;
     const L = sizes.length - 1;
     const { names, groups, weightOffsets, biasOffsets, biases } = layout(design.inputs, sizes, classLabels);
-    super(design, names, groups, 1 / design.rows, l2, penaltyMask(names.length, biases));
+    super(design, names, groups, 'mean', l2, penaltyMask(names.length, biases));
     this.sizes = Object.freeze([...sizes]);
     this.activation = shape.activation;
     this.head = shape.head;

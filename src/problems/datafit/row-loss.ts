@@ -25,19 +25,22 @@ export abstract class RowLossSurface implements DataFitSurface {
   readonly standardised: boolean;
   readonly inputs: readonly string[];
   readonly target: string;
+  /** 1 for a sum, 1 / N for a mean. */
+  protected readonly scale: number;
   private readonly w: Float64Array;
 
   constructor(
     protected readonly design: Design,
     readonly variables: readonly string[],
     readonly parameterGroups: readonly ParameterGroup[],
-    /** 1 for a sum over rows, 1 / N for a mean. */
-    protected readonly scale: number,
+    /** Whether the data term is a sum over rows (scale 1) or a mean (scale 1/N). */
+    readonly normalisation: 'sum' | 'mean',
     protected readonly l2: number,
     /** 1 where a parameter is penalised. */
     protected readonly penalised: Uint8Array,
   ) {
     this.rows = design.rows;
+    this.scale = normalisation === 'mean' ? 1 / design.rows : 1;
     this.dimension = variables.length;
     this.standardised = design.standardised;
     this.inputs = design.inputs;
@@ -111,7 +114,8 @@ export abstract class RowLossSurface implements DataFitSurface {
       const i = rowIndices[k];
       if (!(i >= 0 && i < this.rows)) throw new RangeError(`data-fit surface: row index ${i} is outside 0..${this.rows - 1}`);
     }
-    return (this.scale * this.rows) / count;
+    // scale * N / count, written so that a batch of every row gets exactly the full loss's factor.
+    return this.normalisation === 'mean' ? 1 / count : this.rows / count;
   }
 
   /** Scales the raw sums by `factor` and adds the penalty's value, gradient and Hessian. */

@@ -38,7 +38,7 @@ export class SoftmaxRegressionSurface extends RowLossSurface {
       kind: 'weights',
     }));
     groups.push({ name: 'intercepts', indices: classLabels.map((_, c) => c * q), kind: 'bias' });
-    super(design, names, groups, 1 / design.rows, l2, penaltyMask(k * q, classLabels.map((_, c) => c * q)));
+    super(design, names, groups, 'mean', l2, penaltyMask(k * q, classLabels.map((_, c) => c * q)));
     this.classes = k;
     this.classLabels = Object.freeze([...classLabels]);
     this.z = new Float64Array(k);

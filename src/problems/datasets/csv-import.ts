@@ -31,7 +31,7 @@ export interface CsvImportOptions {
   columns?: string[];
   /** Columns holding class labels rather than numbers. */
   classColumns?: string[];
-  /** Field delimiter; default detected by papaparse. */
+  /** Field delimiter; default: papaparse's guess, which falls back to a comma when it cannot tell (pass ';' for semicolon files). */
   delimiter?: string;
   maxBytes?: number;
   maxRows?: number;
