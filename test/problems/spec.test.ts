@@ -50,8 +50,8 @@ describe('buildSurface', () => {
     ['null', null, "surface spec: expected an object with a 'kind', got null"],
     ['a string', 'rosenbrock', "surface spec: expected an object with a 'kind', got string"],
     ['an array', [], "surface spec: expected an object with a 'kind', got an array"],
-    ['an unknown kind', { kind: 'dataset', id: 'x' }, 'surface spec: unknown kind "dataset"; known kinds: catalogue, formula'],
-    ['no kind', { id: 'rosenbrock' }, 'surface spec: unknown kind undefined; known kinds: catalogue, formula'],
+    ['an unknown kind', { kind: 'dataset', id: 'x' }, 'surface spec: unknown kind "dataset"; known kinds: catalogue, formula, datafit'],
+    ['no kind', { id: 'rosenbrock' }, 'surface spec: unknown kind undefined; known kinds: catalogue, formula, datafit'],
     ['a catalogue spec without id', { kind: 'catalogue' }, 'surface spec (catalogue): id must be a string, got nothing'],
     ['an unknown id', { kind: 'catalogue', id: 'banana' }, `catalogue: no surface with id 'banana'; known ids: ${catalogueIds().join(', ')}`],
     ['an unknown constant', { kind: 'catalogue', id: 'beale', constants: { a: 1 } }, "catalogue beale: unknown constant 'a'; it has no constants"],
@@ -61,9 +61,26 @@ describe('buildSurface', () => {
     ['formula text a number', { kind: 'formula', text: 3 }, 'surface spec (formula): text must be a string, got number'],
     ['formula variables not names', { kind: 'formula', text: 'x', variables: 'x' }, 'surface spec (formula): variables must be an array of names'],
     ['an infinite formula constant', { kind: 'formula', text: 'k*x', constants: { k: null } }, 'surface spec (formula): constant k must be a finite number, got null'],
+    ['a datafit spec without a dataset', { kind: 'datafit', model: { kind: 'linear', inputs: ['x'], target: 'y' } }, "surface spec (datafit): dataset: expected an object with a 'kind', got nothing"],
+    ['a datafit spec without a model', { kind: 'datafit', dataset: { kind: 'iris' } }, "surface spec (datafit): model must be an object with a 'kind', got nothing"],
+    ['a datafit spec with an unknown column', { kind: 'datafit', dataset: { kind: 'iris' }, model: { kind: 'linear', inputs: ['petal'], target: 'sepal_length' } }, "dataset iris: no column 'petal' for the input; columns: sepal_length, sepal_width, petal_length, petal_width, species"],
+    ['a datafit spec with a negative l2', { kind: 'datafit', dataset: { kind: 'iris' }, model: { kind: 'softmax', inputs: ['petal_length'], target: 'species' }, l2: -1 }, 'surface spec (datafit): l2 must be a finite number >= 0, got -1'],
   ])('rejects %s with a clear message', (_, spec, message) => {
     expect(() => buildSurface(loose(spec))).toThrow(message);
     expect(() => describeSurface(loose(spec))).toThrow(message);
+  });
+});
+
+describe('buildSurface (datafit)', () => {
+  it('builds the loss of a model on a dataset, the same after a trip through JSON', () => {
+    const spec: SurfaceSpec = { kind: 'datafit', dataset: { kind: 'iris' }, model: { kind: 'softmax', inputs: ['petal_length', 'petal_width'], target: 'species' }, standardise: true };
+    const s = buildSurface(spec);
+    expect(s.dimension).toBe(9);
+    // At all-zero parameters every class has probability 1/3: the mean cross-entropy is log 3.
+    expect(s.value(new Array(9).fill(0))).toBeCloseTo(Math.log(3), 14);
+    const copy = JSON.parse(JSON.stringify(spec)) as SurfaceSpec;
+    const p = [0.1, -0.2, 0.3, 0.4, -0.5, 0.6, 0.7, 0.8, -0.9];
+    expect(buildSurface(copy).value(p)).toBe(s.value(p));
   });
 });
 
