@@ -6,7 +6,7 @@
  * drops any message whose id is no longer current, so work superseded by an edit can never be drawn.
  */
 import type { GridRequest, OptimizerSpec, RunOutcome, RunSettings, TrajectoryBatch } from '../engine';
-import type { SurfaceSpec } from '../problems';
+import type { CsvImport, SurfaceSpec } from '../problems';
 
 /** Everything needed to reproduce one run. */
 export interface RunSpec {
@@ -34,7 +34,19 @@ export type ToWorker =
   | { type: 'run/control'; runId: string; action: RunControl }
   | { type: 'run/pace'; pace: Pace }
   | { type: 'grid/sample'; requestId: string; surface: SurfaceSpec; grid: GridRequest; coarseFirst?: boolean }
-  | { type: 'grid/cancel'; requestId: string };
+  | { type: 'grid/cancel'; requestId: string }
+  /** Parse an imported CSV file's text into a dataset table (off the main thread, with progress). */
+  | { type: 'csv/parse'; requestId: string; text: string; options: CsvParseOptions }
+  /** The loss along the segment from -> to (Goodfellow, Vinyals & Saxe 2015), at `count` alphas in [lo, hi]. */
+  | { type: 'profile/sample'; requestId: string; surface: SurfaceSpec; from: number[]; to: number[]; alphas: { from: number; to: number; count: number } };
+
+/** What the page chooses when importing a CSV file (the rest of CsvImportOptions are the worker's). */
+export interface CsvParseOptions {
+  name: string;
+  dropBadRows: boolean;
+  delimiter?: string;
+  classColumns?: string[];
+}
 
 export type FromWorker =
   | { type: 'run/batch'; runId: string; batch: TrajectoryBatch; evaluations: number; paused: boolean }
@@ -50,7 +62,11 @@ export type FromWorker =
       /** 'coarse' results are a quick preview; 'final' is the requested resolution. */
       stage: 'coarse' | 'final';
     }
-  | { type: 'grid/error'; requestId: string; message: string };
+  | { type: 'grid/error'; requestId: string; message: string }
+  | { type: 'csv/progress'; requestId: string; fraction: number; rowsRead: number }
+  | { type: 'csv/result'; requestId: string; result: CsvImport }
+  | { type: 'profile/result'; requestId: string; alphas: Float64Array; values: Float64Array }
+  | { type: 'profile/error'; requestId: string; message: string };
 
 /**
  * Pooled grid sampling (src/worker/pool.ts): the page's pool sends each member worker bands of one grid

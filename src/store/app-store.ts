@@ -1,7 +1,7 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
-import { buildSurface, describeSurface, type SurfaceDescription, type SurfaceSpec } from '../problems';
-import type { FromWorker, Pace, RunControl, RunSpec } from '../protocol';
+import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
+import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
 import type { ViewBox } from '../ui/plot';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
@@ -48,6 +48,10 @@ export interface AppActions {
   /** Applies a new surface if it builds; otherwise records the error and leaves the workspace as it was. */
   setSurface(spec: SurfaceSpec): boolean;
   setConstant(name: string, value: number): void;
+  /** Parses an imported CSV file in the worker (progress as a fraction of the text and rows read). */
+  importCsv(text: string, options: CsvParseOptions, onProgress?: (fraction: number, rowsRead: number) => void): Promise<CsvImport>;
+  /** The loss along the segment from -> to, computed in the worker. */
+  sampleProfile(from: number[], to: number[], alphas?: { from: number; to: number; count: number }): Promise<{ alphas: Float64Array; values: Float64Array }>;
   /** Changes the slice; a new plane or new axes also reset the view (to `view` if given). */
   setSlice(slice: Partial<SliceSettings> & { view?: ViewBox }): void;
   setView(view: ViewBox): void;
@@ -137,25 +141,52 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
     link.send({ type: 'grid/sample', requestId, surface: s.surface, grid, coarseFirst: true });
   }
 
+  /** Replies to one-off requests (CSV parsing, profiles), by request id. */
+  const replies = new Map<string, (msg: FromWorker) => void>();
+
   function handle(msg: FromWorker): void {
-    if (msg.type === 'run/batch' || msg.type === 'run/error') return live.handle(msg);
+    switch (msg.type) {
+      case 'run/batch':
+      case 'run/error':
+        return live.handle(msg);
+      case 'grid/progress':
+      case 'grid/error':
+      case 'grid/result':
+        return handleGrid(msg);
+      default:
+        return replies.get(msg.requestId)?.(msg);
+    }
+  }
+
+  function handleGrid(msg: Extract<FromWorker, { type: 'grid/progress' | 'grid/error' | 'grid/result' }>): void {
     const g = get().grid;
     if (msg.requestId !== g.requestId) return; // superseded
-    if (msg.type === 'grid/progress') set({ grid: { ...g, progress: msg.rowsDone / msg.rows } });
-    else if (msg.type === 'grid/error') set({ grid: { ...g, phase: 'error', error: msg.message } });
-    else
-      set({
-        grid: {
-          ...g,
-          phase: msg.stage === 'final' ? 'ready' : 'computing',
-          request: msg.grid,
-          values: msg.values,
-          min: msg.min,
-          max: msg.max,
-          stage: msg.stage,
-          progress: msg.stage === 'final' ? 1 : g.progress,
-        },
+    if (msg.type === 'grid/progress') return set({ grid: { ...g, progress: msg.rowsDone / msg.rows } });
+    if (msg.type === 'grid/error') return set({ grid: { ...g, phase: 'error', error: msg.message } });
+    set({
+      grid: {
+        ...g,
+        phase: msg.stage === 'final' ? 'ready' : 'computing',
+        request: msg.grid,
+        values: msg.values,
+        min: msg.min,
+        max: msg.max,
+        stage: msg.stage,
+        progress: msg.stage === 'final' ? 1 : g.progress,
+      },
+    });
+  }
+
+  /** Sends a one-off request and resolves with its final reply; `onOther` sees the rest (progress). */
+  function ask<T extends FromWorker>(msg: ToWorker & { requestId: string }, isFinal: (m: FromWorker) => m is T, onOther?: (m: FromWorker) => void): Promise<T> {
+    return new Promise((resolve) => {
+      replies.set(msg.requestId, (reply) => {
+        if (!isFinal(reply)) return onOther?.(reply);
+        replies.delete(msg.requestId);
+        resolve(reply);
       });
+      link.send(msg);
+    });
   }
   link.listen(handle);
 
@@ -197,9 +228,25 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
       }
     },
     setConstant(name, value) {
-      const s = get();
-      if (!Number.isFinite(value)) return;
-      applySurface({ ...s.surface, constants: { ...(s.surface.constants ?? {}), [name]: value } } as SurfaceSpec, true);
+      const surface = get().surface;
+      if (!Number.isFinite(value) || surface.kind === 'datafit') return;
+      applySurface({ ...surface, constants: { ...(surface.constants ?? {}), [name]: value } }, true);
+    },
+    async importCsv(text, options, onProgress) {
+      const reply = await ask(
+        { type: 'csv/parse', requestId: freshId('t'), text, options },
+        (m): m is Extract<FromWorker, { type: 'csv/result' }> => m.type === 'csv/result',
+        (m) => m.type === 'csv/progress' && onProgress?.(m.fraction, m.rowsRead),
+      );
+      return reply.result;
+    },
+    async sampleProfile(from, to, alphas = { from: -0.5, to: 1.5, count: 101 }) {
+      const reply = await ask(
+        { type: 'profile/sample', requestId: freshId('p'), surface: get().surface, from, to, alphas },
+        (m): m is Extract<FromWorker, { type: 'profile/result' | 'profile/error' }> => m.type === 'profile/result' || m.type === 'profile/error',
+      );
+      if (reply.type === 'profile/error') throw new Error(reply.message);
+      return { alphas: reply.alphas, values: reply.values };
     },
     setSlice({ view: requestedView, ...patch }) {
       const s = get();

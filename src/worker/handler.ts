@@ -1,6 +1,8 @@
 import type { FromWorker, ToWorker } from '../protocol';
 import { GridSampler } from './grids';
+import { sampleProfile } from './profiles';
 import { RunPool } from './runs';
+import { parseCsvInWorker } from './tables';
 import type { Timing } from './scheduler';
 
 /** The worker's message switch, free of worker globals so tests can drive it directly. */
@@ -19,6 +21,10 @@ export function createHandler(post: (msg: FromWorker, transfer?: Transferable[])
         return grids.request(msg.requestId, msg.surface, msg.grid, msg.coarseFirst);
       case 'grid/cancel':
         return grids.cancel(msg.requestId);
+      case 'csv/parse':
+        return parseCsvInWorker(post, msg.requestId, msg.text, msg.options);
+      case 'profile/sample':
+        return sampleProfile(post, msg.requestId, msg.surface, msg.from, msg.to, msg.alphas);
     }
   };
 }

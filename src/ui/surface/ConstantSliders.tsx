@@ -13,6 +13,7 @@ interface SliderRange {
 export function ConstantSliders() {
   const actions = useActions();
   const surface = useApp((s) => s.surface);
+  if (surface.kind === 'datafit') return null;
   const ranges = sliderRanges(surface);
   if (!ranges.length) return null;
   const values = { ...(surface.kind === 'catalogue' ? catalogueEntry(surface.id).constants : {}), ...(surface.constants ?? {}) };
@@ -41,7 +42,7 @@ export function ConstantSliders() {
   );
 }
 
-function sliderRanges(surface: SurfaceSpec): SliderRange[] {
+function sliderRanges(surface: Exclude<SurfaceSpec, { kind: 'datafit' }>): SliderRange[] {
   if (surface.kind === 'catalogue') {
     return (catalogueEntry(surface.id).constantInfo ?? []).map((c) => ({ ...c, step: c.step ?? (c.max - c.min) / 100 }));
   }
