@@ -234,6 +234,7 @@ export class MlpSurface extends RowLossSurface {
   }
 
   protected sumValue(w: Float64Array, rows: Int32Array | null, count: number): number {
+    if (this.L === 2 && this.sizes[2] === 1) return this.sumValueOneHidden(w, rows, count);
     const y = this.design.y;
     let s = 0;
     for (let k = 0; k < count; k++) {
@@ -241,6 +242,38 @@ export class MlpSurface extends RowLossSurface {
       s += this.headValue(this.forward(w, i, null), y[i]);
     }
     return s;
+  }
+
+  /**
+   * The value-only loop for the common shape (one hidden layer, one output), written out: it reads the
+   * inputs straight from the design and folds the output unit into the hidden loop. Same arithmetic
+   * as forward() + headValue(), in the same order.
+   */
+  private sumValueOneHidden(w: Float64Array, rows: Int32Array | null, count: number): number {
+    const { x, y, p } = this.design;
+    const hidden = this.sizes[1];
+    const w1 = this.weightOffsets[1];
+    const b1 = this.biasOffsets[1];
+    const w2 = this.weightOffsets[2];
+    const b2 = this.biasOffsets[2];
+    const relu = this.activation === 'relu';
+    const regression = this.head === 'regression';
+    let total = 0;
+    for (let k = 0; k < count; k++) {
+      const i = rows === null ? k : rows[k];
+      const o = i * p;
+      let z = w[b2];
+      for (let u = 0, row = w1; u < hidden; u++, row += p) {
+        let s = w[b1 + u];
+        for (let j = 0; j < p; j++) s += w[row + j] * x[o + j];
+        z += w[w2 + u] * (relu ? (s > 0 ? s : 0) : Math.tanh(s));
+      }
+      if (regression) {
+        const r = z - y[i];
+        total += r * r;
+      } else total += softplus(z) - y[i] * z;
+    }
+    return total;
   }
 
   protected sumGradient(w: Float64Array, g: Float64Array, rows: Int32Array | null, count: number): number {
