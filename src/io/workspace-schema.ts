@@ -13,6 +13,8 @@ const constants = z.record(z.string(), finite).optional();
 const surfaceSpec = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('catalogue'), id: z.string().min(1), constants }),
   z.object({ kind: z.literal('formula'), text: z.string().min(1).max(5000), variables: z.array(z.string()).optional(), constants }),
+  // Data and model are checked in depth by the data-fit kind's own validation when the surface is built.
+  z.object({ kind: z.literal('datafit'), dataset: z.looseObject({ kind: z.string() }), model: z.looseObject({ kind: z.string() }), l2: finite.optional(), standardise: z.boolean().optional() }),
 ]);
 
 const schedule = z.looseObject({ kind: z.string() });
@@ -35,6 +37,7 @@ const runConfig = z.object({
     start: z.array(finite).min(1),
     seed: finite,
     gradientNoise: finite.optional(),
+    minibatch: z.object({ size: z.number().int().min(1) }).optional(),
     stop: z.object({
       maxSteps: z.number().int().min(1),
       lossChangeTolerance: finite.optional(),

@@ -96,7 +96,14 @@ export interface StoreOptions {
 }
 
 export function createAppStore({ link, requestFrame, initial }: StoreOptions): AppStore {
-  const start = initial ?? demoWorkspace();
+  let start = initial ?? demoWorkspace();
+  let startNotice: string | null = null;
+  try {
+    buildSurface(start.surface);
+  } catch (e) {
+    startNotice = `The saved surface could not be built (${e instanceof Error ? e.message : String(e)}); the demo was loaded instead.`;
+    start = demoWorkspace();
+  }
   let store!: StoreApi<AppState>;
   const live = new LiveRuns(link, requestFrame, (changed) => {
     store.setState((s) => {
@@ -361,8 +368,15 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
       set({ notice: null });
     },
     loadWorkspace(workspace) {
+      let info: SurfaceInfo;
+      try {
+        buildSurface(workspace.surface);
+        info = describeSurface(workspace.surface);
+      } catch (e) {
+        set({ notice: `The experiment's surface could not be built (${e instanceof Error ? e.message : String(e)}); nothing was changed.` });
+        return;
+      }
       for (const r of get().runs) live.forget(r.id);
-      const info = describeSurface(workspace.surface);
       set({ ...workspace, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null });
       link.send({ type: 'run/pace', pace: workspace.pace });
       updateReference();
@@ -375,7 +389,7 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
     ...start,
     surfaceInfo: describeSurface(start.surface),
     surfaceError: null,
-    notice: null,
+    notice: startNotice,
     grid: { requestId: null, phase: 'idle', progress: 0, request: null, values: null, min: Number.NaN, max: Number.NaN, stage: null, error: null },
     status: {},
     selectedRunId: null,

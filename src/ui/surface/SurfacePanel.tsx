@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
-import { CATALOGUE, catalogueEntry } from '../../problems';
+import { CATALOGUE, catalogueEntry, type SurfaceSpec } from '../../problems';
+import { DataFitEditor } from './datafit/DataFitEditor';
 import { useActions, useApp } from '../app-context';
 import { ConstantSliders } from './ConstantSliders';
 import { FormulaEditor } from './FormulaEditor';
@@ -10,7 +11,7 @@ export function SurfacePanel() {
   const actions = useActions();
   const surface = useApp((s) => s.surface);
   const surfaceError = useApp((s) => s.surfaceError);
-  const [mode, setMode] = useState<'catalogue' | 'formula'>(surface.kind === 'formula' ? 'formula' : 'catalogue');
+  const [mode, setMode] = useState<SurfaceSpec['kind']>(surface.kind);
   const id = useId();
   const entry = surface.kind === 'catalogue' ? catalogueEntry(surface.id) : null;
 
@@ -23,6 +24,9 @@ export function SurfacePanel() {
         </label>
         <label>
           <input type="radio" name={`${id}-mode`} checked={mode === 'formula'} onChange={() => setMode('formula')} /> Your formula
+        </label>
+        <label>
+          <input type="radio" name={`${id}-mode`} checked={mode === 'datafit'} onChange={() => setMode('datafit')} /> Model on data
         </label>
       </div>
       {mode === 'catalogue' ? (
@@ -44,8 +48,10 @@ export function SurfacePanel() {
             </details>
           )}
         </div>
-      ) : (
+      ) : mode === 'formula' ? (
         <FormulaEditor initial={surface.kind === 'formula' ? surface : null} />
+      ) : (
+        <DataFitEditor initial={surface.kind === 'datafit' ? surface : null} />
       )}
       {surfaceError && (
         <div className="field-error" role="alert">
