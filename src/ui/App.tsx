@@ -1,14 +1,18 @@
 import { LossChart } from './chart/LossChart';
+import { ProfileChart } from './chart/ProfileChart';
+import { DataView } from './data/DataView';
 import { ExportMenu } from './export/ExportMenu';
 import { RunList } from './runs/RunList';
 import { SurfacePanel } from './surface/SurfacePanel';
 import { RunTable } from './table/RunTable';
 import { useActions, useApp } from './app-context';
+import { PanelBoundary } from './PanelBoundary';
 import { ViewArea } from './view/ViewArea';
 
 export function App() {
   const label = useApp((s) => s.surfaceInfo.label);
   const notice = useApp((s) => s.notice);
+  const surface = useApp((s) => s.surface);
   const actions = useActions();
   return (
     <div className="app">
@@ -29,17 +33,43 @@ export function App() {
       )}
       <div className="app-body">
         <aside className="sidebar sidebar-left">
-          <SurfacePanel />
+          <PanelBoundary name="The surface panel">
+            <SurfacePanel />
+          </PanelBoundary>
         </aside>
         <main className="main-column">
-          <ViewArea />
+          {surface.kind === 'datafit' ? (
+            <div className="view-with-data">
+              <PanelBoundary name="The surface view">
+                <ViewArea />
+              </PanelBoundary>
+              <div className="data-column">
+                <PanelBoundary name="The data view">
+                  <DataView spec={surface} />
+                </PanelBoundary>
+                <PanelBoundary name="The line profile">
+                  <ProfileChart />
+                </PanelBoundary>
+              </div>
+            </div>
+          ) : (
+            <PanelBoundary name="The surface view">
+              <ViewArea />
+            </PanelBoundary>
+          )}
           <div className="lower">
-            <LossChart />
-            <RunTable />
+            <PanelBoundary name="The loss chart">
+              <LossChart />
+            </PanelBoundary>
+            <PanelBoundary name="The results table">
+              <RunTable />
+            </PanelBoundary>
           </div>
         </main>
         <aside className="sidebar sidebar-right">
-          <RunList />
+          <PanelBoundary name="The run list">
+            <RunList />
+          </PanelBoundary>
         </aside>
       </div>
     </div>

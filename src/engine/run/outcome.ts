@@ -28,7 +28,7 @@ export function outcomeLabel(o: RunOutcome): string {
     case 'step-limit':
       return 'step limit';
     case 'diverged':
-      return `diverged at step ${o.step}: ${o.detail}`;
+      return `diverged at step ${o.step} (${o.reason === 'blow-up' ? 'loss blew up' : 'non-finite value'})`;
     case 'cancelled':
       return 'cancelled';
   }

@@ -7,6 +7,8 @@ import {
   optimizerInfo,
   validateOptimizerSpec,
   validateRunSettings,
+  isRowwiseSurface,
+  stepsForEpochs,
   type HyperparameterInfo,
   type OptimizerKind,
   type OptimizerSpec,
@@ -16,12 +18,16 @@ import {
 import type { RunConfig } from '../../store/workspace';
 import { useActions, useApp } from '../app-context';
 import { NumberField } from '../fields/NumberField';
+import { useMainThreadSurface } from '../view/use-surface';
 
 /** Every setting of the selected run. Edits apply (and restart the run) only when they validate. */
 export function RunEditor({ run }: { run: RunConfig }) {
   const actions = useActions();
   const variables = useApp((s) => s.surfaceInfo.variables);
   const runError = useApp((s) => s.status[run.id]?.error ?? null);
+  const spec = useApp((s) => s.surface);
+  const surface = useMainThreadSurface(spec);
+  const rows = surface && isRowwiseSurface(surface) ? surface.rows : undefined;
   const info = optimizerInfo(run.optimizer.kind);
   const kindId = useId();
   const scheduleId = useId();
@@ -37,7 +43,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
 
   function trySettings(next: RunSettings): string | null {
     try {
-      validateRunSettings(next, variables.length);
+      validateRunSettings(next, variables.length, rows);
     } catch (e) {
       if (e instanceof SettingError) return e.message;
       throw e;
@@ -151,6 +157,23 @@ export function RunEditor({ run }: { run: RunConfig }) {
         <NumberField compact label="max steps" value={stop.maxSteps} onCommit={(v) => trySettings({ ...run.settings, stop: { ...stop, maxSteps: v! } })} />
         <NumberField compact optional label="loss change below" value={stop.lossChangeTolerance} onCommit={(v) => trySettings({ ...run.settings, stop: omitUndefined({ ...stop, lossChangeTolerance: v }) })} />
         <NumberField compact optional label="gradient norm below" value={stop.gradientNormTolerance} onCommit={(v) => trySettings({ ...run.settings, stop: omitUndefined({ ...stop, gradientNormTolerance: v }) })} />
+ {rows !== undefined && (
+          <>
+            <NumberField
+              compact
+              optional
+              label={`batch size (of ${rows} rows)`}
+              help="Empty: every step uses all rows (full batch). Otherwise each step uses the next batch of a seeded shuffle; the recorded loss is always the full-data loss."
+              value={run.settings.minibatch?.size}
+              onCommit={(v) => trySettings(omitUndefined({ ...run.settings, minibatch: v === undefined ? undefined : { size: v } }))}
+            />
+            {run.settings.minibatch && (
+              <p className="field-help">
+                {stepsPerEpoch(rows, run.settings.minibatch.size)} steps per epoch; {(stop.maxSteps / stepsPerEpoch(rows, run.settings.minibatch.size)).toFixed(1)} epochs at most
+              </p>
+            )}
+          </>
+        )}
         <NumberField compact optional label="gradient noise (std)" value={run.settings.gradientNoise} onCommit={(v) => trySettings(omitUndefined({ ...run.settings, gradientNoise: v }))} />
         <NumberField compact label="seed" value={run.settings.seed} onCommit={(v) => trySettings({ ...run.settings, seed: v! })} />
       </fieldset>
@@ -183,6 +206,10 @@ function HyperField({ info, value, onChange }: { info: HyperparameterInfo; value
       </div>
     );
   return <NumberField compact label={info.label} help={info.help} value={value as number} onCommit={(v) => onChange(v!)} />;
+}
+
+function stepsPerEpoch(rows: number, size: number): number {
+  return stepsForEpochs(rows, size, 1);
 }
 
 function withField(schedule: ScheduleSpec, name: string, value: number | undefined): ScheduleSpec {

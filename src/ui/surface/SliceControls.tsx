@@ -1,24 +1,84 @@
-import { useActions, useApp } from '../app-context';
+import { useId, useState } from 'react';
+import { useActions, useApp, useLiveRuns } from '../app-context';
 import { NumberField } from '../fields/NumberField';
+import { useMainThreadSurface } from '../view/use-surface';
+import { pcaPlaneSlice, randomPlaneSlice } from './plane-choices';
 
-/** For more than two variables: which two are drawn, and where the others are held. */
+type Centre = 'start' | 'current' | 'known';
+
+/**
+ * For more than two variables: the plane to draw. Two chosen variables with the others held at a point;
+ * a filter-normalised random plane; or the plane of a run's principal directions. Runs always move in
+ * all variables; the view draws their projection onto the plane.
+ */
 export function SliceControls() {
   const actions = useActions();
+  const live = useLiveRuns();
   const variables = useApp((s) => s.surfaceInfo.variables);
+  const knownPoints = useApp((s) => s.surfaceInfo.knownPoints);
   const slice = useApp((s) => s.slice);
+  const runs = useApp((s) => s.runs);
+  const selected = useApp((s) => s.selectedRunId);
+  const spec = useApp((s) => s.surface);
+  const surface = useMainThreadSurface(spec);
+  const id = useId();
+  const [seed, setSeed] = useState(1);
+  const [centre, setCentre] = useState<Centre>('current');
+  const [problem, setProblem] = useState<string | null>(null);
   if (variables.length <= 2) return null;
+  const run = runs.find((r) => r.id === selected) ?? runs[0] ?? null;
+  const buffer = run ? live.trajectory(run.id) : undefined;
+  const known = knownPoints.find((p) => p.kind === 'global-min');
   const [i, j] = slice.axes;
+
+  /** The point a plane goes through (or the others are held at). */
+  function centrePoint(which: Centre): { point: number[]; label: string } | null {
+    if (which === 'known') return known ? { point: known.point, label: 'the known minimum' } : null;
+    if (!run || !buffer || buffer.count === 0) return null;
+    const k = which === 'start' ? 0 : buffer.count - 1;
+    return { point: Array.from(buffer.point(k)), label: `${run.label} at step ${k}` };
+  }
+
+  function hold(which: Centre) {
+    const c = centrePoint(which);
+    if (!c) return setProblem(which === 'known' ? 'this surface has no known minimum' : 'select a run that has started');
+    setProblem(null);
+    actions.setSlice({ plane: null, at: c.point });
+  }
+
+  function drawRandom() {
+    const c = centrePoint(centre);
+    if (!surface || !c) return setProblem(centre === 'known' ? 'this surface has no known minimum' : 'select a run that has started');
+    try {
+      const { plane, view } = randomPlaneSlice(surface, c.point, seed, c.label);
+      setProblem(null);
+      actions.setSlice({ plane, view });
+    } catch (e) {
+      setProblem(e instanceof Error ? e.message : String(e));
+    }
+  }
+
+  function drawPca() {
+    if (!run || !buffer || buffer.count < 3) return setProblem('the run needs a few steps before its path has directions');
+    try {
+      const { plane, view } = pcaPlaneSlice(buffer, run.label);
+      setProblem(null);
+      actions.setSlice({ plane, view });
+    } catch (e) {
+      setProblem(e instanceof Error ? e.message : String(e));
+    }
+  }
+
   const axisSelect = (which: 0 | 1) => (
     <div className="field field-compact">
-      <label htmlFor={`slice-axis-${which}`}>{which === 0 ? 'Horizontal axis' : 'Vertical axis'}</label>
+      <label htmlFor={`${id}-axis-${which}`}>{which === 0 ? 'Horizontal axis' : 'Vertical axis'}</label>
       <select
-        id={`slice-axis-${which}`}
+        id={`${id}-axis-${which}`}
         value={slice.axes[which]}
         onChange={(e) => {
           const k = Number(e.target.value);
           const other = slice.axes[1 - which];
-          const axes: [number, number] = which === 0 ? [k, k === other ? i : other] : [k === other ? j : other, k];
-          actions.setSlice({ axes });
+          actions.setSlice({ plane: null, axes: which === 0 ? [k, k === other ? i : other] : [k === other ? j : other, k] });
         }}
       >
         {variables.map((v, k) => (
@@ -29,24 +89,67 @@ export function SliceControls() {
       </select>
     </div>
   );
+
   return (
     <fieldset className="slice">
       <legend>Slice through {variables.length} variables</legend>
-      {axisSelect(0)}
-      {axisSelect(1)}
-      {variables.map((v, k) =>
-        k === i || k === j ? null : (
-          <NumberField
-            key={v}
-            compact
-            label={`${v} held at`}
-            value={slice.at[k]}
-            onCommit={(x) => {
-              actions.setSlice({ at: slice.at.map((old, m) => (m === k ? x! : old)) });
-              return null;
-            }}
-          />
-        ),
+      <p className="slice-note">Runs move in all {variables.length} variables; the view shows their projection onto the plane drawn.</p>
+      {slice.plane ? (
+        <>
+          <p className="slice-note" data-testid="plane-note">
+            {slice.plane.note}
+          </p>
+          <button type="button" onClick={() => actions.setSlice({ plane: null })}>
+            Back to two variables
+          </button>
+        </>
+      ) : (
+        <>
+          {axisSelect(0)}
+          {axisSelect(1)}
+          <div className="row" role="group" aria-label="Hold the other variables at">
+            <span className="slice-note">Hold the others at</span>
+            <button type="button" onClick={() => hold('start')}>
+              the run's start
+            </button>
+            <button type="button" onClick={() => hold('current')}>
+              its current point
+            </button>
+            {known && (
+              <button type="button" onClick={() => hold('known')}>
+                the known minimum
+              </button>
+            )}
+          </div>
+          {variables.length <= 12 &&
+            variables.map((v, k) =>
+              k === i || k === j ? null : (
+                <NumberField key={v} compact label={`${v} held at`} value={slice.at[k]} onCommit={(x) => (actions.setSlice({ at: slice.at.map((old, m) => (m === k ? x! : old)) }), null)} />
+              ),
+            )}
+        </>
+      )}
+      <div className="field field-compact">
+        <label htmlFor={`${id}-centre`}>Plane through</label>
+        <select id={`${id}-centre`} value={centre} onChange={(e) => setCentre(e.target.value as Centre)}>
+          <option value="current">the run's current point</option>
+          <option value="start">the run's start</option>
+          {known && <option value="known">the known minimum</option>}
+        </select>
+      </div>
+      <NumberField compact label="random seed" value={seed} onCommit={(v) => (Number.isInteger(v) ? (setSeed(v!), null) : 'random seed: a whole number')} />
+      <div className="row">
+        <button type="button" onClick={drawRandom}>
+          Random directions
+        </button>
+        <button type="button" onClick={drawPca}>
+          Principal directions of {run ? run.label : 'a run'}
+        </button>
+      </div>
+      {problem && (
+        <div className="field-error" role="alert">
+          {problem}
+        </div>
       )}
     </fieldset>
   );

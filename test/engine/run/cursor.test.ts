@@ -114,7 +114,7 @@ describe('outcome text', () => {
   it('says which rule, or at which step and why', async () => {
     const { describeOutcome, outcomeLabel } = await import('../../../src/engine');
     expect(describeOutcome({ kind: 'converged', rule: 'gradient-norm', step: 138 })).toBe('converged (gradient norm) at step 138');
-    expect(outcomeLabel({ kind: 'diverged', reason: 'blow-up', step: 9, detail: 'the loss rose to 1e9' })).toBe('diverged at step 9: the loss rose to 1e9');
+    expect(outcomeLabel({ kind: 'diverged', reason: 'blow-up', step: 9, detail: 'the loss rose to 1e9' })).toBe('diverged at step 9 (loss blew up)');
     expect(outcomeLabel({ kind: 'step-limit', step: 5 })).toBe('step limit');
   });
 });
