@@ -434,3 +434,15 @@ function suggestedStartOf(s: AppState): number[] {
   return s.runs[0]?.settings.start.slice() ?? suggestedStart(s.surfaceInfo);
 }
 
+
+/**
+ * The run a single-run panel (data view, profile, plane choices) follows: the selected run, else the
+ * visible run with the lowest loss so far, else the first run.
+ */
+export function focusRun(s: Pick<AppState, 'runs' | 'selectedRunId' | 'status'>): RunConfig | null {
+  const selected = s.runs.find((r) => r.id === s.selectedRunId);
+  if (selected) return selected;
+  const loss = (r: RunConfig) => s.status[r.id]?.summary.finalLoss ?? Number.NaN;
+  const ranked = s.runs.filter((r) => !r.hidden && Number.isFinite(loss(r))).sort((a, b) => loss(a) - loss(b));
+  return ranked[0] ?? s.runs[0] ?? null;
+}

@@ -1,4 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
+import { focusRun } from '../../store/app-store';
 import { useActions, useApp, useLiveRuns } from '../app-context';
 import { prepareCanvas, useElementSize } from '../view/use-canvas-size';
 import { drawProfile } from './profile-chart';
@@ -10,10 +11,9 @@ import { drawProfile } from './profile-chart';
 export function ProfileChart() {
   const actions = useActions();
   const live = useLiveRuns();
-  const runs = useApp((s) => s.runs);
-  const selected = useApp((s) => s.selectedRunId);
+  const focus = useApp(focusRun);
   const surface = useApp((s) => s.surface);
-  const run = runs.find((r) => r.id === selected) ?? runs[0] ?? null;
+  const run = focus;
   const [profile, setProfile] = useState<{ alphas: Float64Array; values: Float64Array; label: string } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const boxRef = useRef<HTMLDivElement>(null);

@@ -1,4 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
+import { focusRun } from '../../store/app-store';
 import { datasetTable, type DataFitSpec, type DataFitSurface } from '../../problems';
 import { formatValue } from '../plot';
 import { useApp, useLiveRuns } from '../app-context';
@@ -13,20 +14,11 @@ import { drawDataScene, taskOf } from './data-plot';
 export function DataView({ spec }: { spec: DataFitSpec }) {
   const live = useLiveRuns();
   const surface = useMainThreadSurface(spec) as DataFitSurface | null;
-  const runs = useApp((s) => s.runs);
-  const selected = useApp((s) => s.selectedRunId);
   const info = useApp((s) => s.surfaceInfo);
   const boxRef = useRef<HTMLDivElement>(null);
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const size = useElementSize(boxRef);
-  const status = useApp((s) => s.status);
-  // The selected run, else the visible run with the lowest loss so far.
-  const run =
-    runs.find((r) => r.id === selected) ??
-    runs
-      .filter((r) => !r.hidden && Number.isFinite(status[r.id]?.summary.finalLoss))
-      .sort((a, b) => status[a.id].summary.finalLoss - status[b.id].summary.finalLoss)[0] ??
-    null;
+  const run = useApp(focusRun);
   const [caption, setCaption] = useState('');
   const [shown, setShown] = useState<{ params: number[]; step: number; label: string } | null>(null);
   const input = useRef({ size, run, surface });

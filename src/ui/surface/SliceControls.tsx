@@ -1,4 +1,5 @@
 import { useId, useState } from 'react';
+import { focusRun } from '../../store/app-store';
 import { useActions, useApp, useLiveRuns } from '../app-context';
 import { NumberField } from '../fields/NumberField';
 import { useMainThreadSurface } from '../view/use-surface';
@@ -17,8 +18,7 @@ export function SliceControls() {
   const variables = useApp((s) => s.surfaceInfo.variables);
   const knownPoints = useApp((s) => s.surfaceInfo.knownPoints);
   const slice = useApp((s) => s.slice);
-  const runs = useApp((s) => s.runs);
-  const selected = useApp((s) => s.selectedRunId);
+  const focus = useApp(focusRun);
   const spec = useApp((s) => s.surface);
   const surface = useMainThreadSurface(spec);
   const id = useId();
@@ -26,7 +26,7 @@ export function SliceControls() {
   const [centre, setCentre] = useState<Centre>('current');
   const [problem, setProblem] = useState<string | null>(null);
   if (variables.length <= 2) return null;
-  const run = runs.find((r) => r.id === selected) ?? runs[0] ?? null;
+  const run = focus;
   const buffer = run ? live.trajectory(run.id) : undefined;
   const known = knownPoints.find((p) => p.kind === 'global-min');
   const [i, j] = slice.axes;

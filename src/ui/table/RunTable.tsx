@@ -61,7 +61,7 @@ export function RunTable() {
                     {s && Number.isFinite(s.finalLoss) ? formatValue(s.finalLoss) : '—'}
                   </td>
                   <td data-col="final-point" className="mono">
-                    {s?.finalPoint.length ? `(${s.finalPoint.map(formatValue).join(', ')})` : '—'}
+                    {s?.finalPoint.length ? pointText(s.finalPoint) : '—'}
                   </td>
                   <td data-col="nearest">
                     {near && s?.nearestMinimum ? `${formatValue(s.nearestMinimum.distance)} from (${near.point.map(formatValue).join(', ')})` : '—'}
@@ -76,4 +76,9 @@ export function RunTable() {
       </div>
     </section>
   );
+}
+
+/** A point as text; long parameter vectors are shortened (the CSV export has every coordinate). */
+function pointText(x: number[]): string {
+  return x.length <= 4 ? `(${x.map(formatValue).join(', ')})` : `(${x.slice(0, 3).map(formatValue).join(', ')}, … ${x.length} values)`;
 }
