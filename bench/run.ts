@@ -38,6 +38,8 @@ const ratios = {
   datafit_grid_vs_handwritten: datafit.ratio,
   // 1-worker pool time / 2-worker pool time on the same request (2 cores; the main thread only coordinates).
   pool_speedup: pool.ratio,
+  // What two threads reach with no pool: 2 x (one grid alone) / (two grids at once); the pool's ceiling here.
+  pool_speedup_machine_limit: pool.limit,
 };
 
 const rows = Object.entries(ratios).map(([k, v]) => [k, v, TARGETS[k as keyof typeof TARGETS]] as const);
@@ -50,7 +52,7 @@ for (const m of mathjs) console.log(`  value ${m.name.padEnd(14)} compiled ${(m.
 console.log(`  Adam on Rosenbrock: engine ${(adam.engineStepsPerMs * 1000).toExponential(3)} steps/s, hand-written ${(adam.handwrittenStepsPerMs * 1000).toExponential(3)}, tfjs-core cpu ${(adam.tfjsStepsPerMs * 1000).toExponential(3)} (hand-written/tfjs ${adam.handwrittenRatio.toFixed(0)})`);
 console.log(`  256x256 Rosenbrock grid: engine ${grid.engineMs.toFixed(2)} ms, hand-written ${grid.handwrittenMs.toFixed(2)} ms`);
 console.log(`  128x128 data-fit slice (${datafit.surface}, ${datafit.rows} rows): engine ${datafit.engineMs.toFixed(1)} ms, hand-written ${datafit.handwrittenMs.toFixed(1)} ms, hand-written for any p ${datafit.handwrittenGenericMs.toFixed(1)} ms (ratio ${datafit.genericRatio.toFixed(3)})`);
-console.log(`  grid pool on that slice: 1 worker ${pool.oneWorkerMs.toFixed(1)} ms, 2 workers ${pool.twoWorkersMs.toFixed(1)} ms`);
+console.log(`  grid pool on that slice: 1 worker ${pool.oneWorkerMs.toFixed(1)} ms, 2 workers ${pool.twoWorkersMs.toFixed(1)} ms; two 1-worker pools at once ${pool.twoGridsAtOnceMs.toFixed(1)} ms (pool efficiency ${((100 * pool.ratio) / pool.limit).toFixed(0)}% of the machine limit)`);
 
 writeFileSync(
   new URL('./results.json', import.meta.url),

@@ -49,8 +49,15 @@ export class GridRequestCancelled extends Error {
 
 /** Default size cap: beyond this, message and start-up costs outweigh more parallel rows for our grids. */
 export const MAX_DEFAULT_POOL_SIZE = 8;
-/** Bands per member: more bands than members balance uneven rows and a shared CPU. */
-export const BANDS_PER_MEMBER = 4;
+/**
+ * Band sizes by guided self-scheduling (C. D. Polychronopoulos & D. J. Kuck, "Guided self-scheduling:
+ * a practical scheduling scheme for parallel supercomputers", IEEE Trans. Computers C-36, 1987): an
+ * idle member gets ceil(R / p) of the R rows not yet handed out, p the live members; we give it this
+ * share of that (half), so bands start large (few messages), shrink to single rows at the end (a member
+ * finishing early waits for at most about one small band), and a slow first member cannot hold half
+ * the grid.
+ */
+export const GUIDED_SHARE = 0.5;
 
 /** navigator.hardwareConcurrency clamped to [1, MAX_DEFAULT_POOL_SIZE] (1 where it is unknown). */
 export function defaultPoolSize(hardwareConcurrency = typeof navigator !== 'undefined' ? navigator.hardwareConcurrency : undefined): number {
@@ -79,7 +86,11 @@ interface Job {
   grid: GridRequest;
   coarseGrid: GridRequest | null;
   values: Float64Array;
-  todo: Band[];
+  /** The first row not yet handed out; rows below it are done, in flight or in `returned`. */
+  nextRow: number;
+  /** Bands handed back by failed members, handed out again first. */
+  returned: Band[];
+  coarsePending: boolean;
   rowsDone: number;
   min: number;
   max: number;
@@ -91,13 +102,13 @@ interface Job {
 }
 
 /**
- * Samples one grid at a time across several workers. A request is split into bands of whole rows
- * (about BANDS_PER_MEMBER per member), handed out one band per idle member, so faster or less loaded
- * members take more; each band's values are copied into place, so the result is exactly what one
- * `sampleGrid` call gives. A new request supersedes the one in progress: its bands are cancelled in the
- * workers and any of its late messages are dropped by request id. The first band error rejects the
- * request (once) and cancels the rest. A member whose worker fails is retired and its band handed to
- * another; when none is left, the request fails.
+ * Samples one grid at a time across several workers. A request is cut into bands of whole rows as
+ * members become idle, one band per idle member, sized by guided self-scheduling (GUIDED_SHARE), so
+ * faster or less loaded members take more; each band's values are copied into place, so the result is
+ * exactly what one `sampleGrid` call gives. A new request supersedes the one in progress: its bands are
+ * cancelled in the workers and any of its late messages are dropped by request id (ids must be fresh
+ * per request). The first band error rejects the request (once) and cancels the rest. A member whose
+ * worker fails is retired and its band handed to another; when none is left, the request fails.
  */
 export class GridPool {
   private readonly members: Member[];
@@ -147,9 +158,6 @@ export class GridPool {
     }
     if (this.aliveCount === 0) return Promise.reject(new Error('grid pool: every worker has failed'));
     const wantsCoarse = options.onCoarse !== undefined && grid.nx * grid.ny > 4 * COARSE_SIDE * COARSE_SIDE;
-    const todo: Band[] = wantsCoarse ? [{ rows: [0, COARSE_SIDE], coarse: true }] : [];
-    const bandRows = Math.max(1, Math.ceil(grid.ny / (this.members.length * BANDS_PER_MEMBER)));
-    for (let j = 0; j < grid.ny; j += bandRows) todo.push({ rows: [j, Math.min(grid.ny, j + bandRows)], coarse: false });
     return new Promise<GridPoolResult>((resolve, reject) => {
       this.job = {
         requestId,
@@ -158,7 +166,9 @@ export class GridPool {
         grid,
         coarseGrid: wantsCoarse ? { ...grid, nx: COARSE_SIDE, ny: COARSE_SIDE } : null,
         values: new Float64Array(grid.nx * grid.ny),
-        todo,
+        nextRow: 0,
+        returned: [],
+        coarsePending: wantsCoarse,
         rowsDone: 0,
         min: Infinity,
         max: -Infinity,
@@ -188,8 +198,9 @@ export class GridPool {
 
   private dispatch(job: Job): void {
     for (const m of this.members) {
-      if (!m.alive || m.band || job.todo.length === 0) continue;
-      const band = job.todo.shift()!;
+      if (!m.alive || m.band) continue;
+      const band = this.nextBand(job);
+      if (!band) return;
       m.band = band;
       m.rowsDone = 0;
       m.worker.postMessage({
@@ -200,6 +211,22 @@ export class GridPool {
         rows: band.rows,
       });
     }
+  }
+
+  /** The next band to hand out: the preview first, then returned bands, then a guided share of the rest. */
+  private nextBand(job: Job): Band | null {
+    if (job.coarsePending) {
+      job.coarsePending = false;
+      return { rows: [0, COARSE_SIDE], coarse: true };
+    }
+    const back = job.returned.shift();
+    if (back) return back;
+    const left = job.grid.ny - job.nextRow;
+    if (left <= 0) return null;
+    const rows = Math.max(1, Math.ceil((GUIDED_SHARE * left) / this.aliveCount));
+    const band: Band = { rows: [job.nextRow, job.nextRow + rows], coarse: false };
+    job.nextRow += rows;
+    return band;
   }
 
   private onMessage(member: Member, msg: FromPoolMember | FromWorker): void {
@@ -282,7 +309,10 @@ export class GridPool {
     member.alive = false;
     const job = this.job;
     if (!job) return;
-    if (member.band) job.todo.unshift(member.band);
+    if (member.band) {
+      if (member.band.coarse) job.coarsePending = true;
+      else job.returned.push(member.band);
+    }
     member.band = null;
     member.rowsDone = 0;
     if (this.aliveCount === 0) this.fail(job, `grid pool: every worker has failed (last: ${message})`);
