@@ -3,12 +3,14 @@ import { createAppStore, workspaceChanged, workspaceOf } from './store/app-store
 import { workerLink } from './store/engine-link';
 import { loadSavedWorkspace, saveWorkspace } from './store/persistence';
 import { App } from './ui/App';
+import { createPageGridPool } from './worker/pool-web';
 import { AppContext } from './ui/app-context';
 import './ui/styles.css';
 
 const saved = loadSavedWorkspace(window.localStorage);
 const app = createAppStore({
   link: workerLink(),
+  grids: createPageGridPool(),
   requestFrame: (fn) => requestAnimationFrame(() => fn()),
   initial: saved.workspace ?? undefined,
 });

@@ -3,6 +3,7 @@ import { validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
 import type { ViewBox } from '../ui/plot';
+import { GridRequestCancelled, type GridPoolResult } from '../worker/pool';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
 import { LiveRuns, type RunStatus } from './live-runs';
@@ -89,13 +90,26 @@ export interface AppStore {
 /** Quiet time after a zoom or pan before the grid is sampled again. */
 export const GRID_SETTLE_MS = 80;
 
+/** Where grids are sampled when not by the engine worker itself: the page's worker pool. */
+export interface GridSource {
+  request(
+    requestId: string,
+    spec: SurfaceSpec,
+    grid: GridRequest,
+    onProgress?: (fraction: number) => void,
+    options?: { onCoarse?: (preview: GridPoolResult) => void },
+  ): Promise<GridPoolResult>;
+}
+
 export interface StoreOptions {
   link: EngineLink;
+  /** A pool for grid sampling; without one, grids go to the engine worker through `link`. */
+  grids?: GridSource;
   requestFrame: (fn: () => void) => void;
   initial?: Workspace;
 }
 
-export function createAppStore({ link, requestFrame, initial }: StoreOptions): AppStore {
+export function createAppStore({ link, requestFrame, initial, grids }: StoreOptions): AppStore {
   let start = initial ?? demoWorkspace();
   let startNotice: string | null = null;
   try {
@@ -145,7 +159,14 @@ export function createAppStore({ link, requestFrame, initial }: StoreOptions): A
     const side = s.display.resolution;
     const grid: GridRequest = { plane: slicePlane(s.slice, n), a: s.view.a, b: s.view.b, nx: side, ny: side };
     set({ grid: { ...s.grid, requestId, phase: 'computing', progress: 0, error: null } });
-    link.send({ type: 'grid/sample', requestId, surface: s.surface, grid, coarseFirst: true });
+    if (!grids) return link.send({ type: 'grid/sample', requestId, surface: s.surface, grid, coarseFirst: true });
+    const result = (r: GridPoolResult, stage: 'coarse' | 'final') => handleGrid({ type: 'grid/result', requestId, grid: r.grid, values: r.values, min: r.min, max: r.max, stage });
+    grids
+      .request(requestId, s.surface, grid, (f) => handleGrid({ type: 'grid/progress', requestId, rowsDone: Math.round(f * side), rows: side }), { onCoarse: (r) => result(r, 'coarse') })
+      .then((r) => result(r, 'final'))
+      .catch((e) => {
+        if (!(e instanceof GridRequestCancelled)) handleGrid({ type: 'grid/error', requestId, message: e instanceof Error ? e.message : String(e) });
+      });
   }
 
   /** Replies to one-off requests (CSV parsing, profiles), by request id. */

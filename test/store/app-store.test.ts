@@ -95,3 +95,27 @@ describe('app store with the real worker handler', () => {
     expect(new Set(cells.map((r) => r.style)).size).toBe(6);
   });
 });
+
+describe('app store with a grid pool', () => {
+  it('samples the grid through the pool: the same values as the engine worker gives', async () => {
+    const { fakeWorld, flush } = await import('../worker/fake-workers');
+    const { createGridPool } = await import('../../src/worker/pool');
+    const { sampleGrid } = await import('../../src/engine');
+    const { buildSurface } = await import('../../src/problems');
+    const world = fakeWorld(1);
+    const env = inProcessLink();
+    const app = createAppStore({ link: env.link, requestFrame: env.requestFrame, initial: demoWorkspace(), grids: createGridPool(world.factory, 2) });
+    for (let k = 0; k < 50 && app.store.getState().grid.phase !== 'ready'; k++) {
+      world.run();
+      env.drain();
+      await flush();
+    }
+    const g = app.store.getState().grid;
+    expect(g.phase).toBe('ready');
+    expect(g.stage).toBe('final');
+    const direct = sampleGrid(buildSurface(app.store.getState().surface), g.request!);
+    expect(Array.from(g.values!)).toEqual(Array.from(direct));
+    // Both members took part.
+    expect(new Set(world.log.filter((m) => m.direction === 'out' && m.msg.type === 'band/result').map((m) => m.member)).size).toBe(2);
+  });
+});
