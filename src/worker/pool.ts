@@ -59,6 +59,14 @@ export const MAX_DEFAULT_POOL_SIZE = 8;
  */
 export const GUIDED_SHARE = 0.5;
 
+/**
+ * Bands a member holds at once: the one it is sampling and the next, already in its queue, so it never
+ * idles while its finished band travels to the page and the next one comes back (a busy or collecting
+ * page thread can take milliseconds to answer). With guided sizes the bands near the end are small, so
+ * holding one in advance costs little balance.
+ */
+export const BANDS_AHEAD = 2;
+
 /** navigator.hardwareConcurrency clamped to [1, MAX_DEFAULT_POOL_SIZE] (1 where it is unknown). */
 export function defaultPoolSize(hardwareConcurrency = typeof navigator !== 'undefined' ? navigator.hardwareConcurrency : undefined): number {
   const n = Math.floor(Number(hardwareConcurrency));
@@ -73,9 +81,9 @@ interface Band {
 interface Member {
   worker: WorkerLike;
   alive: boolean;
-  /** The band this member is working on for the current request, or null when idle. */
-  band: Band | null;
-  /** Rows of that band finished, as last reported. */
+  /** The current request's bands this member holds, in the order it works through them. */
+  bands: Band[];
+  /** Rows of the first of them finished, as last reported. */
   rowsDone: number;
 }
 
@@ -103,8 +111,8 @@ interface Job {
 
 /**
  * Samples one grid at a time across several workers. A request is cut into bands of whole rows as
- * members become idle, one band per idle member, sized by guided self-scheduling (GUIDED_SHARE), so
- * faster or less loaded members take more; each band's values are copied into place, so the result is
+ * members ask for work (each holds up to BANDS_AHEAD), sized by guided self-scheduling (GUIDED_SHARE),
+ * so faster or less loaded members take more; each band's values are copied into place, so the result is
  * exactly what one `sampleGrid` call gives. A new request supersedes the one in progress: its bands are
  * cancelled in the workers and any of its late messages are dropped by request id (ids must be fresh
  * per request). The first band error rejects the request (once) and cancels the rest. A member whose
@@ -118,7 +126,7 @@ export class GridPool {
   constructor(factory: (index: number) => WorkerLike, size = defaultPoolSize()) {
     if (!Number.isInteger(size) || size < 1) throw new Error(`grid pool: size must be a whole number of at least 1, got ${size}`);
     this.members = Array.from({ length: size }, (_, index) => {
-      const member: Member = { worker: factory(index), alive: true, band: null, rowsDone: 0 };
+      const member: Member = { worker: factory(index), alive: true, bands: [], rowsDone: 0 };
       member.worker.listen(
         (msg) => this.onMessage(member, msg),
         (message) => this.onFailure(member, message),
@@ -196,21 +204,27 @@ export class GridPool {
     }
   }
 
+  /** Tops every live member up to BANDS_AHEAD bands, one band per member per pass (spreads the big first bands). */
   private dispatch(job: Job): void {
-    for (const m of this.members) {
-      if (!m.alive || m.band) continue;
-      const band = this.nextBand(job);
-      if (!band) return;
-      m.band = band;
-      m.rowsDone = 0;
-      m.worker.postMessage({
-        type: 'band/sample',
-        requestId: band.coarse ? job.coarseId : job.requestId,
-        surface: job.spec,
-        grid: band.coarse ? job.coarseGrid! : job.grid,
-        rows: band.rows,
-      });
-    }
+    for (let depth = 1; depth <= BANDS_AHEAD; depth++)
+      for (const m of this.members) {
+        if (!m.alive || m.bands.length >= depth) continue;
+        const band = this.nextBand(job);
+        if (!band) return;
+        if (m.bands.length === 0) m.rowsDone = 0;
+        m.bands.push(band);
+        m.worker.postMessage({
+          type: 'band/sample',
+          requestId: this.idOf(job, band),
+          surface: job.spec,
+          grid: band.coarse ? job.coarseGrid! : job.grid,
+          rows: band.rows,
+        });
+      }
+  }
+
+  private idOf(job: Job, band: Band): string {
+    return band.coarse ? job.coarseId : job.requestId;
   }
 
   /** The next band to hand out: the preview first, then returned bands, then a guided share of the rest. */
@@ -231,12 +245,14 @@ export class GridPool {
 
   private onMessage(member: Member, msg: FromPoolMember | FromWorker): void {
     const job = this.job;
-    if (!job || !member.band || !(msg.type === 'band/progress' || msg.type === 'band/result' || msg.type === 'band/error')) return;
-    const band = member.band;
-    if (msg.requestId !== (band.coarse ? job.coarseId : job.requestId)) return; // a late message of a superseded request
+    if (!job || !(msg.type === 'band/progress' || msg.type === 'band/result' || msg.type === 'band/error')) return;
+    // A member answers its bands in order; anything else is a late message of a superseded request.
+    const k = member.bands.findIndex((b) => this.idOf(job, b) === msg.requestId && b.rows[0] === msg.rows[0] && b.rows[1] === msg.rows[1]);
+    if (k < 0) return;
+    const band = member.bands[k];
     switch (msg.type) {
       case 'band/progress':
-        if (!band.coarse) {
+        if (k === 0 && !band.coarse) {
           member.rowsDone = msg.rowsDone;
           this.report(job);
         }
@@ -244,7 +260,7 @@ export class GridPool {
       case 'band/error':
         return this.fail(job, msg.message);
       case 'band/result':
-        member.band = null;
+        member.bands.splice(k, 1);
         member.rowsDone = 0;
         if (band.coarse) job.onCoarse?.({ requestId: job.requestId, grid: job.coarseGrid!, values: msg.values, min: msg.min, max: msg.max });
         else this.store(job, msg.rows, msg.values, msg.min, msg.max);
@@ -266,7 +282,7 @@ export class GridPool {
 
   private report(job: Job): void {
     let rows = job.rowsDone;
-    for (const m of this.members) if (m.band && !m.band.coarse) rows += m.rowsDone;
+    for (const m of this.members) if (m.bands.length > 0 && !m.bands[0].coarse) rows += m.rowsDone;
     const fraction = Math.min(1, rows / job.grid.ny);
     if (fraction > job.reported) {
       job.reported = fraction;
@@ -297,9 +313,8 @@ export class GridPool {
   /** Tells members still holding this job's bands to drop them, and marks them idle. */
   private release(job: Job): void {
     for (const m of this.members) {
-      if (!m.band) continue;
-      if (m.alive) m.worker.postMessage({ type: 'band/cancel', requestId: m.band.coarse ? job.coarseId : job.requestId });
-      m.band = null;
+      if (m.alive) for (const id of new Set(m.bands.map((b) => this.idOf(job, b)))) m.worker.postMessage({ type: 'band/cancel', requestId: id });
+      m.bands = [];
       m.rowsDone = 0;
     }
   }
@@ -309,11 +324,11 @@ export class GridPool {
     member.alive = false;
     const job = this.job;
     if (!job) return;
-    if (member.band) {
-      if (member.band.coarse) job.coarsePending = true;
-      else job.returned.push(member.band);
+    for (const band of member.bands) {
+      if (band.coarse) job.coarsePending = true;
+      else job.returned.push(band);
     }
-    member.band = null;
+    member.bands = [];
     member.rowsDone = 0;
     if (this.aliveCount === 0) this.fail(job, `grid pool: every worker has failed (last: ${message})`);
     else this.dispatch(job);
