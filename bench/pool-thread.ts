@@ -8,5 +8,5 @@ import { workerTiming } from '../src/worker/scheduler';
 
 const port = parentPort;
 if (!port) throw new Error('bench/pool-thread: run me as a worker thread');
-const handle = createBandHandler((msg, transfer) => port.postMessage(msg, (transfer ?? []) as ArrayBuffer[]), workerTiming());
+const handle = createBandHandler((msg) => port.postMessage(msg), workerTiming());
 port.on('message', (msg: ToPoolMember) => handle(msg));

@@ -1,6 +1,7 @@
 /**
  * The one typed protocol between the page and the engine workers. Every message is plain data
- * (structured-clone safe); trajectory and grid buffers are transferred, not copied.
+ * (structured-clone safe). Typed arrays are copied, never transferred: detaching a buffer slows every
+ * later typed-array access in a V8 worker (see DEVELOPERS.md, "Slices and the worker pool").
  *
  * Identity: each launch of a run gets a fresh `runId`, each grid request a fresh `requestId`; the page
  * drops any message whose id is no longer current, so work superseded by an edit can never be drawn.
@@ -82,7 +83,7 @@ export type ToPoolMember =
 export type FromPoolMember =
   /** Rows of the band finished so far (0 to j1 - j0), sent between time slices of a long band. */
   | { type: 'band/progress'; requestId: string; rows: RowRange; rowsDone: number }
-  /** The band's values (transferred) with their finite min and max (NaN when none is finite). */
+  /** The band's values (copied) with their finite min and max (NaN when none is finite). */
   | { type: 'band/result'; requestId: string; rows: RowRange; values: Float64Array; min: number; max: number }
   | { type: 'band/error'; requestId: string; rows: RowRange; message: string };
 

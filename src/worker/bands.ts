@@ -34,7 +34,7 @@ export class BandSampler {
   private cache: { key: string; surface: Surface } | null = null;
 
   constructor(
-    private readonly post: (msg: FromPoolMember, transfer?: Transferable[]) => void,
+    private readonly post: (msg: FromPoolMember) => void,
     private readonly timing: Timing,
   ) {}
 
@@ -105,7 +105,7 @@ export class BandSampler {
 }
 
 /** A pool member's message switch ('band/sample', 'band/cancel'), free of worker globals like createHandler. */
-export function createBandHandler(post: (msg: FromPoolMember, transfer?: Transferable[]) => void, timing: Timing) {
+export function createBandHandler(post: (msg: FromPoolMember) => void, timing: Timing) {
   const bands = new BandSampler(post, timing);
   return function handle(msg: ToPoolMember): void {
     switch (msg.type) {

@@ -7,7 +7,7 @@ import { createHandler } from './handler';
 import { workerTiming } from './scheduler';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
-const post = (msg: FromWorker | FromPoolMember, transfer?: Transferable[]) => scope.postMessage(msg, transfer ?? []);
+const post = (msg: FromWorker | FromPoolMember) => scope.postMessage(msg);
 const timing = workerTiming();
 const handle = createHandler(post, timing);
 const handleBand = createBandHandler(post, timing);

@@ -24,7 +24,7 @@ export class GridSampler {
   private cache: { key: string; surface: Surface } | null = null;
 
   constructor(
-    private readonly post: (msg: FromWorker, transfer?: Transferable[]) => void,
+    private readonly post: (msg: FromWorker) => void,
     private readonly timing: Timing,
   ) {}
 
@@ -84,6 +84,6 @@ export class GridSampler {
 
   private finish(requestId: string, grid: GridRequest, values: Float64Array, stage: 'coarse' | 'final'): void {
     const { min, max } = finiteRange(values);
-    this.post({ type: 'grid/result', requestId, grid, values, min, max, stage }, [values.buffer]);
+    this.post({ type: 'grid/result', requestId, grid, values, min, max, stage }); // copied: see runs.ts
   }
 }

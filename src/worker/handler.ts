@@ -6,7 +6,7 @@ import { parseCsvInWorker } from './tables';
 import type { Timing } from './scheduler';
 
 /** The worker's message switch, free of worker globals so tests can drive it directly. */
-export function createHandler(post: (msg: FromWorker, transfer?: Transferable[]) => void, timing: Timing) {
+export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
   const runs = new RunPool(post, timing);
   const grids = new GridSampler(post, timing);
   return function handle(msg: ToWorker): void {

@@ -5,7 +5,7 @@ import { errorText } from './runs';
 
 /** The loss along a segment of parameter space, for the 1-D profile chart. */
 export function sampleProfile(
-  post: (msg: FromWorker, transfer?: Transferable[]) => void,
+  post: (msg: FromWorker) => void,
   requestId: string,
   spec: SurfaceSpec,
   from: number[],
@@ -14,7 +14,7 @@ export function sampleProfile(
 ): void {
   try {
     const p = lineProfile(buildSurface(spec), from, to, alphas);
-    post({ type: 'profile/result', requestId, alphas: p.alphas, values: p.values }, [p.alphas.buffer, p.values.buffer]);
+    post({ type: 'profile/result', requestId, alphas: p.alphas, values: p.values }); // copied: see runs.ts
   } catch (e) {
     post({ type: 'profile/error', requestId, message: errorText(e) });
   }
