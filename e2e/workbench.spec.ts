@@ -131,4 +131,25 @@ test.describe('the workbench in Chromium', () => {
     await page.waitForTimeout(500);
     expect(outside).toEqual([]);
   });
+
+  test('the view exports as a PNG image and as an SVG document with the runs in it', async ({ page }) => {
+    await openFresh(page);
+    await waitForRunsToEnd(page, 3);
+    const png = page.waitForEvent('download');
+    await page.getByRole('button', { name: 'View PNG' }).click();
+    const pngBytes = readFileSync((await (await png).path())!);
+    expect([...pngBytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+    expect(pngBytes.length).toBeGreaterThan(20_000);
+    const svg = page.waitForEvent('download');
+    await page.getByRole('button', { name: 'View SVG' }).click();
+    const text = readFileSync((await (await svg).path())!, 'utf8');
+    // The browser's own XML parser must accept it, and it must hold contours, axes and the three runs.
+    const check = await page.evaluate((t) => {
+      const doc = new DOMParser().parseFromString(t, 'image/svg+xml');
+      return { error: doc.querySelector('parsererror')?.textContent ?? null, paths: doc.querySelectorAll('path').length, text: doc.documentElement.textContent ?? '' };
+    }, text);
+    expect(check.error).toBeNull();
+    expect(check.paths).toBeGreaterThan(20);
+    for (const label of ['Plain descent', 'Momentum', 'Adam', 'loss']) expect(check.text).toContain(label);
+  });
 });
