@@ -1,6 +1,6 @@
 import { gridA, gridB, hasParameterGroups, randomPlane, sampleGrid, type GridRequest } from '../src/engine';
 import { buildSurface, designFor, linearLeastSquares, type DataFitSpec } from '../src/problems';
-import { sink } from './measure';
+import { bestMs, sink } from './measure';
 
 const SIDE = 128;
 const ROWS = 1000;
@@ -28,16 +28,6 @@ export function datafitSlice(): { spec: DataFitSpec; grid: GridRequest } {
   const centre = linearLeastSquares(design(), 'mse', 0);
   const plane = randomPlane(centre, surface.parameterGroups, 7);
   return { spec: DATAFIT_SPEC, grid: { plane, a: [-1, 1], b: [-1, 1], nx: SIDE, ny: SIDE } };
-}
-
-function best(f: () => void, rounds = 7): number {
-  let ms = Infinity;
-  for (let r = 0; r < rounds; r++) {
-    const t0 = performance.now();
-    f();
-    ms = Math.min(ms, performance.now() - t0);
-  }
-  return ms;
 }
 
 /**
@@ -103,9 +93,9 @@ export function datafitGridVsHandwritten() {
   for (let k = 0; k < engineOut.length; k++)
     for (const other of [handOut, genericOut])
       if (!(Math.abs(engineOut[k] - other[k]) <= 1e-12 * (1 + Math.abs(other[k])))) throw new Error(`bench: data-fit grid values differ at ${k}: ${engineOut[k]} vs ${other[k]}`);
-  const engineMs = best(engine);
-  const handMs = best(hand);
-  const genericMs = best(handGeneric);
+  const engineMs = bestMs(engine);
+  const handMs = bestMs(hand);
+  const genericMs = bestMs(handGeneric);
   return {
     surface: 'linear regression, 2 inputs, seed-pods',
     rows,

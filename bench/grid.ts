@@ -1,18 +1,8 @@
 import { axisPlane, compileFormula, sampleGrid } from '../src/engine';
 import { rosenbrock, ROSENBROCK } from './handwritten';
-import { sink } from './measure';
+import { bestMs, sink } from './measure';
 
 const SIDE = 256;
-
-function best(f: () => void, rounds = 7): number {
-  let ms = Infinity;
-  for (let r = 0; r < rounds; r++) {
-    const t0 = performance.now();
-    f();
-    ms = Math.min(ms, performance.now() - t0);
-  }
-  return ms;
-}
 
 /** A 256 x 256 grid of Rosenbrock through sampleGrid and the compiled formula, against a plain loop. */
 export function gridVsHandwritten() {
@@ -35,7 +25,7 @@ export function gridVsHandwritten() {
   hand();
   for (let k = 0; k < engineOut.length; k++)
     if (Math.abs(engineOut[k] - handOut[k]) > 1e-9 * (1 + handOut[k])) throw new Error(`bench: grid values differ at ${k}`);
-  const engineMs = best(engine);
-  const handMs = best(hand);
+  const engineMs = bestMs(engine);
+  const handMs = bestMs(hand);
   return { engineMs, handwrittenMs: handMs, ratio: handMs / engineMs };
 }
