@@ -1,6 +1,5 @@
 import type { Design } from './design';
-import { affineAt, affineFromOriginal, affineGroups, affineNames, affineToOriginal } from './linear-layout';
-import { penaltyMask, RowLossSurface } from './row-loss';
+import { addAffineRowTerms, affineAt, AffineModelSurface } from './affine-model';
 import type { RegressionLoss } from './spec';
 
 /**
@@ -9,7 +8,7 @@ import type { RegressionLoss } from './spec';
  * intercept). Exact derivatives, with x~_i = (1, x_i): gradient 2 scale sum_i r_i x~_i, Hessian
  * 2 scale sum_i x~_i x~_i^T (constant: the surface is a quadratic bowl).
  */
-export class LinearRegressionSurface extends RowLossSurface {
+export class LinearRegressionSurface extends AffineModelSurface {
   readonly model = 'linear' as const;
   readonly lossName: string;
 
@@ -18,7 +17,7 @@ export class LinearRegressionSurface extends RowLossSurface {
     readonly loss: RegressionLoss,
     l2: number,
   ) {
-    super(design, affineNames(design.inputs), affineGroups(design.p), loss === 'rss' ? 'sum' : 'mean', l2, penaltyMask(design.p + 1, [0]));
+    super(design, loss === 'rss' ? 'sum' : 'mean', l2);
     this.lossName = loss === 'rss' ? 'residual sum of squares' : 'mean squared error';
   }
 
@@ -58,7 +57,8 @@ export class LinearRegressionSurface extends RowLossSurface {
     return s;
   }
 
-  protected sumGradient(w: Float64Array, g: Float64Array, rows: Int32Array | null, count: number): number {
+  /** Slope 2 r_i and curvature 2 in f_i for every row. */
+  protected accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number {
     const { x, y, p } = this.design;
     let s = 0;
     for (let k = 0; k < count; k++) {
@@ -68,37 +68,9 @@ export class LinearRegressionSurface extends RowLossSurface {
       for (let j = 0; j < p; j++) f += w[j + 1] * x[o + j];
       const r = f - y[i];
       s += r * r;
-      const r2 = 2 * r;
-      g[0] += r2;
-      for (let j = 0; j < p; j++) g[j + 1] += r2 * x[o + j];
+      addAffineRowTerms(g, h, x, o, p, 2 * r, 2);
     }
     return s;
-  }
-
-  protected sumHessian(w: Float64Array, g: Float64Array, h: Float64Array, rows: Int32Array | null, count: number): number {
-    const s = this.sumGradient(w, g, rows, count);
-    const { x, p } = this.design;
-    const n = p + 1;
-    for (let k = 0; k < count; k++) {
-      const i = rows === null ? k : rows[k];
-      const o = i * p;
-      h[0] += 2;
-      for (let a = 0; a < p; a++) {
-        const xa = x[o + a];
-        h[a + 1] += 2 * xa;
-        for (let c = a; c < p; c++) h[(a + 1) * n + c + 1] += 2 * xa * x[o + c];
-      }
-    }
-    for (let a = 0; a < n; a++) for (let c = 0; c < a; c++) h[a * n + c] = h[c * n + a];
-    return s;
-  }
-
-  toOriginalUnits(params: ArrayLike<number>): number[] {
-    return affineToOriginal(this.design, params);
-  }
-
-  fromOriginalUnits(params: ArrayLike<number>): number[] {
-    return affineFromOriginal(this.design, params);
   }
 
   predict(params: ArrayLike<number>, inputRow: ArrayLike<number>): number {

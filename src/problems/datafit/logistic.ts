@@ -1,6 +1,5 @@
 import type { Design } from './design';
-import { affineAt, affineFromOriginal, affineGroups, affineNames, affineToOriginal } from './linear-layout';
-import { penaltyMask, RowLossSurface } from './row-loss';
+import { addAffineRowTerms, affineAt, AffineModelSurface } from './affine-model';
 import { sigmoid, softplus } from './stable';
 
 /**
@@ -11,12 +10,12 @@ import { sigmoid, softplus } from './stable';
  * On separable data the loss has no minimiser (it falls towards 0 as |w| grows); an L2 penalty gives
  * it one.
  */
-export class LogisticRegressionSurface extends RowLossSurface {
+export class LogisticRegressionSurface extends AffineModelSurface {
   readonly model = 'logistic' as const;
   readonly lossName = 'mean binary cross-entropy';
 
   constructor(design: Design, l2: number) {
-    super(design, affineNames(design.inputs), affineGroups(design.p), 'mean', l2, penaltyMask(design.p + 1, [0]));
+    super(design, 'mean', l2);
   }
 
   protected sumValue(w: Float64Array, rows: Int32Array | null, count: number): number {
@@ -32,17 +31,9 @@ export class LogisticRegressionSurface extends RowLossSurface {
     return s;
   }
 
-  protected sumGradient(w: Float64Array, g: Float64Array, rows: Int32Array | null, count: number): number {
-    return this.accumulate(w, g, null, rows, count);
-  }
-
-  protected sumHessian(w: Float64Array, g: Float64Array, h: Float64Array, rows: Int32Array | null, count: number): number {
-    return this.accumulate(w, g, h, rows, count);
-  }
-
-  private accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number {
+  /** Slope sigmoid(z_i) - y_i and curvature sigmoid(z_i) (1 - sigmoid(z_i)) in z_i for every row. */
+  protected accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number {
     const { x, y, p } = this.design;
-    const n = p + 1;
     let s = 0;
     for (let k = 0; k < count; k++) {
       const i = rows === null ? k : rows[k];
@@ -51,29 +42,9 @@ export class LogisticRegressionSurface extends RowLossSurface {
       for (let j = 0; j < p; j++) z += w[j + 1] * x[o + j];
       s += softplus(z) - y[i] * z;
       const q = sigmoid(z);
-      const d = q - y[i];
-      g[0] += d;
-      for (let j = 0; j < p; j++) g[j + 1] += d * x[o + j];
-      if (h) {
-        const c = q * (1 - q);
-        h[0] += c;
-        for (let a = 0; a < p; a++) {
-          const cx = c * x[o + a];
-          h[a + 1] += cx;
-          for (let b = a; b < p; b++) h[(a + 1) * n + b + 1] += cx * x[o + b];
-        }
-      }
+      addAffineRowTerms(g, h, x, o, p, q - y[i], q * (1 - q));
     }
-    if (h) for (let a = 0; a < n; a++) for (let b = 0; b < a; b++) h[a * n + b] = h[b * n + a];
     return s;
-  }
-
-  toOriginalUnits(params: ArrayLike<number>): number[] {
-    return affineToOriginal(this.design, params);
-  }
-
-  fromOriginalUnits(params: ArrayLike<number>): number[] {
-    return affineFromOriginal(this.design, params);
   }
 
   /** P(y = 1) for one row of raw inputs. */

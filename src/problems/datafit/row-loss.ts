@@ -130,6 +130,26 @@ export abstract class RowLossSurface implements DataFitSurface {
   }
 }
 
+/**
+ * A row loss whose gradient and Hessian sums come from one loop over the rows (linear, logistic and
+ * softmax regression). `accumulate` adds sum_i grad l_i into g and, when h is given, sum_i Hessian l_i
+ * into the upper triangle of h only (row <= column); sumHessian then mirrors it onto the lower one.
+ */
+export abstract class OnePassRowLossSurface extends RowLossSurface {
+  protected abstract accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number;
+
+  protected sumGradient(w: Float64Array, g: Float64Array, rows: Int32Array | null, count: number): number {
+    return this.accumulate(w, g, null, rows, count);
+  }
+
+  protected sumHessian(w: Float64Array, g: Float64Array, h: Float64Array, rows: Int32Array | null, count: number): number {
+    const s = this.accumulate(w, g, h, rows, count);
+    const n = this.dimension;
+    for (let a = 0; a < n; a++) for (let b = 0; b < a; b++) h[a * n + b] = h[b * n + a];
+    return s;
+  }
+}
+
 /** A penalty mask from the indices that are not penalised (intercepts and biases). */
 export function penaltyMask(dimension: number, unpenalised: readonly number[]): Uint8Array {
   const mask = new Uint8Array(dimension).fill(1);

@@ -1,7 +1,7 @@
 import type { ParameterGroup } from '../../engine';
 import type { Design } from './design';
-import { affineAt } from './linear-layout';
-import { penaltyMask, RowLossSurface } from './row-loss';
+import { affineAt } from './affine-model';
+import { OnePassRowLossSurface, penaltyMask } from './row-loss';
 import { logSumExp, logSumExpSoftmax } from './stable';
 import { unitToOriginal, unitToStandardised } from './units';
 
@@ -18,7 +18,7 @@ import { unitToOriginal, unitToStandardised } from './units';
  * along it (Newton falls back or needs the penalty). Groups: each class's weight vector, and the
  * intercepts together.
  */
-export class SoftmaxRegressionSurface extends RowLossSurface {
+export class SoftmaxRegressionSurface extends OnePassRowLossSurface {
   readonly model = 'softmax' as const;
   readonly lossName = 'mean cross-entropy';
   readonly classes: number;
@@ -69,15 +69,7 @@ export class SoftmaxRegressionSurface extends RowLossSurface {
     return s;
   }
 
-  protected sumGradient(w: Float64Array, g: Float64Array, rows: Int32Array | null, count: number): number {
-    return this.accumulate(w, g, null, rows, count);
-  }
-
-  protected sumHessian(w: Float64Array, g: Float64Array, h: Float64Array, rows: Int32Array | null, count: number): number {
-    return this.accumulate(w, g, h, rows, count);
-  }
-
-  private accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number {
+  protected accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number {
     const { x, y, p } = this.design;
     const q = p + 1;
     const K = this.classes;
@@ -109,7 +101,6 @@ export class SoftmaxRegressionSurface extends RowLossSurface {
         }
       }
     }
-    if (h) for (let r = 0; r < n; r++) for (let c = 0; c < r; c++) h[r * n + c] = h[c * n + r];
     return s;
   }
 
