@@ -101,6 +101,13 @@ function describeNames(label: string, names: readonly string[]): string {
   return names.length > 0 ? `${label}: ${names.join(', ')}` : `no ${label}`;
 }
 
+/** The names a formula may use, for error messages: each role, then the constants when there are any. */
+function describeRoles(roles: readonly [label: string, names: readonly string[]][], constantNames: readonly string[]): string {
+  const parts = roles.map(([label, names]) => describeNames(label, names));
+  if (constantNames.length > 0) parts.push(describeNames('constants', constantNames));
+  return parts.join('; ');
+}
+
 /** Everything compiled about one formula, before binding constant values. */
 export interface Program<K> {
   readonly text: string;
@@ -163,7 +170,7 @@ export function formulaProgram(text: string, options: FormulaOptions = {}): { pr
   checkNames('variable', variables, errors);
   overlap(variables, constants.names, (name) => `'${name}' is both a variable and a constant`, errors);
   if (errors.length > 0) throw new FormulaSyntaxError(errors);
-  const describe = [describeNames('variables', variables), ...(constants.names.length ? [describeNames('constants', constants.names)] : [])].join('; ');
+  const describe = describeRoles([['variables', variables]], constants.names);
   const program = buildProgram<SurfaceKernels>(text, ast, { differentiated: [...variables], inputs: [], constants }, 'surface', describe);
   return { program, constants: constants.values };
 }
@@ -179,11 +186,7 @@ export function modelProgram(text: string, options: ModelOptions): { program: Pr
   overlap(options.parameters, constants.names, (name) => `'${name}' is both a parameter and a constant`, errors);
   overlap(options.inputs, constants.names, (name) => `'${name}' is both an input and a constant`, errors);
   if (errors.length > 0) throw new FormulaSyntaxError(errors);
-  const describe = [
-    describeNames('parameters', options.parameters),
-    describeNames('inputs', options.inputs),
-    ...(constants.names.length ? [describeNames('constants', constants.names)] : []),
-  ].join('; ');
+  const describe = describeRoles([['parameters', options.parameters], ['inputs', options.inputs]], constants.names);
   const roles = { differentiated: [...options.parameters], inputs: [...options.inputs], constants };
   const program = buildProgram<ModelKernels>(text, ast, roles, 'model', describe);
   return { program, constants: constants.values };
@@ -210,23 +213,24 @@ function constantRecord(names: readonly string[], values: Float64Array): Readonl
   return Object.freeze(record);
 }
 
-class CompiledFormulaSurface implements FormulaSurface {
-  readonly dimension: number;
-  readonly variables: readonly string[];
+/**
+ * What a compiled surface and a compiled model share: the text, the tree, the bound constants and
+ * the three kernels of one program instantiated with them (own properties, so a call reaches the
+ * generated function directly).
+ */
+abstract class BoundProgram<K extends SurfaceKernels | ModelKernels> {
   readonly text: string;
   readonly ast: Expr;
   readonly constants: Readonly<Record<string, number>>;
-  readonly value: SurfaceKernels['value'];
-  readonly valueGradient: SurfaceKernels['valueGradient'];
-  readonly valueGradientHessian: SurfaceKernels['valueGradientHessian'];
+  readonly value: K['value'];
+  readonly valueGradient: K['valueGradient'];
+  readonly valueGradientHessian: K['valueGradientHessian'];
 
   constructor(
-    private readonly program: Program<SurfaceKernels>,
+    protected readonly program: Program<K>,
     private readonly constantValues: Float64Array,
   ) {
     const kernels = program.instantiate(constantValues);
-    this.dimension = program.differentiated.length;
-    this.variables = Object.freeze([...program.differentiated]);
     this.text = program.text;
     this.ast = program.ast;
     this.constants = constantRecord(program.constantNames, constantValues);
@@ -235,38 +239,39 @@ class CompiledFormulaSurface implements FormulaSurface {
     this.valueGradientHessian = kernels.valueGradientHessian;
   }
 
-  withConstants(values: Readonly<Record<string, number>>): FormulaSurface {
-    return new CompiledFormulaSurface(this.program, mergeConstants(this.program.constantNames, this.constantValues, values));
+  /** This program's constant values with `values` merged over them, checked. */
+  protected mergedConstants(values: Readonly<Record<string, number>>): Float64Array {
+    return mergeConstants(this.program.constantNames, this.constantValues, values);
   }
 }
 
-class CompiledFormulaModel implements CompiledModel {
-  readonly text: string;
-  readonly ast: Expr;
+class CompiledFormulaSurface extends BoundProgram<SurfaceKernels> implements FormulaSurface {
+  readonly dimension: number;
+  readonly variables: readonly string[];
+
+  constructor(program: Program<SurfaceKernels>, constantValues: Float64Array) {
+    super(program, constantValues);
+    this.dimension = program.differentiated.length;
+    this.variables = Object.freeze([...program.differentiated]);
+  }
+
+  withConstants(values: Readonly<Record<string, number>>): FormulaSurface {
+    return new CompiledFormulaSurface(this.program, this.mergedConstants(values));
+  }
+}
+
+class CompiledFormulaModel extends BoundProgram<ModelKernels> implements CompiledModel {
   readonly parameters: readonly string[];
   readonly inputs: readonly string[];
-  readonly constants: Readonly<Record<string, number>>;
-  readonly value: ModelKernels['value'];
-  readonly valueGradient: ModelKernels['valueGradient'];
-  readonly valueGradientHessian: ModelKernels['valueGradientHessian'];
 
-  constructor(
-    private readonly program: Program<ModelKernels>,
-    private readonly constantValues: Float64Array,
-  ) {
-    const kernels = program.instantiate(constantValues);
-    this.text = program.text;
-    this.ast = program.ast;
+  constructor(program: Program<ModelKernels>, constantValues: Float64Array) {
+    super(program, constantValues);
     this.parameters = Object.freeze([...program.differentiated]);
     this.inputs = Object.freeze([...program.inputs]);
-    this.constants = constantRecord(program.constantNames, constantValues);
-    this.value = kernels.value;
-    this.valueGradient = kernels.valueGradient;
-    this.valueGradientHessian = kernels.valueGradientHessian;
   }
 
   withConstants(values: Readonly<Record<string, number>>): CompiledModel {
-    return new CompiledFormulaModel(this.program, mergeConstants(this.program.constantNames, this.constantValues, values));
+    return new CompiledFormulaModel(this.program, this.mergedConstants(values));
   }
 }
 
