@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { RunCursor, concatBatches, type Optimizer, type Surface } from '../../../src/engine';
+import { RunCursor, concatBatches, type Surface } from '../../../src/engine';
+import { plainDescent } from './optimizers';
 
 /** f = x^2 + 10 y^2: the quadratic of the reference worked examples. */
 const bowl: Surface = {
@@ -16,18 +17,6 @@ const bowl: Surface = {
     return this.valueGradient(p, g);
   },
 };
-
-/** Plain descent written out here so the run loop is tested apart from the optimizer library. */
-function plainDescent(lr: number): Optimizer<null> {
-  return {
-    label: 'test descent',
-    init: () => null,
-    step(x, g) {
-      for (let i = 0; i < x.length; i++) x[i] -= lr * g[i];
-      return { learningRate: lr, extraEvaluations: 0 };
-    },
-  };
-}
 
 describe('RunCursor', () => {
   it('records step 0 then each step; GD lr=0.05 from (1,1) gives the worked-example iterates', () => {

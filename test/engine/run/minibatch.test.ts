@@ -12,6 +12,7 @@ import {
   type RowwiseSurface,
   type Surface,
 } from '../../../src/engine';
+import { plainDescent } from './optimizers';
 
 /**
  * A hand-written row-wise surface: the mean squared error of the line y = w0 + w1 t over five rows,
@@ -72,17 +73,6 @@ function recorder(): Optimizer<null> & { seen: { loss: number; grad: number[] }[
     step(_x, g, _s, ctx) {
       seen.push({ loss: ctx.loss, grad: Array.from(g) });
       return { learningRate: 0, extraEvaluations: 0 };
-    },
-  };
-}
-
-function plainDescent(lr: number): Optimizer<null> {
-  return {
-    label: 'test descent',
-    init: () => null,
-    step(x, g) {
-      for (let i = 0; i < x.length; i++) x[i] -= lr * g[i];
-      return { learningRate: lr, extraEvaluations: 0 };
     },
   };
 }
