@@ -11,13 +11,19 @@ import { quadratic, rosenbrock, rotatedDiagonal } from './surfaces';
  * published table); adaptive methods get a cosine schedule so their constant-rate jitter dies down.
  */
 const valley = quadratic(rotatedDiagonal(1, 25, 0.4), [1, 1]);
-const cosine = (horizon: number) => ({ kind: 'cosine' as const, horizon });
 
 interface Case {
   spec: OptimizerSpec;
   maxSteps: number;
   tolerance: number;
 }
+
+/** A case whose cosine schedule spans the step budget, so the rate has decayed to 0 by the last step. */
+const withCosine = (spec: OptimizerSpec, maxSteps: number, tolerance: number): Case => ({
+  spec: { ...spec, schedule: { kind: 'cosine', horizon: maxSteps } },
+  maxSteps,
+  tolerance,
+});
 
 const table: { name: string; quadratic: Case; rosenbrock: Case }[] = [
   {
@@ -49,28 +55,28 @@ const table: { name: string; quadratic: Case; rosenbrock: Case }[] = [
   },
   {
     name: 'rmsprop',
-    quadratic: { spec: { kind: 'rmsprop', learningRate: 0.01, schedule: cosine(3000) }, maxSteps: 3000, tolerance: 1e-4 },
-    rosenbrock: { spec: { kind: 'rmsprop', learningRate: 0.001, schedule: cosine(20000) }, maxSteps: 20000, tolerance: 1e-2 },
+    quadratic: withCosine({ kind: 'rmsprop', learningRate: 0.01 }, 3000, 1e-4),
+    rosenbrock: withCosine({ kind: 'rmsprop', learningRate: 0.001 }, 20000, 1e-2),
   },
   {
     name: 'adam',
-    quadratic: { spec: { kind: 'adam', learningRate: 0.05, schedule: cosine(3000) }, maxSteps: 3000, tolerance: 1e-4 },
-    rosenbrock: { spec: { kind: 'adam', learningRate: 0.02, schedule: cosine(10000) }, maxSteps: 10000, tolerance: 1e-3 },
+    quadratic: withCosine({ kind: 'adam', learningRate: 0.05 }, 3000, 1e-4),
+    rosenbrock: withCosine({ kind: 'adam', learningRate: 0.02 }, 10000, 1e-3),
   },
   {
     name: 'adamw',
-    quadratic: { spec: { kind: 'adamw', learningRate: 0.05, weightDecay: 0, schedule: cosine(3000) }, maxSteps: 3000, tolerance: 1e-4 },
-    rosenbrock: { spec: { kind: 'adamw', learningRate: 0.02, weightDecay: 0, schedule: cosine(10000) }, maxSteps: 10000, tolerance: 1e-3 },
+    quadratic: withCosine({ kind: 'adamw', learningRate: 0.05, weightDecay: 0 }, 3000, 1e-4),
+    rosenbrock: withCosine({ kind: 'adamw', learningRate: 0.02, weightDecay: 0 }, 10000, 1e-3),
   },
   {
     name: 'amsgrad',
-    quadratic: { spec: { kind: 'amsgrad', learningRate: 0.05, schedule: cosine(3000) }, maxSteps: 3000, tolerance: 1e-4 },
-    rosenbrock: { spec: { kind: 'amsgrad', learningRate: 0.05, schedule: cosine(20000) }, maxSteps: 20000, tolerance: 1e-3 },
+    quadratic: withCosine({ kind: 'amsgrad', learningRate: 0.05 }, 3000, 1e-4),
+    rosenbrock: withCosine({ kind: 'amsgrad', learningRate: 0.05 }, 20000, 1e-3),
   },
   {
     name: 'nadam',
-    quadratic: { spec: { kind: 'nadam', learningRate: 0.05, schedule: cosine(3000) }, maxSteps: 3000, tolerance: 1e-4 },
-    rosenbrock: { spec: { kind: 'nadam', learningRate: 0.02, schedule: cosine(10000) }, maxSteps: 10000, tolerance: 1e-3 },
+    quadratic: withCosine({ kind: 'nadam', learningRate: 0.05 }, 3000, 1e-4),
+    rosenbrock: withCosine({ kind: 'nadam', learningRate: 0.02 }, 10000, 1e-3),
   },
   {
     name: 'lbfgs',
