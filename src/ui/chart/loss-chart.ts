@@ -1,5 +1,5 @@
 import { scaleLinear, scaleLog } from 'd3';
-import { canvasFont, drawMarker, formatValue, niceTicks, PLOT_STYLE, type DrawingContext, type PixelSize, type RunStyle } from '../plot';
+import { beginChart, canvasFont, drawMarker, drawVerticalTitle, formatValue, niceTicks, PLOT_STYLE, strokeChartFrame, type DrawingContext, type PixelSize, type RunStyle } from '../plot';
 
 export interface LossSeries {
   loss: Float64Array;
@@ -33,12 +33,7 @@ export const CHART_MARGIN = { left: 70, right: 24, top: 10, bottom: 40 } as cons
 
 /** Draws every run's loss against step. */
 export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: readonly LossSeries[], axis: LossAxis): void {
-  const w = size.width - CHART_MARGIN.left - CHART_MARGIN.right;
-  const h = size.height - CHART_MARGIN.top - CHART_MARGIN.bottom;
-  ctx.save();
-  ctx.fillStyle = '#ffffff';
-  ctx.fillRect(0, 0, size.width, size.height);
-  ctx.translate(CHART_MARGIN.left, CHART_MARGIN.top);
+  const { w, h } = beginChart(ctx, size, CHART_MARGIN);
   let maxStep = 1;
   let lo = Infinity;
   let hi = -Infinity;
@@ -83,17 +78,9 @@ export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: read
     ctx.stroke();
     ctx.fillText(t.label, px, h + 6);
   }
-  ctx.strokeStyle = PLOT_STYLE.frameColour;
-  ctx.beginPath();
-  ctx.rect(0, 0, w, h);
-  ctx.stroke();
+  strokeChartFrame(ctx, w, h);
   ctx.fillText('step', w / 2, h + 22);
-  ctx.save();
-  ctx.translate(-CHART_MARGIN.left + 14, h / 2);
-  ctx.rotate(-Math.PI / 2);
-  ctx.textBaseline = 'middle';
-  ctx.fillText(axis.kind === 'gap' ? 'loss − minimum' : 'loss', 0, 0);
-  ctx.restore();
+  drawVerticalTitle(ctx, axis.kind === 'gap' ? 'loss − minimum' : 'loss', -CHART_MARGIN.left + 14, h);
 
   // Series, clipped to the frame.
   ctx.beginPath();

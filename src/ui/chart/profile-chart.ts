@@ -1,32 +1,17 @@
 import { scaleLinear } from 'd3';
-import { canvasFont, niceTicks, PLOT_STYLE, type DrawingContext, type PixelSize } from '../plot';
+import { beginChart, canvasFont, finiteExtent, niceTicks, PLOT_STYLE, strokeChartFrame, type DrawingContext, type PixelSize } from '../plot';
 
 const M = { left: 60, right: 12, top: 10, bottom: 36 };
 
 /** The loss along the segment, alpha on the horizontal axis; dashed lines at alpha = 0 and 1 (the two end points). */
 export function drawProfile(ctx: DrawingContext, size: PixelSize, alphas: Float64Array, values: Float64Array): void {
-  const w = size.width - M.left - M.right;
-  const h = size.height - M.top - M.bottom;
-  ctx.save();
-  ctx.fillStyle = '#ffffff';
-  ctx.fillRect(0, 0, size.width, size.height);
-  ctx.translate(M.left, M.top);
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (const v of values)
-    if (Number.isFinite(v)) {
-      lo = Math.min(lo, v);
-      hi = Math.max(hi, v);
-    }
+  const { w, h } = beginChart(ctx, size, M);
+  let [lo, hi] = finiteExtent(values);
   if (!(hi > lo)) [lo, hi] = [lo - 1, lo + 1];
   const ar: [number, number] = [alphas[0], alphas[alphas.length - 1]];
   const x = scaleLinear().domain(ar).range([0, w]);
   const y = scaleLinear().domain([lo, hi]).range([h, 0]).nice();
-  ctx.strokeStyle = PLOT_STYLE.frameColour;
-  ctx.lineWidth = 1;
-  ctx.beginPath();
-  ctx.rect(0, 0, w, h);
-  ctx.stroke();
+  strokeChartFrame(ctx, w, h);
   ctx.setLineDash([4, 4]);
   ctx.strokeStyle = '#888888';
   ctx.beginPath();

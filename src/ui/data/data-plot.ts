@@ -1,6 +1,6 @@
 import { scaleLinear } from 'd3';
 import type { DataTable, ModelSpec } from '../../problems';
-import { canvasFont, drawMarker, MARKER_SHAPES, niceTicks, PLOT_STYLE, RUN_COLOURS, type DrawingContext, type PixelSize } from '../plot';
+import { beginChart, canvasFont, drawMarker, drawVerticalTitle, finiteExtent, MARKER_SHAPES, niceTicks, PLOT_STYLE, RUN_COLOURS, strokeChartFrame, type DrawingContext, type PixelSize } from '../plot';
 
 export type Task = 'regression' | 'binary' | 'multiclass';
 
@@ -34,13 +34,9 @@ function column(table: DataTable, name: string): Float64Array {
   return out;
 }
 
+/** The range of a column (finite, as every table is), widened by `pad` of its width on each side. */
 function extent(v: Float64Array, pad = 0.05): [number, number] {
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (const x of v) {
-    if (x < lo) lo = x;
-    if (x > hi) hi = x;
-  }
+  let [lo, hi] = finiteExtent(v);
   if (!(hi > lo)) [lo, hi] = [lo - 1, hi + 1];
   const d = (hi - lo) * pad;
   return [lo - d, hi + d];
@@ -52,12 +48,7 @@ function extent(v: Float64Array, pad = 0.05): [number, number] {
  * inputs (others held at their means) under the points, coloured and shaped by class.
  */
 export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataScene): string {
-  const w = size.width - MARGIN.left - MARGIN.right;
-  const h = size.height - MARGIN.top - MARGIN.bottom;
-  ctx.save();
-  ctx.fillStyle = '#ffffff';
-  ctx.fillRect(0, 0, size.width, size.height);
-  ctx.translate(MARGIN.left, MARGIN.top);
+  const { w, h } = beginChart(ctx, size, MARGIN);
   const { table, inputs, target, task, predict } = scene;
   const y = column(table, target);
   let caption: string;
@@ -72,7 +63,7 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
     [xTitle, yTitle] = [inputs[0], target];
     const sx = scaleLinear().domain(xr).range([0, w]);
     const sy = scaleLinear().domain(yr).range([h, 0]);
-    axes(ctx, w, h);
+    strokeChartFrame(ctx, w, h);
     for (let i = 0; i < table.rows; i++) drawMarker(ctx, 'circle', { px: sx(x[i]), py: sy(y[i]) }, 5, { fill: '#56B4E9', outline: '#1b4965', outlineWidth: 0.75 });
     if (predict) {
       ctx.beginPath();
@@ -103,7 +94,7 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
     [xTitle, yTitle] = [`observed ${target}`, `predicted ${target}`];
     const sx = scaleLinear().domain(xr).range([0, w]);
     const sy = scaleLinear().domain(yr).range([h, 0]);
-    axes(ctx, w, h);
+    strokeChartFrame(ctx, w, h);
     ctx.beginPath();
     ctx.moveTo(sx(xr[0]), sy(xr[0]));
     ctx.lineTo(sx(xr[1]), sy(xr[1]));
@@ -122,7 +113,7 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
     const sx = scaleLinear().domain(xr).range([0, w]);
     const sy = scaleLinear().domain(yr).range([h, 0]);
     if (predict && inputs.length > 1) regions(ctx, w, h, xr, yr, scene, predict);
-    axes(ctx, w, h);
+    strokeChartFrame(ctx, w, h);
     for (let i = 0; i < table.rows; i++) {
       const k = Math.round(y[i]);
       drawMarker(ctx, MARKER_SHAPES[k % MARKER_SHAPES.length], { px: sx(a[i]), py: sy(b[i]) }, 6, { fill: CLASS_COLOURS[k % CLASS_COLOURS.length], outline: '#222222', outlineWidth: 0.6 });
@@ -138,22 +129,9 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
   ctx.textBaseline = 'top';
   ticks(ctx, w, h, xr, yr);
   ctx.fillText(xTitle, w / 2, h + 24);
-  ctx.save();
-  ctx.translate(-MARGIN.left + 10, h / 2);
-  ctx.rotate(-Math.PI / 2);
-  ctx.textBaseline = 'middle';
-  ctx.fillText(yTitle, 0, 0);
-  ctx.restore();
+  drawVerticalTitle(ctx, yTitle, -MARGIN.left + 10, h);
   ctx.restore();
   return caption;
-}
-
-function axes(ctx: DrawingContext, w: number, h: number): void {
-  ctx.strokeStyle = PLOT_STYLE.frameColour;
-  ctx.lineWidth = 1;
-  ctx.beginPath();
-  ctx.rect(0, 0, w, h);
-  ctx.stroke();
 }
 
 function ticks(ctx: DrawingContext, w: number, h: number, xr: [number, number], yr: [number, number]): void {

@@ -11,3 +11,4 @@ export * from './axes';
 export * from './arrows';
 export * from './trajectory';
 export * from './svg';
+export * from './chart-frame';
