@@ -3,11 +3,15 @@ import { OnePassRowLossSurface, penaltyMask } from './row-loss';
 import { unitToOriginal, unitToStandardised } from './units';
 
 /**
- * An affine model with one output (linear and logistic regression): z_i = b + w . x_i. Layout
- * [intercept, w_<input 1>, ..., w_<input p>]; the weights are penalised, the intercept is not. Groups:
- * the weight vector (one filter) and the intercept. With x~_i = (1, x_i), a row whose loss has slope
- * d_i and curvature c_i in z_i adds d_i x~_i to the gradient and c_i x~_i x~_i^T to the Hessian
- * (addAffineRowTerms).
+ * An affine model with one output (linear and logistic regression): z_i = b + w . x_i and a per-row
+ * loss l(z_i, y_i). Layout [intercept, w_<input 1>, ..., w_<input p>]; the weights are penalised, the
+ * intercept is not. Groups: the weight vector (one filter) and the intercept. By the chain rule, with
+ * x~_i = (1, x_i), a row adds l'(z_i) x~_i to the gradient and l''(z_i) x~_i x~_i^T to the Hessian.
+ *
+ * Each model writes its row loops out in full (the value sum, and the gradient with the optional
+ * Hessian): they are the heavy path of grid slices and data-fit runs. A shared loop calling back into
+ * the model per row measured 1.3x to 1.6x slower on the two-input linear gradient, and a shared helper
+ * for the x~ x~^T term 1.1x to 1.6x slower on the Hessians (node 20, 1,000 rows).
  */
 export abstract class AffineModelSurface extends OnePassRowLossSurface {
   constructor(design: Design, normalisation: 'sum' | 'mean', l2: number) {
@@ -36,23 +40,6 @@ export abstract class AffineModelSurface extends OnePassRowLossSurface {
     const out = Array.from(params);
     if (this.design.standardised) unitToStandardised(out, 1, 0, this.design.means, this.design.sds);
     return out;
-  }
-}
-
-/**
- * Adds one row's terms to an affine model's sums: d x~ into g and, when h is given, c x~ x~^T into the
- * upper triangle of h (n = p + 1, row-major), where x~ = (1, x[o..o+p)).
- */
-export function addAffineRowTerms(g: Float64Array, h: Float64Array | null, x: Float64Array, o: number, p: number, d: number, c: number): void {
-  g[0] += d;
-  for (let j = 0; j < p; j++) g[j + 1] += d * x[o + j];
-  if (h === null) return;
-  const n = p + 1;
-  h[0] += c;
-  for (let a = 0; a < p; a++) {
-    const cx = c * x[o + a];
-    h[a + 1] += cx;
-    for (let b = a; b < p; b++) h[(a + 1) * n + b + 1] += cx * x[o + b];
   }
 }
 

@@ -1,5 +1,5 @@
 import type { Design } from './design';
-import { addAffineRowTerms, affineAt, AffineModelSurface } from './affine-model';
+import { affineAt, AffineModelSurface } from './affine-model';
 import type { RegressionLoss } from './spec';
 
 /**
@@ -57,7 +57,7 @@ export class LinearRegressionSurface extends AffineModelSurface {
     return s;
   }
 
-  /** Slope 2 r_i and curvature 2 in f_i for every row. */
+  /** Per row: l' = 2 r in f, l'' = 2. The Hessian, constant, in a second pass so the gradient loop stays lean. */
   protected accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number {
     const { x, y, p } = this.design;
     let s = 0;
@@ -68,7 +68,21 @@ export class LinearRegressionSurface extends AffineModelSurface {
       for (let j = 0; j < p; j++) f += w[j + 1] * x[o + j];
       const r = f - y[i];
       s += r * r;
-      addAffineRowTerms(g, h, x, o, p, 2 * r, 2);
+      const r2 = 2 * r;
+      g[0] += r2;
+      for (let j = 0; j < p; j++) g[j + 1] += r2 * x[o + j];
+    }
+    if (h === null) return s;
+    const n = p + 1;
+    for (let k = 0; k < count; k++) {
+      const i = rows === null ? k : rows[k];
+      const o = i * p;
+      h[0] += 2;
+      for (let a = 0; a < p; a++) {
+        const xa = x[o + a];
+        h[a + 1] += 2 * xa;
+        for (let c = a; c < p; c++) h[(a + 1) * n + c + 1] += 2 * xa * x[o + c];
+      }
     }
     return s;
   }

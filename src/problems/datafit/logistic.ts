@@ -1,5 +1,5 @@
 import type { Design } from './design';
-import { addAffineRowTerms, affineAt, AffineModelSurface } from './affine-model';
+import { affineAt, AffineModelSurface } from './affine-model';
 import { sigmoid, softplus } from './stable';
 
 /**
@@ -31,7 +31,7 @@ export class LogisticRegressionSurface extends AffineModelSurface {
     return s;
   }
 
-  /** Slope sigmoid(z_i) - y_i and curvature sigmoid(z_i) (1 - sigmoid(z_i)) in z_i for every row. */
+  /** Per row: l' = sigmoid(z) - y, l'' = sigmoid(z) (1 - sigmoid(z)). */
   protected accumulate(w: Float64Array, g: Float64Array, h: Float64Array | null, rows: Int32Array | null, count: number): number {
     const { x, y, p } = this.design;
     let s = 0;
@@ -42,7 +42,19 @@ export class LogisticRegressionSurface extends AffineModelSurface {
       for (let j = 0; j < p; j++) z += w[j + 1] * x[o + j];
       s += softplus(z) - y[i] * z;
       const q = sigmoid(z);
-      addAffineRowTerms(g, h, x, o, p, q - y[i], q * (1 - q));
+      const d = q - y[i];
+      g[0] += d;
+      for (let j = 0; j < p; j++) g[j + 1] += d * x[o + j];
+      if (h !== null) {
+        const c = q * (1 - q);
+        const n = p + 1;
+        h[0] += c;
+        for (let a = 0; a < p; a++) {
+          const cx = c * x[o + a];
+          h[a + 1] += cx;
+          for (let b = a; b < p; b++) h[(a + 1) * n + b + 1] += cx * x[o + b];
+        }
+      }
     }
     return s;
   }
