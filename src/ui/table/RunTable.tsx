@@ -40,9 +40,9 @@ export function RunTable() {
               <th scope="col">Steps</th>
               <th scope="col">Final loss</th>
               <th scope="col">Final point</th>
-              <th scope="col">Nearest known minimum</th>
-              <th scope="col">Steps to minimum ± tolerance</th>
-              <th scope="col">Evaluations</th>
+              <th scope="col">Nearest known min.</th>
+              <th scope="col" title="First step whose loss came within the tolerance of the lowest known minimum">Steps to min. ± tol.</th>
+              <th scope="col" title="Surface evaluations, line searches included">Evals</th>
             </tr>
           </thead>
           <tbody>
