@@ -17,30 +17,33 @@ const SLICE_MS = 8;
 const done = new WeakMap<Float64Array, Map<string, SurfacePicture>>();
 const pending = new WeakMap<Float64Array, Map<string, Promise<SurfacePicture>>>();
 
-function keyOf(display: DisplaySettings, logOffset: number | undefined): string {
-  return `${display.scale}|${display.levels}|${display.colourMap}|${logOffset ?? ''}`;
+function keyOf(display: DisplaySettings, knownMinimum: number | undefined): string {
+  return `${display.scale}|${display.levels}|${display.colourMap}|${knownMinimum ?? ''}`;
 }
 
 /** The picture if it has been computed already. */
-export function cachedPicture(grid: GridState, display: DisplaySettings, logOffset?: number): SurfacePicture | null {
-  return (grid.values && done.get(grid.values)?.get(keyOf(display, logOffset))) ?? null;
+export function cachedPicture(grid: GridState, display: DisplaySettings, knownMinimum?: number): SurfacePicture | null {
+  return (grid.values && done.get(grid.values)?.get(keyOf(display, knownMinimum))) ?? null;
 }
 
 /**
  * Contours and legend for a grid, computed one level at a time in short slices (d3-contour on a 256 x 256
  * grid with two dozen levels takes tens of milliseconds, which would freeze a frame if done at once).
  */
-export function buildPicture(grid: GridState, display: DisplaySettings, logOffset?: number): Promise<SurfacePicture> | null {
+export function buildPicture(grid: GridState, display: DisplaySettings, knownMinimum?: number): Promise<SurfacePicture> | null {
   const values = grid.values;
   const req = grid.request;
   if (!values || !req) return null;
-  const key = keyOf(display, logOffset);
+  const key = keyOf(display, knownMinimum);
   const ready = done.get(values)?.get(key);
   if (ready) return Promise.resolve(ready);
   const inFlight = pending.get(values)?.get(key);
   if (inFlight) return inFlight;
   const spec: GridSpec = { a: req.a, b: req.b, nx: req.nx, ny: req.ny };
-  const scale = valueScale(grid.min, grid.max, display.scale, display.scale === 'log' ? logOffset : undefined);
+  // A log scale measures the loss above the surface's known minimum where there is one (the value may
+  // be negative, as for the six-hump camel), else above the grid's lowest value.
+  const low = display.scale === 'log' && knownMinimum !== undefined ? Math.min(grid.min, knownMinimum) : grid.min;
+  const scale = valueScale(low, grid.max, display.scale);
   const thresholds = thresholdsFor(scale, display.levels);
   const transformed = values.map(scale.transform);
   const identity = (v: number) => v;
@@ -72,16 +75,16 @@ export function buildPicture(grid: GridState, display: DisplaySettings, logOffse
 }
 
 /** The newest finished picture for the current grid and display; the previous one while a new one is built. */
-export function useSurfacePicture(grid: GridState, display: DisplaySettings, logOffset?: number): SurfacePicture | null {
-  const [picture, setPicture] = useState<SurfacePicture | null>(() => cachedPicture(grid, display, logOffset));
+export function useSurfacePicture(grid: GridState, display: DisplaySettings, knownMinimum?: number): SurfacePicture | null {
+  const [picture, setPicture] = useState<SurfacePicture | null>(() => cachedPicture(grid, display, knownMinimum));
   useEffect(() => {
     let live = true;
-    const ready = cachedPicture(grid, display, logOffset);
+    const ready = cachedPicture(grid, display, knownMinimum);
     if (ready) setPicture(ready);
-    else buildPicture(grid, display, logOffset)?.then((p) => live && setPicture(p));
+    else buildPicture(grid, display, knownMinimum)?.then((p) => live && setPicture(p));
     return () => {
       live = false;
     };
-  }, [grid, display, logOffset]);
+  }, [grid, display, knownMinimum]);
   return picture;
 }

@@ -1,0 +1,42 @@
+import { expect, test, type Page } from '@playwright/test';
+import { openFresh, waitForContours } from './helpers';
+
+/** Collects page errors and console errors, to assert that nothing went wrong behind a working screen. */
+function watchErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  page.on('console', (m) => m.type() === 'error' && errors.push(m.text()));
+  return errors;
+}
+
+test.describe('a practitioner trying things', () => {
+  test('every catalogue surface draws its contours (negative minima included)', async ({ page }) => {
+    const errors = watchErrors(page);
+    await openFresh(page);
+    const entry = page.getByLabel('Catalogue entry');
+    for (const label of await entry.locator('option').allTextContents()) {
+      await entry.selectOption({ label });
+      await expect(page.getByTestId('surface-name')).toHaveText(label);
+      await waitForContours(page);
+      await expect(page.locator('.panel-failed'), label).toHaveCount(0);
+    }
+    expect(errors).toEqual([]);
+  });
+
+  test('a formula in one variable is refused with a message and the map stays', async ({ page }) => {
+    const errors = watchErrors(page);
+    await openFresh(page);
+    await page.getByLabel('Your formula').check();
+    await page.getByLabel('Formula', { exact: true }).fill('x^2');
+    await page.getByRole('button', { name: 'Use this formula' }).click();
+    await expect(page.getByRole('alert').filter({ hasText: 'the map needs two or more variables' })).toContainText('this surface has 1 (x)');
+    await expect(page.getByTestId('surface-name')).toHaveText('Rosenbrock');
+    await expect(page.locator('.panel-failed')).toHaveCount(0);
+    // Naming a second variable draws it.
+    await page.getByLabel('Variable order (optional)').fill('x, y');
+    await page.getByRole('button', { name: 'Use this formula' }).click();
+    await expect(page.getByTestId('surface-name')).toHaveText('x^2');
+    await waitForContours(page);
+    expect(errors).toEqual([]);
+  });
+});
