@@ -113,7 +113,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   let start = initial ?? demoWorkspace();
   let startNotice: string | null = null;
   try {
-    buildSurface(start.surface);
+    drawableSurface(start.surface);
   } catch (e) {
     startNotice = `The saved surface could not be built (${e instanceof Error ? e.message : String(e)}); the demo was loaded instead.`;
     start = demoWorkspace();
@@ -151,10 +151,6 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   function requestGrid(): void {
     const s = get();
     const n = s.surfaceInfo.variables.length;
-    if (n < 2) {
-      set({ grid: { ...s.grid, phase: 'error', error: 'the surface needs at least two variables to draw a slice' } });
-      return;
-    }
     const requestId = freshId('g');
     const side = s.display.resolution;
     const grid: GridRequest = { plane: slicePlane(s.slice, n), a: s.view.a, b: s.view.b, nx: side, ny: side };
@@ -225,14 +221,15 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   }
 
   function applySurface(spec: SurfaceSpec, keepView: boolean): void {
-    buildSurface(spec); // throws a specific error for a bad spec before anything changes
-    const info = describeSurface(spec);
+    const info = drawableSurface(spec); // throws a specific error for a bad spec before anything changes
     const s = get();
     const n = info.variables.length;
     const sameShape = n === s.surfaceInfo.variables.length;
-    const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, Math.min(1, n - 1)], at: info.view.map(([lo, hi]) => (lo + hi) / 2), plane: null };
+    const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, 1], at: info.view.map(([lo, hi]) => (lo + hi) / 2), plane: null };
     const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
-    const runs = sameShape ? s.runs : s.runs.map((r) => ({ ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
+    // A start is kept while it lies in the new surface's box; elsewhere the run would start out of view.
+    const keepStart = (start: number[]) => sameShape && (keepView || insideBox(start, info.view));
+    const runs = s.runs.map((r) => (keepStart(r.settings.start) ? r : { ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
     set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs });
     updateReference();
     launchAll();
@@ -391,8 +388,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     loadWorkspace(workspace) {
       let info: SurfaceInfo;
       try {
-        buildSurface(workspace.surface);
-        info = describeSurface(workspace.surface);
+        info = drawableSurface(workspace.surface);
       } catch (e) {
         set({ notice: `The experiment's surface could not be built (${e instanceof Error ? e.message : String(e)}); nothing was changed.` });
         return;
@@ -445,6 +441,26 @@ function defaultView(info: SurfaceInfo, slice: SliceSettings, requested?: ViewBo
 
 function viewFor(view: [number, number][], [i, j]: [number, number]): ViewBox {
   return { a: [...view[i]] as [number, number], b: [...view[j]] as [number, number] };
+}
+
+/**
+ * Builds the surface (throwing its specific error) and describes it; refuses a surface the map cannot
+ * show, one of fewer than two variables.
+ */
+function drawableSurface(spec: SurfaceSpec): SurfaceInfo {
+  buildSurface(spec);
+  const info = describeSurface(spec);
+  const n = info.variables.length;
+  if (n < 2) {
+    const which = n ? `1 (${info.variables[0]})` : 'none';
+    const hint = spec.kind === 'formula' ? '; list them under Variable order, for example "x, y"' : '';
+    throw new Error(`the map needs two or more variables, this surface has ${which}${hint}`);
+  }
+  return info;
+}
+
+function insideBox(point: number[], box: [number, number][]): boolean {
+  return point.length === box.length && point.every((x, i) => x >= box[i][0] && x <= box[i][1]);
 }
 
 function suggestedStart(info: SurfaceInfo): number[] {

@@ -85,6 +85,33 @@ describe('app store with the real worker handler', () => {
     expect(s.grid.request!.plane.origin).toHaveLength(3);
   });
 
+  it('a formula of fewer than two variables is refused with a message, not drawn', () => {
+    const t = setup();
+    expect(t.actions.setSurface({ kind: 'formula', text: 'x^2' })).toBe(false);
+    expect(t.state().surfaceError).toBe('the map needs two or more variables, this surface has 1 (x); list them under Variable order, for example "x, y"');
+    expect(t.actions.setSurface({ kind: 'formula', text: '3' })).toBe(false);
+    expect(t.state().surfaceError).toMatch(/this surface has none/);
+    expect(t.state().surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
+    // A variable named in the order but unused by the text still counts.
+    expect(t.actions.setSurface({ kind: 'formula', text: 'x^2', variables: ['x', 'y'] })).toBe(true);
+    expect(t.state().surfaceError).toBeNull();
+  });
+
+  it('a saved workspace with a one-variable surface loads the demo and says why', () => {
+    const t = setup({ ...demoWorkspace(), surface: { kind: 'formula', text: 'x^2' } });
+    expect(t.state().surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
+    expect(t.state().notice).toMatch(/two or more variables/);
+  });
+
+  it('switching surfaces keeps a start inside the new box and moves one outside it to the suggested start', () => {
+    const t = setup();
+    // Rosenbrock's demo start (-1.2, 1) lies inside Himmelblau's box [-5, 5]^2 but not Easom's [-1, 7]^2.
+    t.actions.setSurface({ kind: 'catalogue', id: 'himmelblau' });
+    for (const r of t.state().runs) expect(r.settings.start).toEqual([-1.2, 1]);
+    t.actions.setSurface({ kind: 'catalogue', id: 'easom' });
+    for (const r of t.state().runs) expect(r.settings.start).toEqual(t.state().surfaceInfo.suggestedStart);
+  });
+
   it('the table builds one run per optimizer and learning rate', () => {
     const t = setup();
     t.actions.setPanels({ tableOptimizers: ['gd', 'adam'], tableLearningRates: [0.001, 0.01, 0.1] });
