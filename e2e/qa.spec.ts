@@ -39,4 +39,29 @@ test.describe('a practitioner trying things', () => {
     await waitForContours(page);
     expect(errors).toEqual([]);
   });
+
+  test('plus and the wheel turned away zoom in, minus and the wheel turned back zoom out; the page does not scroll', async ({ page }) => {
+    await openFresh(page);
+    const span = () => page.evaluate(() => {
+      const v = JSON.parse(localStorage.getItem('fall-line/workspace') ?? 'null')?.view;
+      return v ? v.a[1] - v.a[0] : null;
+    });
+    const box = page.locator('.surface-canvas-box').first();
+    await box.focus();
+    await page.keyboard.press('+');
+    await expect.poll(span).toBeCloseTo(4 / 1.25, 9); // Rosenbrock's box is 4 wide
+    await page.keyboard.press('-');
+    await page.keyboard.press('-');
+    await expect.poll(span).toBeCloseTo(4 * 1.25, 9);
+    await page.keyboard.press('0');
+    await expect.poll(span).toBe(4);
+    const b = (await page.getByTestId('surface-overlay').first().boundingBox())!;
+    await page.mouse.move(b.x + b.width * 0.4, b.y + b.height * 0.5);
+    await page.mouse.wheel(0, -100);
+    await expect.poll(span).toBeLessThan(4);
+    await page.mouse.wheel(0, 100);
+    await page.mouse.wheel(0, 100);
+    await expect.poll(span).toBeGreaterThan(4);
+    expect(await page.locator('.main-column').evaluate((e) => e.scrollTop)).toBe(0);
+  });
 });

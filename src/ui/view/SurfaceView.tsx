@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent, type WheelEvent } from 'react';
+import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from 'react';
 import { slicePlane, slicePoint, sliceTitles } from '../../store/slice-plane';
 import { gradientArrows, panBy, zoomAt, type Arrow } from '../plot';
 import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
@@ -19,6 +19,10 @@ export interface SurfaceViewProps {
 
 /** Performance mark set when contours are first on screen (read by the browser performance check). */
 export const FIRST_CONTOUR_MARK = 'fall-line:first-contour';
+
+/** Zoom factors (> 1 zooms in, see `zoomAt`) per wheel notch and per key press. */
+const WHEEL_ZOOM = 1.15;
+const KEY_ZOOM = 1.25;
 
 /**
  * The surface slice with the runs over it. Two stacked canvases: the base (contours, arrows, known
@@ -112,12 +116,24 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     const rect = overlayRef.current!.getBoundingClientRect();
     return canvasToFrame(layout!, { px: e.clientX - rect.left, py: e.clientY - rect.top });
   }
+  /** Wheel up (away from the user) zooms in at the pointer; the page does not scroll meanwhile. */
   function onWheel(e: WheelEvent) {
     if (!layout) return;
     const p = framePoint(e);
     if (!insideFrame(layout, p)) return;
-    actions.setView(zoomAt(view, layout.frame, p, e.deltaY < 0 ? 1 / 1.15 : 1.15));
+    e.preventDefault();
+    actions.setView(zoomAt(view, layout.frame, p, e.deltaY < 0 ? WHEEL_ZOOM : 1 / WHEEL_ZOOM));
   }
+  // React's onWheel listener is passive (it cannot prevent scrolling), so the wheel is listened to directly.
+  const wheelHandler = useRef(onWheel);
+  wheelHandler.current = onWheel;
+  useEffect(() => {
+    const box = boxRef.current;
+    if (!box) return;
+    const listener = (e: WheelEvent) => wheelHandler.current(e);
+    box.addEventListener('wheel', listener, { passive: false });
+    return () => box.removeEventListener('wheel', listener);
+  }, []);
   function onPointerDown(e: PointerEvent) {
     if (e.button !== 0) return;
     drag.current = { x: e.clientX, y: e.clientY, moved: false };
@@ -158,9 +174,9 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
       ArrowRight: () => actions.setView(panBy(view, layout.frame, -width * 0.1, 0)),
       ArrowUp: () => actions.setView(panBy(view, layout.frame, 0, height * 0.1)),
       ArrowDown: () => actions.setView(panBy(view, layout.frame, 0, -height * 0.1)),
-      '+': () => actions.setView(zoomAt(view, layout.frame, centre, 1 / 1.25)),
-      '=': () => actions.setView(zoomAt(view, layout.frame, centre, 1 / 1.25)),
-      '-': () => actions.setView(zoomAt(view, layout.frame, centre, 1.25)),
+      '+': () => actions.setView(zoomAt(view, layout.frame, centre, KEY_ZOOM)),
+      '=': () => actions.setView(zoomAt(view, layout.frame, centre, KEY_ZOOM)),
+      '-': () => actions.setView(zoomAt(view, layout.frame, centre, 1 / KEY_ZOOM)),
       '0': () => actions.resetView(),
     };
     const move = moves[e.key];
@@ -178,7 +194,6 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
         tabIndex={0}
         role="img"
         aria-label={`${title ?? info.label}: contour map of the loss over ${titles.a} and ${titles.b}. Arrow keys pan, plus and minus zoom, 0 resets; click sets the start point.`}
-        onWheel={onWheel}
         onPointerDown={onPointerDown}
         onPointerMove={onPointerMove}
         onPointerUp={onPointerUp}
