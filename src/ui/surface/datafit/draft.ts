@@ -52,7 +52,7 @@ export function draftFor(dataset: DatasetSpec): DataFitDraft {
     hidden: '6',
     activation: 'tanh',
     head: 'regression',
-    formula: 'b1 * (1 - exp(-b2 * x))',
+    formula: `b1 * (1 - exp(-b2 * ${formulaName(inputs[0])}))`,
     parameters: 'b1, b2',
     start: '',
     l2: undefined,
@@ -69,6 +69,11 @@ export function draftFor(dataset: DatasetSpec): DataFitDraft {
   }
   if (dataset.kind === 'iris') return { ...base, model: 'softmax', standardise: true };
   return base;
+}
+
+/** A column as it is written in a model formula: its own name when that is a formula name. */
+function formulaName(column: string | undefined): string {
+  return column !== undefined && /^[A-Za-z_][A-Za-z0-9_]*$/.test(column) ? column : 'x';
 }
 
 /** A draft as a spec, or the message for the field that is wrong. */
