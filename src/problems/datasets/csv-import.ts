@@ -31,7 +31,7 @@ export interface CsvImportOptions {
   columns?: string[];
   /** Columns holding class labels rather than numbers. */
   classColumns?: string[];
-  /** Field delimiter; default: papaparse's guess, which falls back to a comma when it cannot tell (pass ';' for semicolon files). */
+  /** Field delimiter; default: the one the header row uses (see `headerDelimiter`). */
   delimiter?: string;
   maxBytes?: number;
   maxRows?: number;
@@ -88,7 +88,7 @@ export function parseDatasetCsv(text: string, options: CsvImportOptions = {}): C
     for (const record of records) if (fatal === null) fatal = builder.add(record);
     if (fatal !== null) parser?.abort();
   };
-  const config = { delimiter: options.delimiter ?? '', skipEmptyLines: false as const, dynamicTyping: false as const };
+  const config = { delimiter: options.delimiter ?? headerDelimiter(source), skipEmptyLines: false as const, dynamicTyping: false as const };
   if (options.onProgress) {
     const onProgress = options.onProgress;
     const chunked = {
@@ -108,6 +108,23 @@ export function parseDatasetCsv(text: string, options: CsvImportOptions = {}): C
   }
   if (fatal !== null) return fail(fatal, builder);
   return builder.finish();
+}
+
+/**
+ * The delimiter a file's header row uses: the most frequent of comma, semicolon, tab and bar outside
+ * quoted names, or '' (papaparse's guess) when there is none (one column). The header decides because
+ * data rows can mislead a guess: a semicolon file with decimal commas ("1,5;2") has more commas.
+ */
+export function headerDelimiter(text: string): string {
+  const end = text.search(/[\r\n]/);
+  const header = (end < 0 ? text : text.slice(0, end)).replace(/"[^"]*"/g, '');
+  let best = '';
+  let most = 0;
+  for (const d of [',', ';', '\t', '|']) {
+    const count = header.split(d).length - 1;
+    if (count > most) [best, most] = [d, count];
+  }
+  return best;
 }
 
 function fail(message: string, builder?: CsvTableBuilder): CsvImport {

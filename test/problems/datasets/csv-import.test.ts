@@ -64,6 +64,15 @@ describe('parseDatasetCsv', () => {
     expect(semicolons.ok && semicolons.dataset.columns).toEqual(['x', 'y, in mm']);
   });
 
+  it("reads the delimiter from the header row, which decimal commas in the data cannot mislead", () => {
+    expect(parseDatasetCsv('dose;response\n1;2\n2;4\n').ok).toBe(true);
+    expect(parseDatasetCsv('a\tb\n1\t2\n').ok).toBe(true);
+    // Decimal commas are not numbers here, but they are reported per cell, not as too many fields.
+    const r = parseDatasetCsv('dose;response\n1,5;2\n2;4\n');
+    expect(r.ok).toBe(false);
+    expect(r.problems).toEqual([{ row: 2, column: 'dose', value: '1,5', reason: 'not a number' }]);
+  });
+
   it.each([
     ['', 'the file is empty: expected a header row of column names'],
     ['a,,c\n1,2,3\n', 'column 2 of the header (row 1) has no name'],
