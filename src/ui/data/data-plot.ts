@@ -23,6 +23,14 @@ export interface DataScene {
 }
 
 const MARGIN = { left: 56, right: 12, top: 12, bottom: 40 };
+
+/** Most rows drawn as points: more only overplot, and would make every redraw (each run update) slow. */
+export const MAX_DRAWN_ROWS = 2000;
+
+/** Step between drawn rows: 1 up to MAX_DRAWN_ROWS rows, else an evenly spread subset of about that many. */
+export function rowStride(rows: number): number {
+  return Math.max(1, Math.ceil(rows / MAX_DRAWN_ROWS));
+}
 /** Class colours of the data view (Okabe-Ito, the same palette as runs; classes and runs never share a plot). */
 const CLASS_COLOURS = RUN_COLOURS;
 
@@ -51,6 +59,7 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
   const { w, h } = beginChart(ctx, size, MARGIN);
   const { table, inputs, target, task, predict } = scene;
   const y = column(table, target);
+  const stride = rowStride(table.rows);
   let caption: string;
   let xTitle: string;
   let yTitle: string;
@@ -64,7 +73,7 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
     const sx = scaleLinear().domain(xr).range([0, w]);
     const sy = scaleLinear().domain(yr).range([h, 0]);
     strokeChartFrame(ctx, w, h);
-    for (let i = 0; i < table.rows; i++) drawMarker(ctx, 'circle', { px: sx(x[i]), py: sy(y[i]) }, 5, { fill: '#56B4E9', outline: '#1b4965', outlineWidth: 0.75 });
+    for (let i = 0; i < table.rows; i += stride) drawMarker(ctx, 'circle', { px: sx(x[i]), py: sy(y[i]) }, 5, { fill: '#56B4E9', outline: '#1b4965', outlineWidth: 0.75 });
     if (predict) {
       ctx.beginPath();
       const row = new Float64Array(1);
@@ -85,7 +94,8 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
     const m = table.columns.length;
     const idx = inputs.map((c) => table.columns.indexOf(c));
     const row = new Float64Array(inputs.length);
-    for (let i = 0; i < table.rows; i++) {
+    fitted.fill(Number.NaN);
+    for (let i = 0; i < table.rows; i += stride) {
       idx.forEach((j, k) => (row[k] = table.values[i * m + j]));
       fitted[i] = predict ? (predict(row) as number) : Number.NaN;
     }
@@ -102,7 +112,7 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
     ctx.setLineDash([4, 4]);
     ctx.stroke();
     ctx.setLineDash([]);
-    for (let i = 0; i < table.rows; i++) if (Number.isFinite(fitted[i])) drawMarker(ctx, 'circle', { px: sx(y[i]), py: Math.max(-50, Math.min(h + 50, sy(fitted[i]))) }, 5, { fill: '#56B4E9', outline: '#1b4965', outlineWidth: 0.75 });
+    for (let i = 0; i < table.rows; i += stride) if (Number.isFinite(fitted[i])) drawMarker(ctx, 'circle', { px: sx(y[i]), py: Math.max(-50, Math.min(h + 50, sy(fitted[i]))) }, 5, { fill: '#56B4E9', outline: '#1b4965', outlineWidth: 0.75 });
     caption = 'each point: one row, observed against predicted; on the dashed line the fit is exact';
   } else {
     const a = column(table, inputs[0]);
@@ -114,7 +124,7 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
     const sy = scaleLinear().domain(yr).range([h, 0]);
     if (predict && inputs.length > 1) regions(ctx, w, h, xr, yr, scene, predict);
     strokeChartFrame(ctx, w, h);
-    for (let i = 0; i < table.rows; i++) {
+    for (let i = 0; i < table.rows; i += stride) {
       const k = Math.round(y[i]);
       drawMarker(ctx, MARKER_SHAPES[k % MARKER_SHAPES.length], { px: sx(a[i]), py: sy(b[i]) }, 6, { fill: CLASS_COLOURS[k % CLASS_COLOURS.length], outline: '#222222', outlineWidth: 0.6 });
     }
@@ -123,6 +133,7 @@ export function drawDataScene(ctx: DrawingContext, size: PixelSize, scene: DataS
         ? `shaded: the class the model predicts over ${inputs[0]} and ${inputs[1]}, other inputs at their means`
         : 'shaded: the class the model predicts; points: the data, by class';
   }
+  if (stride > 1) caption += ` (1 row in ${stride} of ${table.rows} drawn)`;
   ctx.fillStyle = PLOT_STYLE.textColour;
   ctx.font = canvasFont(PLOT_STYLE.tickFontSize);
   ctx.textAlign = 'center';
