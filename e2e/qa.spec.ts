@@ -64,4 +64,17 @@ test.describe('a practitioner trying things', () => {
     await expect.poll(span).toBeGreaterThan(4);
     expect(await page.locator('.main-column').evaluate((e) => e.scrollTop)).toBe(0);
   });
+
+  test('the optimizer x learning-rate table refuses a rate listed twice', async ({ page }) => {
+    await openFresh(page);
+    await page.getByRole('tab', { name: 'Optimizer × learning rate' }).click();
+    const rates = page.getByLabel('Columns: learning rates');
+    await rates.fill('0.001, 0.01, 0.01');
+    await rates.press('Enter');
+    await expect(page.getByRole('alert').filter({ hasText: 'learning rates' })).toHaveText('learning rates: 0.01 is listed twice (each column needs its own rate)');
+    await rates.fill('0.001, 0.01');
+    await rates.press('Enter');
+    await expect(page.getByRole('alert').filter({ hasText: 'learning rates' })).toHaveCount(0);
+    await expect(page.getByRole('button', { name: /Build table runs/ })).toContainText('(6)'); // the three default rows x two rates
+  });
 });

@@ -67,6 +67,8 @@ function RatesField({ id, initial }: { id: string; initial: string }) {
     const rates = text.split(/[,\s]+/).filter(Boolean).map(Number);
     if (rates.length > 12) return setError('learning rates: at most 12 columns');
     if (rates.some((r) => !(r > 0 && Number.isFinite(r)))) return setError(`learning rates: each must be a positive number, got "${text}"`);
+    const twice = rates.find((r, k) => rates.indexOf(r) !== k);
+    if (twice !== undefined) return setError(`learning rates: ${twice} is listed twice (each column needs its own rate)`);
     setError(null);
     actions.setPanels({ tableLearningRates: rates });
   }
