@@ -1,5 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
+import { optimizerInfo, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
 import type { ViewBox } from '../ui/plot';
@@ -374,7 +374,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
         s.panels.tableLearningRates.forEach((lr, column) => {
           const run = newRunConfig(kind, [...kept, ...table], start);
           run.optimizer = { ...run.optimizer, learningRate: lr };
-          run.label = `${run.label} lr=${lr}`;
+          run.label = `${optimizerInfo(kind).label} lr=${lr}`;
           run.cell = { row, column };
           table.push(run);
         }),

@@ -146,3 +146,19 @@ describe('app store with a grid pool', () => {
     expect(new Set(world.log.filter((m) => m.direction === 'out' && m.msg.type === 'band/result').map((m) => m.member)).size).toBe(2);
   });
 });
+
+describe('small conveniences', () => {
+  it('a clicked coordinate is rounded to a thousandth of the visible span', async () => {
+    const { roundToView } = await import('../../src/ui/view/frame');
+    expect(roundToView(0.6750878049616227, [-2, 2])).toBe(0.675);
+    expect(roundToView(-1.23456789, [-100, 100])).toBe(-1.2);
+    expect(roundToView(0.000123456, [0, 0.01])).toBe(0.00012);
+  });
+
+  it('table runs are labelled by optimizer and learning rate only', () => {
+    const t = setup();
+    t.actions.setPanels({ tableOptimizers: ['adam'], tableLearningRates: [0.001] });
+    t.actions.buildTableRuns();
+    expect(t.state().runs.filter((r) => r.cell).map((r) => r.label)).toEqual(['Adam lr=0.001']);
+  });
+});

@@ -115,7 +115,7 @@ export class RunCursor {
         s.evaluations += 1;
       }
       this.record(batch, report.learningRate);
-      s.outcome = this.checkPoint() ?? this.checkProgress(previousLoss);
+      s.outcome = this.checkPoint() ?? this.checkProgress(previousLoss, report.learningRate);
     }
     batch.outcome = s.outcome;
     return trimBatch(batch);
@@ -162,10 +162,16 @@ export class RunCursor {
     return null;
   }
 
-  private checkProgress(previousLoss: number): RunOutcome | null {
+  /**
+   * The loss-change rule and the step limit. A step taken at learning rate 0 (a schedule decayed to
+   * nothing) does not count as calm: the loss stopped changing because the run stopped moving, not
+   * because it reached a minimum, so such a run ends at the step limit instead of "converging".
+   */
+  private checkProgress(previousLoss: number, learningRate: number): RunOutcome | null {
     const s = this.state;
     const { lossChangeTolerance, lossChangePatience = DEFAULT_LOSS_CHANGE_PATIENCE, maxSteps } = this.settings.stop;
-    if (lossChangeTolerance !== undefined) {
+    if (lossChangeTolerance !== undefined && learningRate === 0) s.calmSteps = 0;
+    else if (lossChangeTolerance !== undefined) {
       const scale = Math.max(1, Math.abs(s.loss), Math.abs(previousLoss));
       s.calmSteps = Math.abs(s.loss - previousLoss) / scale <= lossChangeTolerance ? s.calmSteps + 1 : 0;
       if (s.calmSteps >= lossChangePatience) return { kind: 'converged', rule: 'loss-change', step: s.t };

@@ -2,7 +2,7 @@ import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } fro
 import { slicePlane, slicePoint, sliceTitles } from '../../store/slice-plane';
 import { gradientArrows, panBy, zoomAt, type Arrow } from '../plot';
 import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
-import { canvasToFrame, frameLayout, frameTransform, insideFrame } from './frame';
+import { canvasToFrame, frameLayout, frameTransform, insideFrame, roundToView } from './frame';
 import { useSurfacePicture } from './picture';
 import { drawBase, drawOverlay } from './scene';
 import { knownPointsOnSlice, trajectoryItems } from './scene-input';
@@ -163,7 +163,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     const p = framePoint(e);
     if (!insideFrame(layout, p)) return;
     const q = frameTransform(view, layout).toParam(p);
-    actions.setStart(slicePoint(slice, n, q.a, q.b));
+    actions.setStart(slicePoint(slice, n, roundToView(q.a, view.a), roundToView(q.b, view.b)));
   }
   function onKeyDown(e: KeyboardEvent) {
     if (!layout) return;
@@ -213,3 +213,4 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     </div>
   );
 }
+

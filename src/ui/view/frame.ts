@@ -39,3 +39,9 @@ export function canvasToFrame(layout: FrameLayout, p: PixelPoint): PixelPoint {
 export function insideFrame(layout: FrameLayout, p: PixelPoint): boolean {
   return p.px >= 0 && p.py >= 0 && p.px <= layout.frame.width && p.py <= layout.frame.height;
 }
+
+/** A clicked coordinate rounded to a thousandth of the visible span (what a pixel can mean), e.g. 0.675 not 0.6750878049616227. */
+export function roundToView(v: number, range: readonly [number, number]): number {
+  const step = 10 ** Math.floor(Math.log10((range[1] - range[0]) / 1000));
+  return Number((Math.round(v / step) * step).toPrecision(12));
+}

@@ -107,3 +107,16 @@ describe('outcome text', () => {
     expect(outcomeLabel({ kind: 'step-limit', step: 5 })).toBe('step limit');
   });
 });
+
+describe('loss-change rule and a schedule that decays to zero', () => {
+  it('a run whose learning rate reached 0 ends at the step limit, not "converged"', async () => {
+    const { buildOptimizer } = await import('../../../src/engine');
+    // Cosine to a floor of 0 over 10 steps on the bowl from (1, 1): far from the minimum when the rate hits 0.
+    const optimizer = buildOptimizer({ kind: 'gd', learningRate: 0.001, schedule: { kind: 'cosine', horizon: 10 } });
+    const c = new RunCursor(bowl, optimizer, { start: [1, 1], seed: 1, stop: { maxSteps: 40, lossChangeTolerance: 1e-9 } });
+    const b = concatBatches(c.runToEnd(), 2);
+    expect(b.learningRate[11]).toBe(0);
+    expect(b.loss[b.count - 1]).toBeGreaterThan(5);
+    expect(c.outcome).toEqual({ kind: 'step-limit', step: 40 });
+  });
+});

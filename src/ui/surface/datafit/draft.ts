@@ -68,6 +68,9 @@ export function draftFor(dataset: DatasetSpec): DataFitDraft {
     return { ...base, model: classes > 2 ? 'softmax' : 'logistic', standardise: true };
   }
   if (dataset.kind === 'iris') return { ...base, model: 'softmax', standardise: true };
+  // Demo regression data start standardised: the raw inputs span up to 150 units, which puts a plain
+  // descent run's default step far beyond 2 / lambda_max (untick it to see exactly that).
+  if (dataset.kind === 'demo') return { ...base, standardise: true };
   return base;
 }
 
