@@ -1,4 +1,4 @@
-import type { RunOutcome, TrajectoryBatch } from '../engine';
+import type { TrajectoryBatch } from '../engine';
 import type { FromWorker, RunControl, RunSpec } from '../protocol';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
@@ -141,8 +141,4 @@ export class LiveRuns {
       this.onFrame(changed);
     });
   }
-}
-
-export function outcomeOf(status: RunStatus | undefined): RunOutcome | null {
-  return status?.summary.outcome ?? null;
 }

@@ -11,7 +11,7 @@ import {
   type RunStyle,
   type ViewBox,
 } from '../plot';
-import { frameTransform, LEGEND_WIDTH, type FrameLayout } from './frame';
+import { frameTransform, type FrameLayout } from './frame';
 import type { SurfacePicture } from './picture';
 
 export interface BaseLayer {
@@ -122,4 +122,3 @@ export function markerInterval(count: number): number {
   return [1, 2, 5, 10].map((m) => m * p).find((m) => m >= raw) ?? 10 * p;
 }
 
-export { LEGEND_WIDTH };
