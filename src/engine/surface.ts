@@ -19,6 +19,12 @@ export interface Surface {
    * and returns f(x).
    */
   valueGradientHessian(x: ArrayLike<number>, grad: Float64Array, hessian: Float64Array): number;
+  /**
+   * Optional: why the value (or the gradient) is not finite at x, in words with the place in the
+   * surface's text where there is one ("log of a negative number (-2) (columns 1-8)"); null when it is
+   * finite or the surface cannot tell.
+   */
+  explainUndefined?(x: ArrayLike<number>, what: 'value' | 'gradient'): string | null;
 }
 
 /**

@@ -3,7 +3,7 @@
  *
  * Format: fields separated by commas, records ended by CRLF (the last one too). A field is quoted when
  * it contains a comma, a double quote, CR or LF; quotes inside are doubled. Numbers are written with
- * String(n), which reads back to the same double; NaN, null and undefined are empty cells; +-Infinity
+ * String(n), which reads back to the same double (and -0 as "-0", which String() would write as "0"); NaN, null and undefined are empty cells; +-Infinity
  * are written "Infinity" / "-Infinity" (Number() reads them back).
  *
  * Formula neutralising (OWASP "CSV Injection"): a text cell that starts with =, +, -, @, a tab or CR
@@ -12,7 +12,7 @@
  * a run label) is written '-1.5. Header cells are text and follow the same rule. Neutralising happens
  * before quoting, so "=1,2" becomes "'=1,2" (quoted for its comma).
  */
-import type { RunOutcome, TrajectoryBatch } from '../engine';
+import { outcomeDetail, type RunOutcome, type TrajectoryBatch } from '../engine';
 
 export type CsvCell = string | number | null | undefined;
 
@@ -24,7 +24,7 @@ const NEEDS_QUOTES = /[",\r\n]/;
 /** One cell as CSV text (neutralised and quoted as described above). */
 export function csvField(cell: CsvCell): string {
   if (cell === null || cell === undefined) return '';
-  if (typeof cell === 'number') return Number.isNaN(cell) ? '' : String(cell);
+  if (typeof cell === 'number') return Number.isNaN(cell) ? '' : Object.is(cell, -0) ? '-0' : String(cell);
   const text = FORMULA_START.test(cell) ? `'${cell}` : cell;
   return NEEDS_QUOTES.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
@@ -109,9 +109,11 @@ export interface RunSummaryRow {
 /**
  * Run table CSV, one row per run. Columns:
  *   run_id, run_label, optimizer, learning_rate   as in the trajectory CSV
- *   outcome             converged | step-limit | diverged | cancelled | running
- *   outcome_detail      the convergence rule (loss-change, gradient-norm) or divergence reason
- *                       (non-finite, blow-up); empty otherwise
+ *   outcome             converged | saddle | maximum | stationary | stalled | oscillating | escaping |
+ *                       diverged | undefined | step-limit | cancelled | running (README: Outcomes)
+ *   outcome_detail      the rule that stopped the run and the end point's state, or why it diverged
+ *   final_grad_norm     the exact gradient norm at the final point
+ *   point_kind          minimum | saddle | maximum | degenerate from the Hessian, when stationary
  *   outcome_step        the step at which the run ended; empty while running
  *   steps               steps taken
  *   final_loss          loss at the final point
@@ -121,7 +123,7 @@ export interface RunSummaryRow {
 export function runTableCsv(rows: readonly RunSummaryRow[]): string {
   const variables = unionOfVariables(rows.map((r) => r.variables));
   const header = [
-    'run_id', 'run_label', 'optimizer', 'learning_rate', 'outcome', 'outcome_detail', 'outcome_step', 'steps', 'final_loss',
+    'run_id', 'run_label', 'optimizer', 'learning_rate', 'outcome', 'outcome_detail', 'outcome_step', 'steps', 'final_loss', 'final_grad_norm', 'point_kind',
     ...variables.map((v) => coordinateColumn(v, 'final')),
     'distance_to_nearest_minimum', 'nearest_minimum', 'steps_to_tolerance',
   ];
@@ -129,10 +131,11 @@ export function runTableCsv(rows: readonly RunSummaryRow[]): string {
     if (r.variables.length !== r.finalPoint.length && r.finalPoint.length !== 0)
       throw new Error(`csv: run "${r.id}" names ${r.variables.length} variables but its final point has ${r.finalPoint.length} coordinates`);
     const o = r.outcome;
-    const detail = o?.kind === 'converged' ? o.rule : o?.kind === 'diverged' ? o.reason : null;
+    const point = o && 'point' in o ? o.point : null;
     return [
       r.id, r.label, r.optimizer, r.learningRate,
-      o ? o.kind : 'running', detail, o ? o.step : null, r.steps, r.finalLoss,
+      o ? o.kind : 'running', o ? outcomeDetail(o) : null, o ? o.step : null, r.steps, r.finalLoss,
+      point?.gradNorm, point?.curvature?.kind,
       ...variables.map((v) => {
         const c = r.variables.indexOf(v);
         return c < 0 || c >= r.finalPoint.length ? null : r.finalPoint[c];

@@ -63,8 +63,7 @@ export class RunPool {
         this.emit(runId, run, 1);
         break;
       case 'cancel': {
-        const step = run.cursor.state.t;
-        run.cursor.state.outcome = { kind: 'cancelled', step };
+        run.cursor.cancel();
         this.emit(runId, run, 0);
         break;
       }

@@ -32,7 +32,8 @@ describe('toCsv (RFC 4180)', () => {
     const numbers = [0.1 + 0.2, -1.5, 1e-300, 123456789012345680000, -0, Number.MIN_VALUE];
     const text = toCsv([numbers, [Number.NaN, null, undefined, Infinity, -Infinity, 0]], numbers.map((_, k) => `n${k}`));
     const rows = parse(text);
-    rows[1].forEach((s, k) => expect(Number(s)).toBe(numbers[k] === 0 ? 0 : numbers[k]));
+    rows[1].forEach((s, k) => expect(Number(s)).toBe(numbers[k])); // toBe is Object.is: -0 must read back as -0
+    expect(rows[1][4]).toBe('-0');
     expect(rows[2]).toEqual(['', '', '', 'Infinity', '-Infinity', '0']);
   });
 
@@ -99,7 +100,7 @@ describe('runTableCsv', () => {
     label: 'momentum 0.9',
     optimizer: 'momentum',
     learningRate: 0.05,
-    outcome: { kind: 'converged', rule: 'gradient-norm', step: 120 },
+    outcome: { kind: 'converged', rule: 'gradient-norm', step: 120, point: { gradNorm: 3e-9, gradThreshold: 2e-4, stationary: true, newtonStep: 1e-9, curvature: { kind: 'minimum', negative: 0, zero: 0, positive: 2, smallest: 2, largest: 20, method: 'exact' } } },
     steps: 120,
     finalLoss: 1e-9,
     variables: ['x', 'y'],
@@ -118,11 +119,11 @@ describe('runTableCsv', () => {
       ]),
     );
     expect(rows[0]).toEqual([
-      'run_id', 'run_label', 'optimizer', 'learning_rate', 'outcome', 'outcome_detail', 'outcome_step', 'steps', 'final_loss',
+      'run_id', 'run_label', 'optimizer', 'learning_rate', 'outcome', 'outcome_detail', 'outcome_step', 'steps', 'final_loss', 'final_grad_norm', 'point_kind',
       'final_x', 'final_y', 'final_w', 'distance_to_nearest_minimum', 'nearest_minimum', 'steps_to_tolerance',
     ]);
-    expect(rows[1]).toEqual(['a', 'momentum 0.9', 'momentum', '0.05', 'converged', 'gradient-norm', '120', '120', '1e-9', '1', '1', '', '0.00002', '(1, 1)', '88']);
-    expect(rows[2]).toEqual(['b', 'momentum 0.9', 'momentum', '0.05', 'diverged', 'non-finite', '7', '120', '1e-9', '', '3', '4', '', '', '']);
+    expect(rows[1]).toEqual(['a', 'momentum 0.9', 'momentum', '0.05', 'converged', 'gradient norm; gradient norm 3.00e-9 (stationary: test 0.000200); Hessian: minimum, eigenvalues 2.00 to 20.0', '120', '120', '1e-9', '3e-9', 'minimum', '1', '1', '', '0.00002', '(1, 1)', '88']);
+    expect(rows[2]).toEqual(['b', 'momentum 0.9', 'momentum', '0.05', 'diverged', 'loss became NaN', '7', '120', '1e-9', '', '', '', '3', '4', '', '', '']);
     expect(rows[3].slice(4, 9)).toEqual(['running', '', '', '120', '']);
   });
 });

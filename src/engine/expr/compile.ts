@@ -1,3 +1,4 @@
+import { explainNoDerivative, explainNonFiniteValue } from './explain';
 import type { Surface } from '../surface';
 import type { Expr } from './ast';
 import { buildFactory, generateSource, type CodeShape, type ModelKernels, type SurfaceKernels } from './codegen';
@@ -257,6 +258,13 @@ class CompiledFormulaSurface extends BoundProgram<SurfaceKernels> implements For
 
   withConstants(values: Readonly<Record<string, number>>): FormulaSurface {
     return new CompiledFormulaSurface(this.program, this.mergedConstants(values));
+  }
+
+  explainUndefined(x: ArrayLike<number>, what: 'value' | 'gradient'): string | null {
+    const env = new Map(Object.entries(this.constants));
+    this.variables.forEach((name, i) => env.set(name, x[i]));
+    const found = what === 'value' ? explainNonFiniteValue(this.ast, env) : explainNoDerivative(this.ast, env);
+    return found?.message ?? null;
   }
 }
 

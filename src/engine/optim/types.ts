@@ -44,6 +44,12 @@ export interface StepReport {
    * is the loss, so the run loop skips its own evaluation.
    */
   lossAtNewPoint?: number;
+  /**
+   * Set when the method found no step that lowers the loss and left the point where it was (every
+   * line-search trial rejected). The run loop then ends the run and judges the point: converged if it
+   * is stationary, stalled otherwise. A first-order step at a scheduled learning rate of 0 is not this.
+   */
+  noDescent?: boolean;
 }
 
 export interface Optimizer<S = unknown> {

@@ -3,7 +3,9 @@ import type { Optimizer, Oracle } from '../optim/types';
 import { createRng, nextGaussian, type RngState } from '../rng';
 import { allFinite, norm2 } from '../vector';
 import { createMinibatchState, nextMinibatch, type MinibatchState } from './minibatch';
+import { describeEndPoint, judgeEnd, type EndTrigger } from './end-state';
 import type { RunOutcome } from './outcome';
+import { createRecentPath, recordRecent, type RecentPath } from './recent';
 import {
   DEFAULT_BLOW_UP_FACTOR,
   DEFAULT_LOSS_CHANGE_PATIENCE,
@@ -20,7 +22,12 @@ export interface RunState {
   /** Exact gradient at x. */
   grad: Float64Array;
   loss: number;
+  /** The start point, its loss and gradient norm (the stationarity test is relative to it). */
+  x0: Float64Array;
   initialLoss: number;
+  initialGradNorm: number;
+  /** The last few points and the distance from the start at steps 1, 2, 4, ... (end-state judgement). */
+  recent: RecentPath;
   optimizerState: unknown;
   rng: RngState;
   /** Consecutive steps that met the loss-change test. */
@@ -64,7 +71,10 @@ export class RunCursor {
       x,
       grad,
       loss,
+      x0: Float64Array.from(x),
       initialLoss: loss,
+      initialGradNorm: norm2(grad),
+      recent: createRecentPath(x, loss),
       optimizerState: optimizer.init(Float64Array.from(x)),
       rng: createRng(settings.seed),
       calmSteps: 0,
@@ -77,7 +87,7 @@ export class RunCursor {
     this.batch = { indices: new Int32Array(settings.minibatch?.size ?? 0), count: 0 };
     const noise = settings.gradientNoise ?? 0;
     this.oracle = this.state.minibatch && rowwise ? batchOracle(rowwise, this.batch, noise, this.state) : noisyOracle(surface, noise, this.state);
-    this.state.outcome = this.checkPoint();
+    this.state.outcome = this.checkStart() ?? this.checkPoint();
   }
 
   get outcome(): RunOutcome | null {
@@ -115,7 +125,8 @@ export class RunCursor {
         s.evaluations += 1;
       }
       this.record(batch, report.learningRate);
-      s.outcome = this.checkPoint() ?? this.checkProgress(previousLoss, report.learningRate);
+      recordRecent(s.recent, s.t, s.x, s.loss, s.x0);
+      s.outcome = this.checkPoint() ?? (report.noDescent ? this.judge({ rule: 'no-step' }) : this.checkProgress(previousLoss, report.learningRate));
     }
     batch.outcome = s.outcome;
     return trimBatch(batch);
@@ -147,25 +158,82 @@ export class RunCursor {
     batch.learningRate[row] = learningRate;
   }
 
-  /** Divergence and gradient-norm tests that apply at every point, the start included. */
+  /** Ends the run where it stands, judged like any other end (the point's state is reported). */
+  cancel(): RunOutcome {
+    if (!this.state.outcome) this.state.outcome = this.judge('cancelled');
+    return this.state.outcome;
+  }
+
+  /** The state of the current point (gradient, stationarity test, Hessian class if stationary). */
+  endPoint() {
+    return describeEndPoint(countingSurface(this.surface, this.state), this.endFacts());
+  }
+
+  private endFacts() {
+    const s = this.state;
+    return { ...s, stationarityTolerance: this.settings.stop.stationarityTolerance };
+  }
+
+  /** Judges the end; the Hessian evaluations the judgement makes count as the run's evaluations. */
+  private judge(trigger: EndTrigger): RunOutcome {
+    return judgeEnd(countingSurface(this.surface, this.state), this.endFacts(), trigger);
+  }
+
+  /**
+   * A start where the loss or its gradient does not exist is not a divergence: the surface is
+   * undefined there (outside a formula's domain, or at a cusp), and the outcome says why.
+   */
+  private checkStart(): RunOutcome | null {
+    const s = this.state;
+    if (!allFinite(s.x)) return null;
+    if (!Number.isFinite(s.loss)) {
+      const why = this.surface.explainUndefined?.(s.x, 'value');
+      return { kind: 'undefined', step: 0, detail: `the loss is not defined at the start (${why ?? `it is ${s.loss}`})` };
+    }
+    if (!allFinite(s.grad)) {
+      const why = this.surface.explainUndefined?.(s.x, 'gradient');
+      return { kind: 'undefined', step: 0, detail: `the gradient does not exist at the start: the loss is finite but not differentiable here (a kink or cusp${why ? `: ${why}` : ''})` };
+    }
+    return null;
+  }
+
+  /** Non-finite values, blow-up and the gradient-norm rule, at every point the run reaches. */
   private checkPoint(): RunOutcome | null {
     const s = this.state;
     const step = s.t;
-    if (!allFinite(s.x)) return { kind: 'diverged', reason: 'non-finite', step, detail: 'a coordinate became non-finite' };
-    if (!Number.isFinite(s.loss)) return { kind: 'diverged', reason: 'non-finite', step, detail: `the loss became ${s.loss}` };
-    if (!allFinite(s.grad)) return { kind: 'diverged', reason: 'non-finite', step, detail: 'the gradient became non-finite' };
+    if (!allFinite(s.x)) {
+      if (s.loss < s.initialLoss && this.movingAway()) return { kind: 'escaping', step, detail: 'a coordinate overflowed to infinity while the loss kept falling', point: this.endPoint() };
+      return { kind: 'diverged', reason: 'non-finite', step, detail: 'a coordinate became non-finite' };
+    }
+    if (s.loss === -Infinity) return { kind: 'escaping', step, detail: 'the loss fell without bound (it reached -Infinity)', point: this.endPoint() };
+    if (!Number.isFinite(s.loss)) {
+      const why = s.loss !== s.loss ? this.surface.explainUndefined?.(s.x, 'value') : null;
+      if (why) return { kind: 'undefined', step, detail: `the step left the surface's domain: ${why}` };
+      return { kind: 'diverged', reason: 'non-finite', step, detail: `the loss became ${s.loss}` };
+    }
+    if (!allFinite(s.grad)) {
+      const why = this.surface.explainUndefined?.(s.x, 'gradient');
+      return { kind: 'undefined', step, detail: `the run reached a point where the gradient does not exist${why ? `: ${why}` : ''}` };
+    }
     const blowUp = this.settings.stop.blowUpFactor ?? DEFAULT_BLOW_UP_FACTOR;
     if (s.loss - s.initialLoss > blowUp * Math.max(1, Math.abs(s.initialLoss)))
       return { kind: 'diverged', reason: 'blow-up', step, detail: `the loss rose to ${s.loss.toPrecision(4)} from ${s.initialLoss.toPrecision(4)} at the start` };
     const gTol = this.settings.stop.gradientNormTolerance;
-    if (gTol !== undefined && norm2(s.grad) <= gTol) return { kind: 'converged', rule: 'gradient-norm', step };
+    if (gTol !== undefined && norm2(s.grad) <= gTol) return this.judge({ rule: 'gradient-norm', tolerance: gTol });
     return null;
+  }
+
+  /** Whether the distance from the start has been growing over the recorded doublings of steps. */
+  private movingAway(): boolean {
+    const d = this.state.recent.distanceAt;
+    const k = Math.floor(Math.log2(Math.max(1, this.state.t)));
+    return k >= 2 && d[k] > d[k - 1] && d[k - 1] > d[k - 2];
   }
 
   /**
    * The loss-change rule and the step limit. A step taken at learning rate 0 (a schedule decayed to
    * nothing) does not count as calm: the loss stopped changing because the run stopped moving, not
-   * because it reached a minimum, so such a run ends at the step limit instead of "converging".
+   * because it reached a minimum. Whichever rule fires, the end point is judged (end-state.ts).
    */
   private checkProgress(previousLoss: number, learningRate: number): RunOutcome | null {
     const s = this.state;
@@ -174,11 +242,28 @@ export class RunCursor {
     else if (lossChangeTolerance !== undefined) {
       const scale = Math.max(1, Math.abs(s.loss), Math.abs(previousLoss));
       s.calmSteps = Math.abs(s.loss - previousLoss) / scale <= lossChangeTolerance ? s.calmSteps + 1 : 0;
-      if (s.calmSteps >= lossChangePatience) return { kind: 'converged', rule: 'loss-change', step: s.t };
+      if (s.calmSteps >= lossChangePatience) return this.judge({ rule: 'loss-change', tolerance: lossChangeTolerance, patience: lossChangePatience });
     }
-    if (s.t >= maxSteps) return { kind: 'step-limit', step: s.t };
+    if (s.t >= maxSteps) return this.judge('step-limit');
     return null;
   }
+}
+
+/** The surface with every evaluation added to the run's count. */
+function countingSurface(surface: Surface, counter: { evaluations: number }): Surface {
+  const counted: Surface = {
+    dimension: surface.dimension,
+    variables: surface.variables,
+    value: (x) => (counter.evaluations++, surface.value(x)),
+    valueGradient: (x, g) => (counter.evaluations++, surface.valueGradient(x, g)),
+    valueGradientHessian: (x, g, h) => (counter.evaluations++, surface.valueGradientHessian(x, g, h)),
+  };
+  const withProducts = surface as Surface & { hessianVector?: (x: ArrayLike<number>, v: ArrayLike<number>, out: Float64Array) => void };
+  if (withProducts.hessianVector) {
+    const hv = withProducts.hessianVector.bind(surface);
+    (counted as typeof withProducts).hessianVector = (x, v, out) => (counter.evaluations++, hv(x, v, out));
+  }
+  return counted;
 }
 
 function addNoise(g: Float64Array, std: number, rng: RngState): void {

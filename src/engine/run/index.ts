@@ -1,6 +1,8 @@
 export { RunCursor, type RunState } from './cursor';
 export { createMinibatchState, nextMinibatch, stepsForEpochs, validateMinibatch, type MinibatchSettings, type MinibatchState } from './minibatch';
-export { describeOutcome, outcomeLabel, type RunOutcome } from './outcome';
+export { describeOutcome, outcomeDetail, outcomeLabel, pointText, OUTCOME_KINDS, type EndPoint, type OutcomeKind, type RunOutcome, type StopRule } from './outcome';
+export { judgeEnd, describeEndPoint, type EndFacts, type EndTrigger } from './end-state';
+export { DEFAULT_STATIONARITY_TOLERANCE, stationarityThreshold } from './stationarity';
 export {
   validateRunSettings,
   validateStopRules,

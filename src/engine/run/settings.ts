@@ -20,6 +20,11 @@ export interface StopRules {
    * has climbed eight orders of magnitude above its start is not coming back in any useful sense.
    */
   blowUpFactor?: number;
+  /**
+   * tau of the scale-aware stationarity test (stationarity.ts): a point counts as stationary, and so
+   * can be reported converged, when |grad| <= tau max(|grad at the start|, ...). Default 1e-5.
+   */
+  stationarityTolerance?: number;
 }
 
 export interface RunSettings {
@@ -55,6 +60,9 @@ export function validateStopRules(stop: StopRules): void {
   const patience = stop.lossChangePatience;
   if (patience !== undefined && (!Number.isInteger(patience) || patience < 1))
     throw new SettingError('lossChangePatience', `stop: lossChangePatience must be a whole number >= 1, got ${patience}`);
+  const tau = stop.stationarityTolerance;
+  if (tau !== undefined && !(tau > 0 && tau < 1))
+    throw new SettingError('stationarityTolerance', `stop: stationarityTolerance must be a number in (0, 1), got ${tau}`);
   const blowUp = stop.blowUpFactor;
   if (blowUp !== undefined && !(blowUp > 0 && Number.isFinite(blowUp)))
     throw new SettingError('blowUpFactor', `stop: blowUpFactor must be a finite number > 0, got ${blowUp}`);

@@ -99,9 +99,10 @@ describe('L-BFGS', () => {
     expect(distance(lastPoint(batch), [1, 1])).toBeLessThan(1e-6);
   });
 
-  it('stays put (learning rate 0) at a point where the gradient vanishes', () => {
+  it('stays put (learning rate 0) where the gradient vanishes, and the run ends there as converged to a minimum', () => {
     const { batch } = runSpec(quadratic([1, 0, 0, 1], [0, 0]), { kind: 'lbfgs', learningRate: 1 }, [0, 0], { maxSteps: 2 });
-    expect(Array.from(batch.points)).toEqual([0, 0, 0, 0, 0, 0]);
+    expect(Array.from(batch.points)).toEqual([0, 0, 0, 0]);
     expect(batch.learningRate[1]).toBe(0);
+    expect(batch.outcome).toMatchObject({ kind: 'converged', rule: 'no-step', step: 1, point: { stationary: true, curvature: { kind: 'minimum' } } });
   });
 });

@@ -29,7 +29,9 @@ describe('RunCursor', () => {
     expect(b.loss[3]).toBeCloseTo(0.531441, 12);
     expect(Number.isNaN(b.learningRate[0])).toBe(true);
     expect(b.learningRate[1]).toBe(0.05);
-    expect(c.outcome).toEqual({ kind: 'step-limit', step: 3 });
+    expect(c.outcome).toMatchObject({ kind: 'step-limit', step: 3, point: { stationary: false, curvature: null } });
+    // |grad| at (0.729, 0) is 1.458; the start's is |(2, 20)| = 20.0998, so the test is 1e-5 of that.
+    expect(c.outcome && 'point' in c.outcome && c.outcome.point.gradNorm).toBeCloseTo(1.458, 12);
   });
 
   it('batches continue where the previous one ended', () => {
@@ -47,10 +49,10 @@ describe('RunCursor', () => {
     });
     c.runToEnd();
     // |x_t| = 0.9^t and grad = 2 x: 2 * 0.9^t <= 1e-6 first at t = ceil(log(5e-7)/log(0.9)) = 138.
-    expect(c.outcome).toEqual({ kind: 'converged', rule: 'gradient-norm', step: 138 });
+    expect(c.outcome).toMatchObject({ kind: 'converged', rule: 'gradient-norm', step: 138, point: { stationary: true, curvature: { kind: 'minimum', smallest: 2, largest: 20 } } });
   });
 
-  it('converges by the loss-change rule after the patience runs out', () => {
+  it('a loss-change rule that fires at a large gradient is "stalled", not converged', () => {
     const c = new RunCursor(bowl, plainDescent(0.05), {
       start: [1, 1],
       seed: 1,
@@ -58,8 +60,20 @@ describe('RunCursor', () => {
     });
     c.runToEnd();
     // f_t = 0.81^t for t >= 1; |f_t - f_{t-1}| = 0.19 * 0.81^(t-1) <= 1e-3 from t = 26 on (0.19*0.81^25 = 9.2e-4),
-    // and t = 1 changes by 10.19 from f_0 = 11; so the second calm step is t = 27.
-    expect(c.outcome).toEqual({ kind: 'converged', rule: 'loss-change', step: 27 });
+    // and t = 1 changes by 10.19 from f_0 = 11; so the second calm step is t = 27. There |grad| = 2 * 0.9^27
+    // = 0.116, far above the stationarity test 1e-5 * 20.0998: the rule fired, the run did not converge.
+    expect(c.outcome).toMatchObject({ kind: 'stalled', rule: 'loss-change', step: 27, point: { stationary: false } });
+    expect(c.outcome && 'detail' in c.outcome && c.outcome.detail).toMatch(/loss stopped changing .* at gradient norm 0\.116, above the stationarity test 0\.000201/);
+  });
+
+  it('the same loss-change rule, once the gradient has fallen by 1e-5, is "converged"', () => {
+    const c = new RunCursor(bowl, plainDescent(0.05), { start: [1, 1], seed: 1, stop: { maxSteps: 1000, lossChangeTolerance: 1e-12, lossChangePatience: 2 } });
+    c.runToEnd();
+    // 0.19 * 0.81^(t-1) <= 1e-12 from t = 125 (0.81^124 = 4.6e-12 * ...); second calm step t = 126; |grad| = 2 * 0.9^126 = 3.3e-6 <= 2.0e-4.
+    expect(c.outcome).toMatchObject({ kind: 'converged', rule: 'loss-change', point: { stationary: true } });
+    const o = c.outcome!;
+    expect(0.19 * 0.81 ** (o.step - 1)).toBeLessThanOrEqual(1e-12);
+    expect(0.19 * 0.81 ** (o.step - 3)).toBeGreaterThan(1e-12);
   });
 
   it('reports divergence with its step: GD above 2/lambda_max blows up', () => {
@@ -102,9 +116,12 @@ describe('RunCursor', () => {
 describe('outcome text', () => {
   it('says which rule, or at which step and why', async () => {
     const { describeOutcome, outcomeLabel } = await import('../../../src/engine');
-    expect(describeOutcome({ kind: 'converged', rule: 'gradient-norm', step: 138 })).toBe('converged (gradient norm) at step 138');
+    const point = { gradNorm: 1e-9, gradThreshold: 1e-4, stationary: true, newtonStep: 1e-9, curvature: { kind: 'minimum' as const, negative: 0, zero: 0, positive: 2, smallest: 2, largest: 20, method: 'exact' as const } };
+    expect(describeOutcome({ kind: 'converged', rule: 'gradient-norm', step: 138, point })).toBe('converged at step 138');
+    expect(describeOutcome({ kind: 'saddle', rule: 'no-step', step: 7, index: 1, point })).toBe('saddle point (index 1) at step 7');
     expect(outcomeLabel({ kind: 'diverged', reason: 'blow-up', step: 9, detail: 'the loss rose to 1e9' })).toBe('diverged at step 9 (loss blew up)');
-    expect(outcomeLabel({ kind: 'step-limit', step: 5 })).toBe('step limit');
+    expect(outcomeLabel({ kind: 'step-limit', step: 5, point: { ...point, stationary: false, curvature: null } })).toBe('step limit');
+    expect(describeOutcome({ kind: 'undefined', step: 0, detail: 'log of a negative number' })).toBe('undefined at start: log of a negative number');
   });
 });
 
@@ -117,6 +134,6 @@ describe('loss-change rule and a schedule that decays to zero', () => {
     const b = concatBatches(c.runToEnd(), 2);
     expect(b.learningRate[11]).toBe(0);
     expect(b.loss[b.count - 1]).toBeGreaterThan(5);
-    expect(c.outcome).toEqual({ kind: 'step-limit', step: 40 });
+    expect(c.outcome).toMatchObject({ kind: 'step-limit', step: 40, point: { stationary: false } });
   });
 });

@@ -17,7 +17,7 @@ import { num, str, type MethodDefinition } from './method';
  * y^T s > 1e-10 |s| |y| (our scale-free version of PyTorch's absolute y^T s > 1e-10; SciPy's BFGS
  * skips non-positive y^T s similarly). If the search finds no step with sufficient decrease, the
  * memory is cleared and the search repeated along -g; if that fails too the point stays put
- * (learning rate reported 0).
+ * (learning rate reported 0, `noDescent` set: the run loop ends the run there and judges the point).
  * Defaults m = 10 (SciPy L-BFGS-B; PyTorch 100), at most 20 evaluations per search.
  * 'none' line search takes the fixed step a = lr (PyTorch's default line_search_fn=None).
  * The step leaves the gradient at the new point in the work buffer and reports lossAtNewPoint, so the
@@ -101,7 +101,7 @@ function buildLbfgs(spec: ResolvedSpec): Optimizer<LbfgsState> {
         out.f = f + 0.5 * l2 * dot(trial, trial);
         out.d = d;
       };
-      const stayPut = (): StepReport => ({ learningRate: 0, extraEvaluations: evaluations, lossAtNewPoint: ctx.loss });
+      const stayPut = (): StepReport => ({ learningRate: 0, extraEvaluations: evaluations, lossAtNewPoint: ctx.loss, noDescent: true });
       if (norm2(g0) === 0) return stayPut();
 
       for (;;) {

@@ -138,7 +138,7 @@ function buildNewton(spec: ResolvedSpec): Optimizer<null> {
       };
       const phi0 = ctx.loss + 0.5 * l2 * dot(x, x);
       const result = slope < 0 ? backtrackingSearch(phi, phi0, slope, lr, c1, shrink, maxTrials) : { step: 0, value: phi0, evaluations: 0 };
-      if (result.step === 0) return { learningRate: 0, extraEvaluations: 1 + result.evaluations, lossAtNewPoint: ctx.loss };
+      if (result.step === 0) return { learningRate: 0, extraEvaluations: 1 + result.evaluations, lossAtNewPoint: ctx.loss, noDescent: true };
       x.set(trial);
       grad.set(trialGrad);
       return { learningRate: result.step, extraEvaluations: 1 + result.evaluations, lossAtNewPoint: rawLoss };

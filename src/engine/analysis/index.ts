@@ -1,0 +1,1 @@
+export { classifyEigenvalues, classifyPoint, EXACT_CLASSIFY_LIMIT, type PointClass, type PointKind } from './classify';

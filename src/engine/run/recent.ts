@@ -1,0 +1,51 @@
+/**
+ * The little of a run's past that the end-state judgement needs, as plain data (part of RunState):
+ * the last RECENT_POINTS points and losses in a ring (for cycle detection), and the distance from the
+ * start at steps 1, 2, 4, 8, ... (for growth without bound). Recording costs one copy of x per step.
+ */
+export const RECENT_POINTS = 9;
+
+export interface RecentPath {
+  /** RECENT_POINTS x n, row (t mod RECENT_POINTS) holds the point after step t. */
+  points: Float64Array;
+  loss: Float64Array;
+  /** Points recorded so far (capped at RECENT_POINTS). */
+  filled: number;
+  /** distanceAt[k]: Euclidean distance from the start after step 2^k (NaN until reached). */
+  distanceAt: Float64Array;
+}
+
+export function createRecentPath(x0: Float64Array, loss0: number): RecentPath {
+  const path: RecentPath = {
+    points: new Float64Array(RECENT_POINTS * x0.length),
+    loss: new Float64Array(RECENT_POINTS),
+    filled: 0,
+    distanceAt: new Float64Array(32).fill(Number.NaN),
+  };
+  recordRecent(path, 0, x0, loss0, x0);
+  return path;
+}
+
+export function recordRecent(path: RecentPath, t: number, x: Float64Array, loss: number, x0: Float64Array): void {
+  const n = x.length;
+  const slot = t % RECENT_POINTS;
+  path.points.set(x, slot * n);
+  path.loss[slot] = loss;
+  path.filled = Math.min(RECENT_POINTS, path.filled + 1);
+  if (t > 0 && (t & (t - 1)) === 0) {
+    const k = Math.log2(t);
+    if (k < path.distanceAt.length) path.distanceAt[k] = distance(x, x0);
+  }
+}
+
+/** The point recorded `back` steps before step t (back < filled), as a view. */
+export function recentPoint(path: RecentPath, t: number, back: number, n: number): Float64Array {
+  const slot = (((t - back) % RECENT_POINTS) + RECENT_POINTS) % RECENT_POINTS;
+  return path.points.subarray(slot * n, (slot + 1) * n);
+}
+
+export function distance(a: ArrayLike<number>, b: ArrayLike<number>): number {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += (a[i] - b[i]) ** 2;
+  return Math.sqrt(s);
+}
