@@ -44,6 +44,7 @@ const runConfig = z.object({
       lossChangePatience: z.number().int().min(1).optional(),
       gradientNormTolerance: finite.optional(),
       blowUpFactor: finite.optional(),
+      stationarityTolerance: finite.optional(),
     }),
   }),
   style: z.number().int().min(0),

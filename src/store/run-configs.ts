@@ -13,6 +13,18 @@ export function nextStyle(runs: readonly RunConfig[]): number {
   return k;
 }
 
+/**
+ * The optimizer a new run gets on the page: the engine's defaults, except that "Newton's method" starts
+ * as the robust variant (saddle-free with backtracking): plain Newton is drawn to saddle points and
+ * maxima as readily as to minima, which is worth seeing but a poor first choice. Plain Newton stays one
+ * setting away (variant 'plain', line search 'none').
+ */
+export function pageDefaultSpec(kind: OptimizerKind) {
+  const spec = defaultOptimizerSpec(kind);
+  if (kind === 'newton') spec.hyper = { ...spec.hyper, variant: 'saddle-free', lineSearch: 'backtracking' };
+  return spec;
+}
+
 /** A new run with the optimizer's defaults, a label not used yet, and its own style. */
 export function newRunConfig(kind: OptimizerKind, existing: readonly RunConfig[], start: number[]): RunConfig {
   const base = optimizerInfo(kind).label;
@@ -22,7 +34,7 @@ export function newRunConfig(kind: OptimizerKind, existing: readonly RunConfig[]
   return {
     id: freshId('c'),
     label,
-    optimizer: defaultOptimizerSpec(kind),
+    optimizer: pageDefaultSpec(kind),
     settings: { start: start.slice(), seed: 1, stop: { ...DEFAULT_STOP } },
     style: nextStyle(existing),
   };

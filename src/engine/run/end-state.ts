@@ -92,6 +92,8 @@ export function judgeEnd(surface: Surface, f: EndFacts, trigger: EndTrigger): Ru
   if (point.stationary && c?.kind === 'minimum') return { kind: 'converged', step, rule, point };
   if (point.stationary && typeof trigger === 'object') {
     if (!c) return { kind: 'stationary', step, rule, point };
+    if (c.kind === 'degenerate' && point.newtonStep !== null)
+      return { kind: 'stalled', step, rule, detail: `${stallDetail(trigger, point, true)}; the gradient is small next to the start's, but the local quadratic model's minimum is still ${point.newtonStep.toPrecision(3)} away (an ill-conditioned valley)`, point };
     if (c.kind === 'degenerate') return { kind: 'stationary', step, rule, point };
     if (c.kind === 'maximum') return { kind: 'maximum', step, rule, point };
     return { kind: 'saddle', step, rule, index: c.negative ?? 1, point };
@@ -103,8 +105,8 @@ export function judgeEnd(surface: Surface, f: EndFacts, trigger: EndTrigger): Ru
   return { kind: 'stalled', step, rule, detail: stallDetail(trigger, point), point };
 }
 
-function stallDetail(trigger: { rule: StopRule; tolerance?: number; patience?: number }, p: EndPoint): string {
-  const g = `gradient norm ${p.gradNorm.toPrecision(3)}, above the stationarity test ${p.gradThreshold.toPrecision(3)}`;
+function stallDetail(trigger: { rule: StopRule; tolerance?: number; patience?: number }, p: EndPoint, passedTest = false): string {
+  const g = `gradient norm ${p.gradNorm.toPrecision(3)}, ${passedTest ? 'below' : 'above'} the stationarity test ${p.gradThreshold.toPrecision(3)}`;
   switch (trigger.rule) {
     case 'loss-change':
       return `the loss stopped changing (relative change <= ${trigger.tolerance} for ${trigger.patience} steps) at ${g}`;

@@ -1,9 +1,9 @@
+import { pageDefaultSpec } from '../../store/run-configs';
 import { useId } from 'react';
 import {
   OPTIMIZERS,
   SCHEDULES,
   SettingError,
-  defaultOptimizerSpec,
   optimizerInfo,
   validateOptimizerSpec,
   validateRunSettings,
@@ -71,7 +71,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
           value={opt.kind}
           onChange={(e) => {
             const kind = e.target.value as OptimizerKind;
-            actions.updateRun(run.id, { optimizer: defaultOptimizerSpec(kind), label: run.label === info.label ? optimizerInfo(kind).label : run.label });
+            actions.updateRun(run.id, { optimizer: pageDefaultSpec(kind), label: run.label === info.label ? optimizerInfo(kind).label : run.label });
           }}
         >
           {OPTIMIZERS.map((o) => (

@@ -5,6 +5,7 @@ import { useActions, useApp } from '../app-context';
 import { RunEditor } from './RunEditor';
 import { RunGlyph } from './RunGlyph';
 import { statusText } from './status-text';
+import { outcomeDetail } from '../../engine';
 
 /** The runs: add, select, control, duplicate, remove; the selected run's settings below. */
 export function RunList() {
@@ -81,7 +82,7 @@ export function RunList() {
               <button type="button" className="run-select" aria-pressed={isSelected} onClick={() => actions.selectRun(isSelected ? null : r.id)}>
                 <RunGlyph style={r.style} />
                 <span className="run-label">{r.label}</span>
-                <span className="run-status" data-phase={st?.phase ?? 'none'}>
+                <span className="run-status" data-phase={st?.phase ?? 'none'} data-outcome={st?.summary.outcome?.kind} title={st?.summary.outcome ? outcomeDetail(st.summary.outcome) : undefined}>
                   {statusText(st)}
                 </span>
               </button>

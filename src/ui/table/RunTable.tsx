@@ -1,4 +1,4 @@
-import { outcomeLabel } from '../../engine';
+import { outcomeDetail, outcomeLabel } from '../../engine';
 import { formatValue } from '../plot';
 import { useActions, useApp } from '../app-context';
 import { NumberField } from '../fields/NumberField';
@@ -55,7 +55,7 @@ export function RunTable() {
                   <th scope="row">
                     <RunGlyph style={r.style} /> {r.label}
                   </th>
-                  <td data-col="outcome" title={s?.outcome?.kind === 'diverged' ? s.outcome.detail : undefined}>{st?.phase === 'error' ? `error: ${st.error?.message}` : s?.outcome ? outcomeLabel(s.outcome) : st ? st.phase : '—'}</td>
+                  <td data-col="outcome" data-outcome={s?.outcome?.kind} title={s?.outcome ? outcomeDetail(s.outcome) : undefined}>{st?.phase === 'error' ? `error: ${st.error?.message}` : s?.outcome ? outcomeLabel(s.outcome) : st ? st.phase : '—'}</td>
                   <td data-col="steps">{s ? s.steps : '—'}</td>
                   <td data-col="final-loss" data-value={s ? String(s.finalLoss) : ''}>
                     {s && Number.isFinite(s.finalLoss) ? formatValue(s.finalLoss) : '—'}
