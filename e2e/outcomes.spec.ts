@@ -1,0 +1,47 @@
+import { readFileSync } from 'node:fs';
+import { expect, test } from '@playwright/test';
+import Papa from 'papaparse';
+import { openFresh, waitForContours, waitForRunsToEnd } from './helpers';
+
+/**
+ * The page shows what a run really did: on x^2 + 10 y^2 (lambda_max = 20), gradient descent at exactly
+ * 2 / lambda_max = 0.1 bounces between two points (oscillating), at 0.05 it converges; the results
+ * table and the results CSV carry the same outcome words and details.
+ */
+test('gradient descent at 2 / lambda_max is shown as oscillating, below it as converged, in the table and the CSV', async ({ page }) => {
+  await openFresh(page);
+  await page.getByLabel('Your formula').check();
+  await page.getByLabel('Formula', { exact: true }).fill('x^2 + 10*y^2');
+  await page.getByRole('button', { name: 'Use this formula' }).click();
+  await waitForContours(page);
+  for (const name of ['Remove Plain descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
+  const kind = page.getByLabel('New run with');
+  for (const rate of ['0.1', '0.05']) {
+    await kind.selectOption({ label: 'Gradient descent' });
+    await page.getByRole('button', { name: 'Add run' }).click();
+    const lr = page.getByLabel('learning rate', { exact: true });
+    await lr.fill(rate);
+    await lr.press('Enter');
+    const start = page.getByRole('group', { name: 'Start point' });
+    for (const v of ['x', 'y']) {
+      await start.getByLabel(v, { exact: true }).fill('1');
+      await start.getByLabel(v, { exact: true }).press('Enter');
+    }
+  }
+  await waitForRunsToEnd(page, 2);
+  const cells = page.locator('[data-testid="run-table"] td[data-col="outcome"]');
+  await expect(cells.nth(0)).toHaveAttribute('data-outcome', 'oscillating');
+  await expect(cells.nth(0)).toHaveText('oscillating (period 2)');
+  await expect(cells.nth(0)).toHaveAttribute('title', /^period 2, amplitude 1\.00; gradient norm 20\.0 \(not stationary/);
+  await expect(cells.nth(1)).toHaveAttribute('data-outcome', 'converged');
+  await expect(cells.nth(1)).toHaveAttribute('title', /Hessian: minimum, eigenvalues 2\.00 to 20\.0/);
+
+  const download = page.waitForEvent('download');
+  await page.getByRole('button', { name: 'Results CSV' }).click();
+  const parsed = Papa.parse<string[]>(readFileSync((await (await download).path())!, 'utf8').trim(), { skipEmptyLines: true });
+  const [header, ...rows] = parsed.data;
+  const col = (name: string) => header.indexOf(name);
+  expect(rows.map((r) => r[col('outcome')])).toEqual(['oscillating', 'converged']);
+  expect(rows[1][col('point_kind')]).toBe('minimum');
+  expect(Number(rows[0][col('final_grad_norm')])).toBeCloseTo(20, 6);
+});
