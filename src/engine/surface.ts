@@ -19,6 +19,13 @@ export interface Surface {
    * and returns f(x).
    */
   valueGradientHessian(x: ArrayLike<number>, grad: Float64Array, hessian: Float64Array): number;
+  /**
+   * Optional: writes the exact Hessian-vector product H(x) v into `out` (length n) without forming
+   * H (for a network, Pearlmutter's R-operator; for a model linear in its rows, one pass over the
+   * rows). Surfaces without it are multiplied through their full Hessian by the engine's
+   * `hessianVectorProduct`.
+   */
+  hessianVector?(x: ArrayLike<number>, v: ArrayLike<number>, out: Float64Array): void;
 }
 
 /**

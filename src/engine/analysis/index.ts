@@ -1,0 +1,3 @@
+// Analysis of a surface at points: Hessian-vector products, extreme eigenvalues, classification of
+// stationary points, sharpness along a path, and critical-point search.
+export { hessianScratch, hessianVectorProduct, multiplyDense, type HessianScratch } from './hessian-vector';
