@@ -4,3 +4,4 @@ export { hessianScratch, hessianVectorProduct, multiplyDense, type HessianScratc
 export { defaultLanczosIterations, extremeEigenvalues, type ExtremeEigenvalues, type LanczosOptions, type SymmetricOperator } from './lanczos';
 export { tridiagonalEigen, tridiagonalScratch, type TridiagonalScratch } from './tridiagonal';
 export { classifyPoint, countSigns, type ClassifyOptions, type ExactPointClass, type LanczosPointClass, type PointClass, type PointKind } from './classify';
+export { sharpnessAlong, type SharpnessOptions } from './sharpness';
