@@ -5,3 +5,4 @@ export { defaultLanczosIterations, extremeEigenvalues, type ExtremeEigenvalues, 
 export { tridiagonalEigen, tridiagonalScratch, type TridiagonalScratch } from './tridiagonal';
 export { classifyPoint, countSigns, type ClassifyOptions, type ExactPointClass, type LanczosPointClass, type PointClass, type PointKind } from './classify';
 export { sharpnessAlong, type SharpnessOptions } from './sharpness';
+export { findCriticalPoints, type CriticalPoint, type CriticalPointOptions, type CriticalPointSearch } from './critical';
