@@ -60,6 +60,35 @@ describe.each(Object.keys(SPECS))('%s: hessianVector', (key) => {
     );
   });
 
+  it('matches central differences of the exact gradient along v (independent of the Hessian code)', () => {
+    // (grad f(x + h v) - grad f(x - h v)) / 2h = H v + O(h^2 |v|^3); h = 1e-5 as in calculus.ts.
+    const h = 1e-5;
+    const up = new Float64Array(n);
+    const down = new Float64Array(n);
+    const gu = new Float64Array(n);
+    const gd = new Float64Array(n);
+    const out = new Float64Array(n);
+    fc.assert(
+      fc.property(parameters(key, n), vectorOf(n, 1), (p, v) => {
+        for (let j = 0; j < n; j++) {
+          up[j] = p[j] + h * v[j];
+          down[j] = p[j] - h * v[j];
+        }
+        surface.valueGradient(up, gu);
+        surface.valueGradient(down, gd);
+        surface.hessianVector(p, v, out);
+        let worst = 0;
+        let scale = 0;
+        for (let i = 0; i < n; i++) {
+          worst = Math.max(worst, Math.abs(out[i] - (gu[i] - gd[i]) / (2 * h)));
+          scale = Math.max(scale, Math.abs(out[i]));
+        }
+        expect(worst).toBeLessThanOrEqual(2e-6 * (1 + scale));
+      }),
+      { seed: 20240612, numRuns: 10 },
+    );
+  });
+
   it('is linear in v and leaves its inputs alone', () => {
     const p = Array.from({ length: n }, (_, j) => (RANGES[key] ? RANGES[key][j][0] * 0.3 + RANGES[key][j][1] * 0.7 : 0.4 * Math.sin(j + 1)));
     const v = Float64Array.from({ length: n }, (_, j) => Math.cos(3 * j + 1));
