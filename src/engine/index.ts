@@ -7,5 +7,5 @@ export { SettingError, type Optimizer, type Oracle, type StepContext, type StepR
 export * from './slice';
 export * from './optim';
 export * from './linalg';
-export * from './analysis';
 export * from './expr';
+export * from './analysis';

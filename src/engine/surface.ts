@@ -25,6 +25,13 @@ export interface Surface {
    * finite or the surface cannot tell.
    */
   explainUndefined?(x: ArrayLike<number>, what: 'value' | 'gradient'): string | null;
+  /**
+   * Optional: writes the exact Hessian-vector product H(x) v into `out` (length n) without forming
+   * H (for a network, Pearlmutter's R-operator; for a model linear in its rows, one pass over the
+   * rows). Surfaces without it are multiplied through their full Hessian by the engine's
+   * `hessianVectorProduct`.
+   */
+  hessianVector?(x: ArrayLike<number>, v: ArrayLike<number>, out: Float64Array): void;
 }
 
 /**

@@ -100,7 +100,7 @@ describe('runTableCsv', () => {
     label: 'momentum 0.9',
     optimizer: 'momentum',
     learningRate: 0.05,
-    outcome: { kind: 'converged', rule: 'gradient-norm', step: 120, point: { gradNorm: 3e-9, gradThreshold: 2e-4, stationary: true, newtonStep: 1e-9, curvature: { kind: 'minimum', negative: 0, zero: 0, positive: 2, smallest: 2, largest: 20, method: 'exact' } } },
+    outcome: { kind: 'converged', rule: 'gradient-norm', step: 120, point: { gradNorm: 3e-9, gradThreshold: 2e-4, stationary: true, newtonStep: 1e-9, curvature: { kind: 'minimum', negative: 0, zero: 0, positive: 2, smallest: 2, largest: 20, eigenvalues: [2, 20], method: 'exact' } } },
     steps: 120,
     finalLoss: 1e-9,
     variables: ['x', 'y'],

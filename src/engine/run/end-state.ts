@@ -1,4 +1,4 @@
-import { classifyPoint, EXACT_CLASSIFY_LIMIT } from '../analysis';
+import { classifyPoint } from '../analysis';
 import { choleskyDecompose, choleskySolve } from '../linalg';
 import type { Surface } from '../surface';
 import { norm2 } from '../vector';
@@ -39,7 +39,7 @@ export function describeEndPoint(surface: Surface, f: EndFacts): EndPoint {
   const point: EndPoint = { gradNorm, gradThreshold, stationary, curvature: null, newtonStep: null };
   if (!stationary) return point;
   point.curvature = safeClassify(surface, f.x);
-  if (point.curvature?.kind === 'minimum' && surface.dimension <= EXACT_CLASSIFY_LIMIT) {
+  if (point.curvature?.kind === 'minimum' && surface.dimension <= NEWTON_STEP_LIMIT) {
     point.newtonStep = newtonStepLength(surface, f.x);
     // A definite Hessian whose model minimum is still far away: the curvature is too weak to hold the
     // point (a flat direction), so it is not a minimum the run has reached.
@@ -47,6 +47,9 @@ export function describeEndPoint(surface: Surface, f: EndFacts): EndPoint {
   }
   return point;
 }
+
+/** Largest dimension for which the Newton step is measured (a dense Cholesky solve). */
+const NEWTON_STEP_LIMIT = 200;
 
 /** |H^-1 g| relative to max(1, |x|) above which a definite stationary point counts as flat. */
 const FLAT_STEP = 1e-3;

@@ -9,7 +9,8 @@ import type { RegressionLoss } from './spec';
  * r_i = f(x_i; b) - y_i, per-row loss r_i^2, summed (RSS) or averaged (MSE), plus lambda/2 |b|^2 on
  * every parameter. The engine's formula compiler gives f, its gradient J_i = df/db and its Hessian
  * d2f/db2 at one row, so the loss's derivatives are exact:
- *   gradient 2 scale sum_i r_i J_i,   Hessian 2 scale sum_i (J_i J_i^T + r_i d2f_i/db2).
+ *   gradient 2 scale sum_i r_i J_i,   Hessian 2 scale sum_i (J_i J_i^T + r_i d2f_i/db2),
+ *   Hessian-vector product 2 scale sum_i (J_i (J_i . v) + r_i (d2f_i/db2) v).
  * (Gauss-Newton methods drop the second term; Newton here keeps it.) Standardised inputs are not
  * offered: the formula's parameters refer to its inputs in their own units.
  *
@@ -95,6 +96,29 @@ export class FormulaModelSurface extends RowLossSurface {
       }
     }
     return s;
+  }
+
+  /**
+   * H v = 2 sum_i (J_i (J_i . v) + r_i (d2f_i/db2) v), row by row: the per-row Hessian of f comes from
+   * the compiled formula (a formula model has a handful of parameters), the n x n loss Hessian is
+   * never summed.
+   */
+  protected sumHessianVector(w: Float64Array, v: Float64Array, out: Float64Array): void {
+    const { y, rows } = this.design;
+    const f = this.compiled;
+    const n = this.dimension;
+    const jac = this.rowGrad;
+    const hf = this.rowHess;
+    for (let i = 0; i < rows; i++) {
+      const r = f.valueGradientHessian(w, this.loadRow(i), jac, hf) - y[i];
+      let jv = 0;
+      for (let b = 0; b < n; b++) jv += jac[b] * v[b];
+      for (let a = 0; a < n; a++) {
+        let hv = 0;
+        for (let b = 0; b < n; b++) hv += hf[a * n + b] * v[b];
+        out[a] += 2 * (jac[a] * jv + r * hv);
+      }
+    }
   }
 
   /** Formula parameters have no standardised form: a copy. */

@@ -6,7 +6,8 @@ import type { RegressionLoss } from './spec';
  * Linear regression with intercept: f_i = b + sum_j w_j x_ij, residual r_i = f_i - y_i, per-row loss
  * l_i = r_i^2; the loss is their sum (RSS) or mean (MSE), plus lambda/2 |w|^2 on the weights (not the
  * intercept). Exact derivatives, with x~_i = (1, x_i): gradient 2 scale sum_i r_i x~_i, Hessian
- * 2 scale sum_i x~_i x~_i^T (constant: the surface is a quadratic bowl).
+ * 2 scale sum_i x~_i x~_i^T (constant: the surface is a quadratic bowl); the Hessian-vector product
+2 scale sum_i x~_i (x~_i . v) needs one pass over the rows.
  */
 export class LinearRegressionSurface extends AffineModelSurface {
   readonly model = 'linear' as const;
@@ -85,6 +86,19 @@ export class LinearRegressionSurface extends AffineModelSurface {
       }
     }
     return s;
+  }
+
+  /** H v = 2 sum_i x~_i (x~_i . v): one pass over the rows, O(N p), without forming the (constant) Hessian. */
+  protected sumHessianVector(_w: Float64Array, v: Float64Array, out: Float64Array): void {
+    const { x, p, rows } = this.design;
+    for (let i = 0; i < rows; i++) {
+      const o = i * p;
+      let t = v[0];
+      for (let j = 0; j < p; j++) t += v[j + 1] * x[o + j];
+      const t2 = 2 * t;
+      out[0] += t2;
+      for (let j = 0; j < p; j++) out[j + 1] += t2 * x[o + j];
+    }
   }
 
   predict(params: ArrayLike<number>, inputRow: ArrayLike<number>): number {

@@ -59,6 +59,24 @@ export class LogisticRegressionSurface extends AffineModelSurface {
     return s;
   }
 
+  /** H v = sum_i sigmoid(z_i) (1 - sigmoid(z_i)) x~_i (x~_i . v): one pass over the rows, O(N p). */
+  protected sumHessianVector(w: Float64Array, v: Float64Array, out: Float64Array): void {
+    const { x, p, rows } = this.design;
+    for (let i = 0; i < rows; i++) {
+      const o = i * p;
+      let z = w[0];
+      let t = v[0];
+      for (let j = 0; j < p; j++) {
+        z += w[j + 1] * x[o + j];
+        t += v[j + 1] * x[o + j];
+      }
+      const q = sigmoid(z);
+      const ct = q * (1 - q) * t;
+      out[0] += ct;
+      for (let j = 0; j < p; j++) out[j + 1] += ct * x[o + j];
+    }
+  }
+
   /** P(y = 1) for one row of raw inputs. */
   predict(params: ArrayLike<number>, inputRow: ArrayLike<number>): number {
     return sigmoid(affineAt(this.design, params, 1, 0, inputRow));

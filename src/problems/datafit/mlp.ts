@@ -18,8 +18,9 @@ import { unitToOriginal, unitToStandardised } from './units';
  * Hessian: exact, by forward-over-reverse: Pearlmutter's R-operator (B. A. Pearlmutter, "Fast exact
  * multiplication by the Hessian", Neural Computation 6, 1994) gives H v per row from one forward and
  * one backward pass of directional derivatives; doing it for v = e_1..e_n gives the columns of H, at
- * O(n^2) per row. ReLU is not twice differentiable at 0: its phi'' is taken as 0 everywhere (exact
- * wherever no unit sits exactly at z = 0).
+ * O(n^2) per row; the surface's hessianVector runs the same pass once per row with the caller's v,
+ * O(n) per row, without forming H. ReLU is not twice differentiable at 0: its phi'' is taken as 0
+ * everywhere (exact wherever no unit sits exactly at z = 0).
  *
  * Layout: layer by layer, W_l row-major by unit (unit u's incoming weights contiguous), then b_l.
  * Names: 'h1.u3.w_<input>' (first layer), 'h2.u1.w3' (weight from unit 3 of the layer below),
@@ -137,8 +138,8 @@ export class MlpSurface extends RowLossSurface {
     return this.activation === 'relu' ? 0 : -2 * a * (1 - a * a);
   }
 
-  /** Backward pass from delta[L], adding the row's gradient into g. */
-  private backward(w: Float64Array, g: Float64Array): void {
+  /** Backward pass from delta[L], adding the row's gradient into g (only the deltas when g is null). */
+  private backward(w: Float64Array, g: Float64Array | null): void {
     for (let l = this.L; l >= 1; l--) {
       const nIn = this.sizes[l - 1];
       const nOut = this.sizes[l];
@@ -146,12 +147,13 @@ export class MlpSurface extends RowLossSurface {
       const prev = this.a[l - 1];
       const wo = this.weightOffsets[l];
       const bo = this.biasOffsets[l];
-      for (let u = 0; u < nOut; u++) {
-        const du = d[u];
-        g[bo + u] += du;
-        const row = wo + u * nIn;
-        for (let v = 0; v < nIn; v++) g[row + v] += du * prev[v];
-      }
+      if (g !== null)
+        for (let u = 0; u < nOut; u++) {
+          const du = d[u];
+          g[bo + u] += du;
+          const row = wo + u * nIn;
+          for (let v = 0; v < nIn; v++) g[row + v] += du * prev[v];
+        }
       if (l > 1) {
         const below = this.delta[l - 1];
         const zb = this.zs[l - 1];
@@ -165,12 +167,15 @@ export class MlpSurface extends RowLossSurface {
   }
 
   /**
-   * H v for the current row (after forward and backward), added into column `column` of h: the
-   * R-operator's forward pass (R z_l, R a_l), the head's second derivative, then its backward pass.
+   * H v for the current row (after forward and backward), added into out[k * stride + column] for
+   * parameter k: the R-operator's forward pass (R z_l, R a_l), the head's second derivative, then its
+   * backward pass. With stride n it fills column `column` of an n x n Hessian; with stride 1 and
+   * column 0 it adds the product into a vector.
    */
-  private addHessianColumn(w: Float64Array, v: Float64Array, h: Float64Array, column: number): void {
+  private addHessianVector(w: Float64Array, v: Float64Array, out: Float64Array, stride: number, column: number): void {
     const L = this.L;
-    const n = this.dimension;
+    const n = stride;
+    const h = out;
     this.ra[0].fill(0);
     for (let l = 1; l <= L; l++) {
       const nIn = this.sizes[l - 1];
@@ -297,7 +302,7 @@ export class MlpSurface extends RowLossSurface {
       this.backward(w, g);
       for (let m = 0; m < this.dimension; m++) {
         v[m] = 1;
-        this.addHessianColumn(w, v, h, m);
+        this.addHessianVector(w, v, h, this.dimension, m);
         v[m] = 0;
       }
     }
@@ -310,6 +315,19 @@ export class MlpSurface extends RowLossSurface {
         h[c * n + r] = mean;
       }
     return s;
+  }
+
+  /**
+   * H v over every row by the R-operator (one forward, one backward and one R pass per row, O(N n)),
+   * never forming H: the same arithmetic as one column of sumHessian with v in place of e_m.
+   */
+  protected sumHessianVector(w: Float64Array, v: Float64Array, out: Float64Array): void {
+    const y = this.design.y;
+    for (let i = 0; i < this.rows; i++) {
+      this.headGradient(this.forward(w, i, null), y[i]);
+      this.backward(w, null);
+      this.addHessianVector(w, v, out, 1, 0);
+    }
   }
 
   /** First-layer units converted (units.ts); deeper layers never see the inputs and are unchanged. */

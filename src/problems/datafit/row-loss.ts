@@ -28,6 +28,7 @@ export abstract class RowLossSurface implements DataFitSurface {
   /** 1 for a sum, 1 / N for a mean. */
   protected readonly scale: number;
   private readonly w: Float64Array;
+  private readonly vLoaded: Float64Array;
 
   constructor(
     protected readonly design: Design,
@@ -46,6 +47,7 @@ export abstract class RowLossSurface implements DataFitSurface {
     this.inputs = design.inputs;
     this.target = design.target;
     this.w = new Float64Array(this.dimension);
+    this.vLoaded = new Float64Array(this.dimension);
   }
 
   /** sum_i l_i(w) over all rows (rows null) or rows[0..count). */
@@ -54,6 +56,12 @@ export abstract class RowLossSurface implements DataFitSurface {
   protected abstract sumGradient(w: Float64Array, g: Float64Array, rows: Int32Array | null, count: number): number;
   /** Also adds sum_i grad l_i into g and sum_i Hessian l_i into h (row-major, both triangles). */
   protected abstract sumHessian(w: Float64Array, g: Float64Array, h: Float64Array, rows: Int32Array | null, count: number): number;
+
+  /**
+   * Adds sum_i (Hessian l_i) v into `out` (arrives zeroed) over every row, without forming the
+   * Hessian; `v` arrives copied into a Float64Array of length n.
+   */
+  protected abstract sumHessianVector(w: Float64Array, v: Float64Array, out: Float64Array): void;
 
   abstract toOriginalUnits(params: ArrayLike<number>): number[];
   abstract fromOriginalUnits(params: ArrayLike<number>): number[];
@@ -75,6 +83,22 @@ export abstract class RowLossSurface implements DataFitSurface {
     grad.fill(0);
     hessian.fill(0);
     return this.finish(w, this.sumHessian(w, grad, hessian, null, this.rows), this.scale, grad, hessian);
+  }
+
+  /**
+   * H(x) v exactly, for the full loss: scale * sum_i (Hessian l_i) v + lambda mask .* v. Allocates
+   * nothing; `out` must not alias `v` or `x`.
+   */
+  hessianVector(x: ArrayLike<number>, v: ArrayLike<number>, out: Float64Array): void {
+    const w = this.load(x);
+    const n = w.length;
+    if (v.length !== n || out.length !== n) throw new RangeError(`data-fit surface: expected vectors of length ${n}, got ${v.length} and ${out.length}`);
+    const u = this.vLoaded;
+    for (let j = 0; j < n; j++) u[j] = v[j];
+    out.fill(0);
+    this.sumHessianVector(w, u, out);
+    const scale = this.scale;
+    for (let j = 0; j < n; j++) out[j] = scale * out[j] + (this.penalised[j] ? this.l2 * u[j] : 0);
   }
 
   valueGradientOnRows(x: ArrayLike<number>, grad: Float64Array, rowIndices: Int32Array, count: number): number {

@@ -26,6 +26,8 @@ export class SoftmaxRegressionSurface extends OnePassRowLossSurface {
   private readonly z: Float64Array;
   private readonly probs: Float64Array;
   private readonly xt: Float64Array;
+  /** x~_i . v_k per class (Hessian-vector products). */
+  private readonly classDots: Float64Array;
 
   constructor(design: Design, classLabels: readonly string[], l2: number) {
     const p = design.p;
@@ -44,6 +46,7 @@ export class SoftmaxRegressionSurface extends OnePassRowLossSurface {
     this.z = new Float64Array(k);
     this.probs = new Float64Array(k);
     this.xt = new Float64Array(q);
+    this.classDots = new Float64Array(k);
   }
 
   /** Writes the row's logits into this.z. */
@@ -102,6 +105,35 @@ export class SoftmaxRegressionSurface extends OnePassRowLossSurface {
       }
     }
     return s;
+  }
+
+  /**
+   * H v one row at a time without the K q x K q blocks: with u_k = x~_i . v_k (v_k the class-k slice
+   * of v) and s = sum_l pi_il u_l, the row adds pi_ik (u_k - s) x~_i to class k. O(N K q).
+   */
+  protected sumHessianVector(w: Float64Array, v: Float64Array, out: Float64Array): void {
+    const { x, p, rows } = this.design;
+    const q = p + 1;
+    const K = this.classes;
+    const { z, probs } = this;
+    const u = this.classDots;
+    for (let i = 0; i < rows; i++) {
+      const o = i * p;
+      this.logits(w, i);
+      logSumExpSoftmax(z, K, probs);
+      let s = 0;
+      for (let c = 0; c < K; c++) {
+        let t = v[c * q];
+        for (let j = 0; j < p; j++) t += v[c * q + 1 + j] * x[o + j];
+        u[c] = t;
+        s += probs[c] * t;
+      }
+      for (let c = 0; c < K; c++) {
+        const coef = probs[c] * (u[c] - s);
+        out[c * q] += coef;
+        for (let j = 0; j < p; j++) out[c * q + 1 + j] += coef * x[o + j];
+      }
+    }
   }
 
   toOriginalUnits(params: ArrayLike<number>): number[] {

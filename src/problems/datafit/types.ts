@@ -14,6 +14,8 @@ export interface DataFitSurface extends RowwiseSurface, GroupedSurface {
   /** The input columns the model reads, in the order `predict` takes them. */
   readonly inputs: readonly string[];
   readonly target: string;
+  /** Exact H(x) v without forming H (every data-fit model has one). */
+  hessianVector(x: ArrayLike<number>, v: ArrayLike<number>, out: Float64Array): void;
   /** The same fitted function with parameters for inputs in their original units (a copy when not standardised). */
   toOriginalUnits(params: ArrayLike<number>): number[];
   /** The inverse of `toOriginalUnits`. */

@@ -116,7 +116,7 @@ describe('RunCursor', () => {
 describe('outcome text', () => {
   it('says which rule, or at which step and why', async () => {
     const { describeOutcome, outcomeLabel } = await import('../../../src/engine');
-    const point = { gradNorm: 1e-9, gradThreshold: 1e-4, stationary: true, newtonStep: 1e-9, curvature: { kind: 'minimum' as const, negative: 0, zero: 0, positive: 2, smallest: 2, largest: 20, method: 'exact' as const } };
+    const point = { gradNorm: 1e-9, gradThreshold: 1e-4, stationary: true, newtonStep: 1e-9, curvature: { kind: 'minimum' as const, negative: 0, zero: 0, positive: 2, smallest: 2, largest: 20, eigenvalues: [2, 20], method: 'exact' as const } };
     expect(describeOutcome({ kind: 'converged', rule: 'gradient-norm', step: 138, point })).toBe('converged at step 138');
     expect(describeOutcome({ kind: 'saddle', rule: 'no-step', step: 7, index: 1, point })).toBe('saddle point (index 1) at step 7');
     expect(outcomeLabel({ kind: 'diverged', reason: 'blow-up', step: 9, detail: 'the loss rose to 1e9' })).toBe('diverged at step 9 (loss blew up)');
