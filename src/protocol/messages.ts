@@ -6,7 +6,7 @@
  * Identity: each launch of a run gets a fresh `runId`, each grid request a fresh `requestId`; the page
  * drops any message whose id is no longer current, so work superseded by an edit can never be drawn.
  */
-import type { GridRequest, OptimizerSpec, RunOutcome, RunSettings, TrajectoryBatch } from '../engine';
+import type { GridRequest, OptimizerSpec, RunOutcome, RunSettings, StartMapSpec, TrajectoryBatch } from '../engine';
 import type { CsvImport, SurfaceSpec } from '../problems';
 
 /** Everything needed to reproduce one run. */
@@ -39,7 +39,20 @@ export type ToWorker =
   /** Parse an imported CSV file's text into a dataset table (off the main thread, with progress). */
   | { type: 'csv/parse'; requestId: string; text: string; options: CsvParseOptions }
   /** The loss along the segment from -> to (Goodfellow, Vinyals & Saxe 2015), at `count` alphas in [lo, hi]. */
-  | { type: 'profile/sample'; requestId: string; surface: SurfaceSpec; from: number[]; to: number[]; alphas: { from: number; to: number; count: number } };
+  | { type: 'profile/sample'; requestId: string; surface: SurfaceSpec; from: number[]; to: number[]; alphas: { from: number; to: number; count: number } }
+  /** Run a start-point map (src/worker/studies.ts); a new study supersedes the one in progress. */
+  | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StartMapSpec }
+  | { type: 'study/cancel'; requestId: string };
+
+/** Finished cells of a study, in the order they finished (cell indices as in StartMapSpec). */
+export interface StudyCells {
+  indices: Int32Array;
+  steps: Int32Array;
+  loss: Float64Array;
+  /** count x n end points, row-major. */
+  endPoints: Float64Array;
+  outcomes: RunOutcome[];
+}
 
 /** What the page chooses when importing a CSV file (the rest of CsvImportOptions are the worker's). */
 export interface CsvParseOptions {
@@ -67,7 +80,10 @@ export type FromWorker =
   | { type: 'csv/progress'; requestId: string; fraction: number; rowsRead: number }
   | { type: 'csv/result'; requestId: string; result: CsvImport }
   | { type: 'profile/result'; requestId: string; alphas: Float64Array; values: Float64Array }
-  | { type: 'profile/error'; requestId: string; message: string };
+  | { type: 'profile/error'; requestId: string; message: string }
+  | { type: 'study/cells'; requestId: string; cells: StudyCells; done: number; total: number; elapsedMs: number }
+  | { type: 'study/done'; requestId: string; elapsedMs: number }
+  | { type: 'study/error'; requestId: string; message: string };
 
 /**
  * Pooled grid sampling (src/worker/pool.ts): the page's pool sends each member worker bands of one grid

@@ -2,6 +2,7 @@ import type { FromWorker, ToWorker } from '../protocol';
 import { GridSampler } from './grids';
 import { sampleProfile } from './profiles';
 import { RunPool } from './runs';
+import { StudyRunner } from './studies';
 import { parseCsvInWorker } from './tables';
 import type { Timing } from './scheduler';
 
@@ -9,6 +10,7 @@ import type { Timing } from './scheduler';
 export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
   const runs = new RunPool(post, timing);
   const grids = new GridSampler(post, timing);
+  const studies = new StudyRunner(post, timing);
   return function handle(msg: ToWorker): void {
     switch (msg.type) {
       case 'run/start':
@@ -25,6 +27,10 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
         return parseCsvInWorker(post, msg.requestId, msg.text, msg.options);
       case 'profile/sample':
         return sampleProfile(post, msg.requestId, msg.surface, msg.from, msg.to, msg.alphas);
+      case 'study/start':
+        return studies.start(msg.requestId, msg.surface, msg.study);
+      case 'study/cancel':
+        return studies.cancel(msg.requestId);
     }
   };
 }

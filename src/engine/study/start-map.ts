@@ -1,0 +1,75 @@
+import type { OptimizerSpec } from '../optim/spec';
+import type { StopRules } from '../run';
+
+/**
+ * A start-point map as plain data: one run of one configuration from every cell centre of a
+ * resolution x resolution grid over a box in the plane of two parameters (`axes`); the other
+ * coordinates stay as `base` holds them (for surfaces of more than two parameters the map is a slice).
+ * Cell (i, j) has index i + j * resolution and its start at the centre of the cell: a_lo + (i + 1/2)
+ * (a_hi - a_lo) / resolution along the first axis, likewise b with j along the second.
+ */
+export interface StartMapSpec {
+  kind: 'start-map';
+  optimizer: OptimizerSpec;
+  stop: StopRules;
+  seed: number;
+  box: { a: [number, number]; b: [number, number] };
+  axes: [number, number];
+  base: number[];
+  resolution: number;
+}
+
+export const START_MAP_RESOLUTIONS = [16, 32, 64, 128, 256, 512] as const;
+
+export function validateStartMap(spec: StartMapSpec, dimension: number): void {
+  const r = spec.resolution;
+  if (!Number.isInteger(r) || r < 16 || r > 512) throw new RangeError(`start-point map: resolution must be a whole number from 16 to 512, got ${r}`);
+  if (spec.base.length !== dimension) throw new RangeError(`start-point map: base must have ${dimension} coordinates, got ${spec.base.length}`);
+  const [p, q] = spec.axes;
+  if (!(Number.isInteger(p) && Number.isInteger(q) && p >= 0 && q >= 0 && p < dimension && q < dimension && p !== q))
+    throw new RangeError(`start-point map: axes must be two different parameter indices below ${dimension}, got [${p}, ${q}]`);
+  for (const [name, [lo, hi]] of [['a', spec.box.a], ['b', spec.box.b]] as const)
+    if (!(Number.isFinite(lo) && Number.isFinite(hi) && lo < hi)) throw new RangeError(`start-point map: box.${name} must be finite with lo < hi, got [${lo}, ${hi}]`);
+}
+
+/** The start of cell `index` (full coordinates), written into `out`. */
+export function cellStart(spec: StartMapSpec, index: number, out: Float64Array): Float64Array {
+  const r = spec.resolution;
+  const i = index % r;
+  const j = (index - i) / r;
+  out.set(spec.base);
+  out[spec.axes[0]] = spec.box.a[0] + ((i + 0.5) * (spec.box.a[1] - spec.box.a[0])) / r;
+  out[spec.axes[1]] = spec.box.b[0] + ((j + 0.5) * (spec.box.b[1] - spec.box.b[0])) / r;
+  return out;
+}
+
+/**
+ * Cell indices of a resolution x resolution grid (resolution a power of two times 16 or less) in
+ * coarse-to-fine order: first the cells whose (i, j) are both multiples of resolution / 8, then those
+ * of resolution / 16 not yet listed, and so on down to 1, so after the first 1/64, 1/16, 1/4 of the
+ * work a coarser full picture can be drawn (each cell painted over the block it stands for).
+ */
+export function coarseToFineOrder(resolution: number): Int32Array {
+  const out = new Int32Array(resolution * resolution);
+  const seen = new Uint8Array(resolution * resolution);
+  let k = 0;
+  for (let stride = Math.max(1, 2 ** Math.floor(Math.log2(resolution / 8))); stride >= 1; stride /= 2)
+    for (let j = 0; j < resolution; j += stride)
+      for (let i = 0; i < resolution; i += stride) {
+        const c = i + j * resolution;
+        if (!seen[c]) {
+          seen[c] = 1;
+          out[k++] = c;
+        }
+      }
+  return out;
+}
+
+/** The stride of the block a cell stands for while the map is drawn coarse-to-fine (see above). */
+export function cellStride(index: number, resolution: number): number {
+  const i = index % resolution;
+  const j = (index - i) / resolution;
+  let stride = Math.max(1, 2 ** Math.floor(Math.log2(resolution / 8)));
+  while (stride > 1 && (i % stride !== 0 || j % stride !== 0)) stride /= 2;
+  return stride;
+}

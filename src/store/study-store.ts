@@ -1,0 +1,126 @@
+import { createStore, type StoreApi } from 'zustand/vanilla';
+import { BasinTracker, OUTCOME_KINDS, type KnownPoint, type OutcomeKind, type RunOutcome, type StartMapSpec } from '../engine';
+import type { SurfaceSpec } from '../problems';
+import type { FromWorker, StudyCells } from '../protocol';
+import type { EngineLink } from './engine-link';
+import { freshId } from './ids';
+
+/** The cells of a start-point map as they arrive (typed arrays indexed by cell). */
+export interface StudyCellsState {
+  filled: Uint8Array;
+  /** Index into OUTCOME_KINDS. */
+  kind: Uint8Array;
+  basin: Int32Array;
+  steps: Int32Array;
+  loss: Float64Array;
+  endPoints: Float64Array;
+  outcomes: (RunOutcome | undefined)[];
+}
+
+export interface StudyState {
+  status: 'idle' | 'running' | 'done' | 'cancelled' | 'error';
+  message: string | null;
+  requestId: string | null;
+  spec: StartMapSpec | null;
+  surface: SurfaceSpec | null;
+  variables: string[];
+  /** The run whose configuration the study uses. */
+  configLabel: string;
+  done: number;
+  total: number;
+  elapsedMs: number;
+  cells: StudyCellsState | null;
+  basinLabels: string[];
+  /** Bumped whenever cells arrive, so views redraw. */
+  version: number;
+}
+
+export interface StudyParams {
+  surface: SurfaceSpec;
+  variables: string[];
+  spec: StartMapSpec;
+  configLabel: string;
+  known: KnownPoint[];
+}
+
+export interface StudyStore {
+  store: StoreApi<StudyState>;
+  start(params: StudyParams): void;
+  cancel(): void;
+}
+
+/**
+ * Studies on the page: one start-point map at a time, run in its own worker so ordinary runs keep
+ * streaming. Cells arrive in coarse-to-fine order; each is assigned its basin as it arrives
+ * (BasinTracker: the nearest known minimum within 1% of the map's diagonal, else a cluster of end
+ * points within that distance).
+ */
+export function createStudyStore(link: EngineLink): StudyStore {
+  const store = createStore<StudyState>(() => ({
+    status: 'idle', message: null, requestId: null, spec: null, surface: null, variables: [], configLabel: '',
+    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], version: 0,
+  }));
+  let tracker: BasinTracker | null = null;
+
+  const receive = (cells: StudyCells) => {
+    const s = store.getState();
+    const c = s.cells;
+    if (!c || !tracker || !s.spec) return;
+    const n = s.variables.length;
+    cells.indices.forEach((index, k) => {
+      const outcome = cells.outcomes[k];
+      const end = cells.endPoints.subarray(k * n, (k + 1) * n);
+      c.filled[index] = 1;
+      c.kind[index] = OUTCOME_KINDS.indexOf(outcome.kind as OutcomeKind);
+      c.basin[index] = tracker!.assign(end, outcome.kind);
+      c.steps[index] = cells.steps[k];
+      c.loss[index] = cells.loss[k];
+      c.endPoints.set(end, index * n);
+      c.outcomes[index] = outcome;
+    });
+  };
+
+  link.listen((msg: FromWorker) => {
+    if (!('requestId' in msg) || msg.requestId !== store.getState().requestId) return;
+    switch (msg.type) {
+      case 'study/cells':
+        receive(msg.cells);
+        store.setState((s) => ({ done: msg.done, total: msg.total, elapsedMs: msg.elapsedMs, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
+        return;
+      case 'study/done':
+        store.setState({ status: 'done', elapsedMs: msg.elapsedMs });
+        return;
+      case 'study/error':
+        store.setState({ status: 'error', message: msg.message });
+        return;
+    }
+  });
+
+  return {
+    store,
+    start({ surface, variables, spec, configLabel, known }) {
+      const previous = store.getState().requestId;
+      if (previous) link.send({ type: 'study/cancel', requestId: previous });
+      const count = spec.resolution * spec.resolution;
+      const n = variables.length;
+      const diagonal = Math.hypot(spec.box.a[1] - spec.box.a[0], spec.box.b[1] - spec.box.b[0]);
+      tracker = new BasinTracker(known, 0.01 * diagonal);
+      const requestId = freshId('study');
+      store.setState({
+        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels],
+        cells: {
+          filled: new Uint8Array(count), kind: new Uint8Array(count), basin: new Int32Array(count).fill(-1), steps: new Int32Array(count),
+          loss: new Float64Array(count), endPoints: new Float64Array(count * n), outcomes: new Array(count),
+        },
+        version: store.getState().version + 1,
+      });
+      link.send({ type: 'study/start', requestId, surface, study: spec });
+    },
+    cancel() {
+      const { requestId, status } = store.getState();
+      if (!requestId || status !== 'running') return;
+      link.send({ type: 'study/cancel', requestId });
+      store.setState({ status: 'cancelled' });
+    },
+  };
+}

@@ -1,0 +1,81 @@
+import { describe, expect, it } from 'vitest';
+import { buildOptimizer, cellStart, coarseToFineOrder, RunCursor, type StartMapSpec } from '../../src/engine';
+import { buildSurface, describeSurface, type SurfaceSpec } from '../../src/problems';
+import { createStudyStore } from '../../src/store/study-store';
+import { inProcessLink } from './in-process-link';
+
+const surface: SurfaceSpec = { kind: 'catalogue', id: 'himmelblau' };
+const spec: StartMapSpec = {
+  kind: 'start-map',
+  optimizer: { kind: 'gd', learningRate: 0.005 },
+  stop: { maxSteps: 3000, lossChangeTolerance: 1e-14, gradientNormTolerance: 1e-8 },
+  seed: 1,
+  box: { a: [-5, 5], b: [-5, 5] },
+  axes: [0, 1],
+  base: [0, 0],
+  resolution: 16,
+};
+const minima = describeSurface(surface).knownPoints.filter((p) => p.kind === 'global-min').map((p) => ({ point: p.point, label: `minimum (${p.point.join(', ')})` }));
+
+describe('start-point map through the worker', () => {
+  const harness = inProcessLink();
+  const study = createStudyStore(harness.link);
+  study.start({ surface, variables: ['x', 'y'], spec, configLabel: 'GD', known: minima });
+  harness.drain();
+  const s = study.store.getState();
+
+  it('runs every cell and ends done', () => {
+    expect(s.status).toBe('done');
+    expect(s.done).toBe(256);
+    expect(Array.from(s.cells!.filled).every((f) => f === 1)).toBe(true);
+  });
+
+  it('on Himmelblau with small-step descent every start converges, the basin shares sum to the whole grid and each of the 4 minima has a basin', () => {
+    const c = s.cells!;
+    const counts = new Map<number, number>();
+    for (const b of c.basin) counts.set(b, (counts.get(b) ?? 0) + 1);
+    expect(counts.get(-1) ?? 0).toBe(0);
+    expect([...counts.keys()].sort()).toEqual([0, 1, 2, 3]);
+    expect([...counts.values()].reduce((a, b) => a + b, 0)).toBe(256);
+    expect(s.basinLabels).toHaveLength(4); // no cluster beyond the known minima
+  });
+
+  it("a sample of cells ends bit-identical to the same run done alone (its outcome too)", () => {
+    const himmelblau = buildSurface(surface);
+    const start = new Float64Array(2);
+    for (const index of [0, 17, 100, 255]) {
+      const cursor = new RunCursor(himmelblau, buildOptimizer(spec.optimizer), { start: Array.from(cellStart(spec, index, start)), seed: 1, stop: spec.stop });
+      cursor.runToEnd();
+      expect(Array.from(s.cells!.endPoints.subarray(index * 2, index * 2 + 2))).toEqual(Array.from(cursor.state.x));
+      expect(s.cells!.steps[index]).toBe(cursor.state.t);
+      expect(s.cells!.outcomes[index]).toEqual(cursor.outcome);
+    }
+  });
+
+  it('cell starts are cell centres, and the coarse-to-fine order lists every cell once, coarse grid first', () => {
+    expect(Array.from(cellStart(spec, 0, new Float64Array(2)))).toEqual([-5 + 10 / 32, -5 + 10 / 32]);
+    expect(Array.from(cellStart(spec, 16 + 3, new Float64Array(2)))).toEqual([-5 + 3.5 * 10 / 16, -5 + 1.5 * 10 / 16]);
+    const order = coarseToFineOrder(16);
+    expect(new Set(order).size).toBe(256);
+    // stride 2 first: the 8 x 8 coarse grid (i, j even) makes the first 64 cells.
+    expect(Array.from(order.subarray(0, 64)).every((c) => (c % 16) % 2 === 0 && Math.floor(c / 16) % 2 === 0)).toBe(true);
+  });
+
+  it('a bad spec is reported as an error, not thrown', () => {
+    const h = inProcessLink();
+    const st = createStudyStore(h.link);
+    st.start({ surface, variables: ['x', 'y'], spec: { ...spec, resolution: 7 }, configLabel: 'GD', known: minima });
+    h.drain();
+    expect(st.store.getState()).toMatchObject({ status: 'error', message: 'start-point map: resolution must be a whole number from 16 to 512, got 7' });
+  });
+
+  it('cancel stops the study: no more cells arrive', () => {
+    const h = inProcessLink();
+    const st = createStudyStore(h.link);
+    st.start({ surface, variables: ['x', 'y'], spec, configLabel: 'GD', known: minima });
+    st.cancel();
+    h.drain();
+    expect(st.store.getState().status).toBe('cancelled');
+    expect(st.store.getState().done).toBe(0);
+  });
+});
