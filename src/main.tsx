@@ -1,10 +1,12 @@
 import { createRoot } from 'react-dom/client';
 import { createAppStore, workspaceChanged, workspaceOf } from './store/app-store';
-import { workerLink } from './store/engine-link';
+import { lazyLink, workerLink } from './store/engine-link';
 import { loadSavedWorkspace, saveWorkspace } from './store/persistence';
 import { App } from './ui/App';
 import { createPageGridPool } from './worker/pool-web';
 import { AppContext } from './ui/app-context';
+import { createStudyStore } from './store/study-store';
+import { StudyContext } from './ui/study/study-context';
 import './ui/styles.css';
 
 const saved = loadSavedWorkspace(window.localStorage);
@@ -32,8 +34,13 @@ app.store.subscribe((state, previous) => {
 });
 if (saved.problem) app.store.setState({ notice: saved.problem });
 
+// Studies run in a worker of their own, started with the first study, so runs keep streaming beside them.
+const study = createStudyStore(lazyLink(workerLink));
+
 createRoot(document.getElementById('root')!).render(
   <AppContext.Provider value={app}>
-    <App />
+    <StudyContext.Provider value={study}>
+      <App />
+    </StudyContext.Provider>
   </AppContext.Provider>,
 );

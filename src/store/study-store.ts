@@ -31,6 +31,8 @@ export interface StudyState {
   elapsedMs: number;
   cells: StudyCellsState | null;
   basinLabels: string[];
+  /** The known minima the basins are measured against (drawn on the map). */
+  known: KnownPoint[];
   /** Bumped whenever cells arrive, so views redraw. */
   version: number;
 }
@@ -58,7 +60,7 @@ export interface StudyStore {
 export function createStudyStore(link: EngineLink): StudyStore {
   const store = createStore<StudyState>(() => ({
     status: 'idle', message: null, requestId: null, spec: null, surface: null, variables: [], configLabel: '',
-    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], version: 0,
+    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], version: 0,
   }));
   let tracker: BasinTracker | null = null;
 
@@ -107,7 +109,7 @@ export function createStudyStore(link: EngineLink): StudyStore {
       tracker = new BasinTracker(known, 0.01 * diagonal);
       const requestId = freshId('study');
       store.setState({
-        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels],
+        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels], known,
         cells: {
           filled: new Uint8Array(count), kind: new Uint8Array(count), basin: new Int32Array(count).fill(-1), steps: new Int32Array(count),
           loss: new Float64Array(count), endPoints: new Float64Array(count * n), outcomes: new Array(count),

@@ -5,6 +5,7 @@ import { ExportMenu } from './export/ExportMenu';
 import { RunList } from './runs/RunList';
 import { SurfacePanel } from './surface/SurfacePanel';
 import { RunTable } from './table/RunTable';
+import { StartMapPanel } from './study/StartMapPanel';
 import { useActions, useApp } from './app-context';
 import { PanelBoundary } from './PanelBoundary';
 import { ViewArea } from './view/ViewArea';
@@ -65,6 +66,9 @@ export function App() {
               <RunTable />
             </PanelBoundary>
           </div>
+          <PanelBoundary name="The start-point map">
+            <StartMapPanel />
+          </PanelBoundary>
         </main>
         <aside className="sidebar sidebar-right">
           <PanelBoundary name="The run list">

@@ -1,0 +1,68 @@
+import { readFileSync } from 'node:fs';
+import { expect, test } from '@playwright/test';
+import Papa from 'papaparse';
+import { canvasPixels, openFresh, waitForContours } from './helpers';
+
+/**
+ * A start-point map on Himmelblau (four minima, published in the reference file) with the demo's Adam
+ * run: every cell's run ends at one of the minima, the legend lists each with its share, the shares
+ * sum to 100%, the canvas shows the basin colours, a clicked cell becomes an ordinary run, and the
+ * map exports as CSV with one row per cell.
+ */
+test('a start-point map on Himmelblau colours the four basins, lists their shares, opens a cell as a run and exports CSV', async ({ page }) => {
+  await openFresh(page);
+  await page.getByLabel('Catalogue entry').selectOption({ label: 'Himmelblau' });
+  await waitForContours(page);
+  await page.getByRole('button', { name: /^Adam/ }).first().click(); // select the Adam run
+  const panel = page.getByTestId('start-map');
+  await panel.getByLabel('cells per side').selectOption('32');
+  await panel.getByRole('button', { name: 'Map start points' }).click();
+  await expect(panel.locator('.study-progress')).toHaveAttribute('data-status', 'done', { timeout: 60_000 });
+  await expect(panel.locator('.study-progress')).toContainText('1024 / 1024 runs');
+
+  const rows = panel.getByTestId('start-map-legend').locator('tbody tr');
+  const minima = rows.filter({ hasText: 'minimum (' });
+  await expect(minima).toHaveCount(4);
+  const shares = await rows.locator('td[data-share]').evaluateAll((cells) => cells.map((c) => Number(c.getAttribute('data-share'))));
+  expect(shares.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
+  const counts = await rows.locator('td:nth-child(3)').allInnerTexts();
+  expect(counts.map(Number).reduce((a, b) => a + b, 0)).toBe(1024);
+
+  // Every pixel of the map is painted, and at least four distinct hues show.
+  const px = await canvasPixels(page, 'start-map-canvas');
+  const colours = new Set<string>();
+  let clear = 0;
+  for (let k = 0; k < px.data.length; k += 4) {
+    if (px.data[k + 3] === 0) clear++;
+    else colours.add(`${px.data[k] >> 4},${px.data[k + 1] >> 4},${px.data[k + 2] >> 4}`);
+  }
+  expect(clear).toBe(0);
+  expect(colours.size).toBeGreaterThanOrEqual(4);
+
+  const before = await page.locator('.run-item').count();
+  await page.getByTestId('start-map-canvas').click({ position: { x: 300, y: 20 } });
+  await expect(page.locator('.run-item')).toHaveCount(before + 1);
+  await expect(page.locator('.run-item').last()).toContainText('from map cell');
+
+  const download = page.waitForEvent('download');
+  await panel.getByRole('button', { name: 'Map CSV' }).click();
+  const parsed = Papa.parse<string[]>(readFileSync((await (await download).path())!, 'utf8').trim(), { skipEmptyLines: true });
+  const [header, ...body] = parsed.data;
+  expect(body).toHaveLength(1024);
+  expect(header.slice(0, 6)).toEqual(['study', 'index', 'optimizer', 'learning_rate', 'start_x', 'start_y']);
+  const basins = new Set(body.map((r) => r[header.indexOf('basin')]));
+  expect([...basins].filter((b) => b.startsWith('minimum')).length).toBe(4);
+});
+
+test('a long start-point map can be cancelled and stops', async ({ page }) => {
+  await openFresh(page);
+  const panel = page.getByTestId('start-map');
+  await panel.getByLabel('cells per side').selectOption('256');
+  await panel.getByRole('button', { name: 'Map start points' }).click();
+  await expect(panel.locator('.study-progress')).toContainText('/ 65536 runs');
+  await panel.getByRole('button', { name: 'Cancel map' }).click();
+  await expect(panel.locator('.study-progress')).toHaveAttribute('data-status', 'cancelled');
+  const done = await panel.locator('progress').getAttribute('value');
+  await page.waitForTimeout(500);
+  expect(await panel.locator('progress').getAttribute('value')).toBe(done);
+});

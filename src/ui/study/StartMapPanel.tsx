@@ -1,0 +1,163 @@
+import { useEffect, useRef, useState } from 'react';
+import { cellStart, OUTCOME_KINDS, START_MAP_RESOLUTIONS, type StartMapSpec } from '../../engine';
+import { studyCsv } from '../../io/study-csv';
+import { useActions, useApp } from '../app-context';
+import { download } from '../export/download';
+import { mapLegend, paintStartMap } from './paint-map';
+import { basinColour, cssColour, OUTCOME_COLOURS } from './study-colours';
+import { useStudy, useStudyStore } from './study-context';
+
+const SIDE = 320;
+const fmt = (v: number) => String(+v.toPrecision(4));
+
+/**
+ * Start-point map: the selected run's configuration (or the first run's) started from every cell of
+ * the current view, each cell coloured by where its run ended. Clicking a cell opens that run as an
+ * ordinary run.
+ */
+export function StartMapPanel() {
+  const study = useStudyStore();
+  const state = useStudy((s) => s);
+  const runs = useApp((s) => s.runs);
+  const selected = useApp((s) => s.selectedRunId);
+  const view = useApp((s) => s.view);
+  const slice = useApp((s) => s.slice);
+  const surface = useApp((s) => s.surface);
+  const info = useApp((s) => s.surfaceInfo);
+  const actions = useActions();
+  const [resolution, setResolution] = useState(64);
+  const canvas = useRef<HTMLCanvasElement>(null);
+  const config = runs.find((r) => r.id === selected) ?? runs[0];
+
+  const problem = !config ? 'Add a run first: the map uses its optimizer and stop rules.' : slice.plane ? 'Start-point maps need a slice through two parameters (not a random or principal-direction plane).' : null;
+
+  const start = () => {
+    if (!config || problem) return;
+    const spec: StartMapSpec = {
+      kind: 'start-map', optimizer: config.optimizer, stop: config.settings.stop, seed: config.settings.seed,
+      box: { a: [view.a[0], view.a[1]], b: [view.b[0], view.b[1]] }, axes: slice.axes, base: slice.at.slice(), resolution,
+    };
+    const known = info.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min').map((p) => ({ point: p.point, label: `minimum (${p.point.map((v) => +v.toPrecision(6)).join(', ')})` }));
+    study.start({ surface, variables: info.variables, spec, configLabel: config.label, known });
+  };
+
+  useEffect(() => {
+    const c = canvas.current;
+    const ctx = c?.getContext('2d');
+    if (!c || !ctx) return;
+    ctx.clearRect(0, 0, c.width, c.height);
+    if (!state.cells || !state.spec) return;
+    const r = state.spec.resolution;
+    const image = new ImageData(paintStartMap(state.cells, r, state.spec.stop.maxSteps), r, r);
+    const off = new OffscreenCanvas(r, r);
+    off.getContext('2d')!.putImageData(image, 0, 0);
+    ctx.imageSmoothingEnabled = false;
+    ctx.drawImage(off, 0, 0, c.width, c.height);
+    // The known minima, as rings at their places in the map's plane.
+    const { box, axes } = state.spec;
+    for (const k of state.known) {
+      const px = ((k.point[axes[0]] - box.a[0]) / (box.a[1] - box.a[0])) * c.width;
+      const py = (1 - (k.point[axes[1]] - box.b[0]) / (box.b[1] - box.b[0])) * c.height;
+      if (!(px >= 0 && px <= c.width && py >= 0 && py <= c.height)) continue;
+      ctx.beginPath();
+      ctx.arc(px, py, 5, 0, 2 * Math.PI);
+      ctx.lineWidth = 2;
+      ctx.strokeStyle = '#fff';
+      ctx.stroke();
+      ctx.lineWidth = 1;
+      ctx.strokeStyle = '#000';
+      ctx.stroke();
+    }
+  }, [state.version, state.cells, state.spec, state.known]);
+
+  const openCell = (e: React.MouseEvent<HTMLCanvasElement>) => {
+    const spec = state.spec;
+    if (!spec || !config) return;
+    const rect = e.currentTarget.getBoundingClientRect();
+    const i = Math.min(spec.resolution - 1, Math.floor(((e.clientX - rect.left) / rect.width) * spec.resolution));
+    const j = Math.min(spec.resolution - 1, Math.floor(((rect.bottom - e.clientY) / rect.height) * spec.resolution));
+    const startPoint = Array.from(cellStart(spec, i + j * spec.resolution, new Float64Array(spec.base.length)));
+    const id = actions.duplicateRun(config.id);
+    if (!id) return;
+    actions.updateRun(id, { label: `${config.label} from map cell (${i + 1}, ${j + 1})`, settings: { ...config.settings, start: startPoint } });
+    actions.selectRun(id);
+  };
+
+  const exportCsv = () => {
+    const { cells, spec, variables } = state;
+    if (!cells || !spec) return;
+    const rows = [];
+    for (let c = 0; c < cells.filled.length; c++) {
+      const outcome = cells.outcomes[c];
+      if (!cells.filled[c] || !outcome) continue;
+      const n = variables.length;
+      rows.push({
+        index: c, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: cellStart(spec, c, new Float64Array(n)), outcome,
+        steps: cells.steps[c], finalLoss: cells.loss[c], endPoint: cells.endPoints.subarray(c * n, (c + 1) * n),
+        basin: cells.basin[c] >= 0 ? state.basinLabels[cells.basin[c]] : null, stepsToTolerance: null,
+      });
+    }
+    download('fall-line-start-map.csv', studyCsv('start-map', variables, rows), 'text/csv');
+  };
+
+  const legend = state.cells ? mapLegend(state.cells, state.basinLabels) : [];
+  const eta = state.status === 'running' && state.done > 0 ? ((state.total - state.done) * state.elapsedMs) / state.done / 1000 : null;
+  const [xName, yName] = [info.variables[slice.axes[0]], info.variables[slice.axes[1]]];
+  return (
+    <section className="study-panel" aria-label="Start-point map" data-testid="start-map">
+      <h2>Start-point map</h2>
+      <p className="study-help">
+        {config ? `Runs “${config.label}” from the centre of every cell of the current view (${xName} across, ${yName} up)` : 'Runs one configuration from every cell of the current view'}
+        {info.variables.length > 2 ? `, other parameters as the slice holds them (a slice of a ${info.variables.length}-parameter surface)` : ''}; each cell is coloured by where its run ended. Click a cell to open its run.
+      </p>
+      <div className="study-controls">
+        <label>
+          cells per side{' '}
+          <select value={resolution} onChange={(e) => setResolution(Number(e.target.value))}>
+            {START_MAP_RESOLUTIONS.map((r) => <option key={r} value={r}>{r}</option>)}
+          </select>
+        </label>
+        {state.status === 'running' ? (
+          <button type="button" onClick={() => study.cancel()}>Cancel map</button>
+        ) : (
+          <button type="button" onClick={start} disabled={!!problem}>Map start points</button>
+        )}
+        <button type="button" onClick={exportCsv} disabled={!state.cells || state.done === 0}>Map CSV</button>
+        {state.total > 0 && (
+          <span className="study-progress" data-status={state.status}>
+            <progress max={state.total} value={state.done} aria-label="Runs done" /> {state.done} / {state.total} runs
+            {eta !== null ? `, about ${eta.toFixed(eta < 10 ? 1 : 0)} s left` : ''}
+            {state.status === 'done' ? ` in ${(state.elapsedMs / 1000).toFixed(1)} s` : state.status === 'cancelled' ? ' (cancelled)' : ''}
+          </span>
+        )}
+      </div>
+      {problem && <p className="field-error">{problem}</p>}
+      {state.message && <p className="field-error" role="alert">{state.message}</p>}
+      <div className="study-body">
+        <figure className="start-map-figure">
+        <canvas ref={canvas} width={SIDE} height={SIDE} className="start-map-canvas" data-testid="start-map-canvas" data-version={state.version}
+          aria-label={`Start-point map picture, ${state.spec?.resolution ?? 0} by ${state.spec?.resolution ?? 0} cells`} onClick={openCell} />
+          {state.spec && (
+            <figcaption className="start-map-axes" data-testid="start-map-axes">
+              {xName} from {fmt(state.spec.box.a[0])} (left) to {fmt(state.spec.box.a[1])} (right); {yName} from {fmt(state.spec.box.b[0])} (bottom) to {fmt(state.spec.box.b[1])} (top); rings: known minima
+            </figcaption>
+          )}
+        </figure>
+        <table className="study-legend" data-testid="start-map-legend">
+          <caption>Where the runs ended ({state.spec?.stop.maxSteps ?? '–'} steps at most; lighter = more steps)</caption>
+          <thead><tr><th scope="col">colour</th><th scope="col">end</th><th scope="col">starts</th><th scope="col">share</th></tr></thead>
+          <tbody>
+            {legend.map((row) => (
+              <tr key={row.key} data-basin={row.basin} data-outcome={row.kindIndex >= 0 ? OUTCOME_KINDS[row.kindIndex] : undefined}>
+                <td><span className="swatch" style={{ background: cssColour(row.basin >= 0 ? basinColour(row.basin) : (OUTCOME_COLOURS[OUTCOME_KINDS[row.kindIndex]] ?? [255, 255, 255])) }} /></td>
+                <td>{row.label}</td>
+                <td>{row.count}</td>
+                <td data-share={row.share}>{(100 * row.share).toFixed(1)}%</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </section>
+  );
+}
