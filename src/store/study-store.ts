@@ -57,7 +57,11 @@ export interface StudyStore {
  * (BasinTracker: the nearest known minimum within 1% of the map's diagonal, else a cluster of end
  * points within that distance).
  */
-export function createStudyStore(link: EngineLink): StudyStore {
+/** Least time between two redraws of a running study. */
+const UPDATE_MS = 200;
+
+export function createStudyStore(link: EngineLink, clock: () => number = () => performance.now()): StudyStore {
+  let lastUpdate = -Infinity;
   const store = createStore<StudyState>(() => ({
     status: 'idle', message: null, requestId: null, spec: null, surface: null, variables: [], configLabel: '',
     done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], version: 0,
@@ -83,14 +87,21 @@ export function createStudyStore(link: EngineLink): StudyStore {
   };
 
   link.listen((msg: FromWorker) => {
-    if (!('requestId' in msg) || msg.requestId !== store.getState().requestId) return;
+    const current = store.getState();
+    if (!('requestId' in msg) || msg.requestId !== current.requestId || current.status !== 'running') return;
     switch (msg.type) {
-      case 'study/cells':
+      case 'study/cells': {
         receive(msg.cells);
+        // The view redraws the whole map on each update: at most every UPDATE_MS, so a fast study does
+        // not keep the main thread busy repainting (the cells themselves are stored as they arrive).
+        const now = clock();
+        if (now - lastUpdate < UPDATE_MS && msg.done < msg.total) return;
+        lastUpdate = now;
         store.setState((s) => ({ done: msg.done, total: msg.total, elapsedMs: msg.elapsedMs, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
         return;
+      }
       case 'study/done':
-        store.setState({ status: 'done', elapsedMs: msg.elapsedMs });
+        store.setState((s) => ({ status: 'done', elapsedMs: msg.elapsedMs, done: s.total, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
         return;
       case 'study/error':
         store.setState({ status: 'error', message: msg.message });

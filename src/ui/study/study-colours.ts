@@ -9,9 +9,16 @@ import { OUTCOME_KINDS, type OutcomeKind } from '../../engine';
  */
 export type Rgb = [number, number, number];
 
+const basinCache = new Map<number, Rgb>();
+
 export function basinColour(id: number): Rgb {
-  const c = hsl((20 + id * 137.5) % 360, 0.55, 0.5).rgb();
-  return [Math.round(c.r), Math.round(c.g), Math.round(c.b)];
+  let rgb = basinCache.get(id);
+  if (!rgb) {
+    const c = hsl((20 + id * 137.5) % 360, 0.55, 0.5).rgb();
+    rgb = [Math.round(c.r), Math.round(c.g), Math.round(c.b)];
+    basinCache.set(id, rgb);
+  }
+  return rgb;
 }
 
 export const OUTCOME_COLOURS: Partial<Record<OutcomeKind, Rgb>> = {
