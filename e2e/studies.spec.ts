@@ -66,3 +66,30 @@ test('a long start-point map can be cancelled and stops', async ({ page }) => {
   await page.waitForTimeout(500);
   expect(await panel.locator('progress').getAttribute('value')).toBe(done);
 });
+
+test('multi-start on Himmelblau: summary with the success rate, outcomes, the quartile band drawn, CSV of every start', async ({ page }) => {
+  await openFresh(page);
+  await page.getByLabel('Catalogue entry').selectOption({ label: 'Himmelblau' });
+  await waitForContours(page);
+  await page.getByRole('button', { name: /^Adam/ }).first().click();
+  await page.getByRole('tab', { name: 'Multi-start' }).click();
+  const panel = page.getByTestId('multi-start');
+  await panel.getByLabel('number of starts').fill('60');
+  await panel.getByRole('button', { name: 'Run starts' }).click();
+  await expect(panel.locator('.study-progress')).toHaveAttribute('data-status', 'done', { timeout: 60_000 });
+  const summary = panel.getByTestId('multi-start-summary');
+  await expect(summary).toContainText('Over 60 starts');
+  const rate = Number(await summary.locator('tr[data-key="success"] td').getAttribute('data-value'));
+  expect(rate).toBeGreaterThan(0.5);
+  expect(rate).toBeLessThanOrEqual(1);
+  await expect(summary).toContainText('minimum (3, 2)');
+  const px = await canvasPixels(page, 'multi-start-bands');
+  let blue = 0;
+  for (let k = 0; k < px.data.length; k += 4) if (px.data[k + 2] > 150 && px.data[k] < 120) blue++;
+  expect(blue).toBeGreaterThan(100); // the median line and band are drawn
+  const download = page.waitForEvent('download');
+  await panel.getByRole('button', { name: 'Starts CSV' }).click();
+  const parsed = Papa.parse<string[]>(readFileSync((await (await download).path())!, 'utf8').trim(), { skipEmptyLines: true });
+  expect(parsed.data).toHaveLength(61);
+  expect(parsed.data[1][0]).toBe('multi-start');
+});

@@ -6,7 +6,7 @@
  * Identity: each launch of a run gets a fresh `runId`, each grid request a fresh `requestId`; the page
  * drops any message whose id is no longer current, so work superseded by an edit can never be drawn.
  */
-import type { GridRequest, OptimizerSpec, RunOutcome, RunSettings, StartMapSpec, TrajectoryBatch } from '../engine';
+import type { GridRequest, OptimizerSpec, RunOutcome, RunSettings, StudySpec, TrajectoryBatch } from '../engine';
 import type { CsvImport, SurfaceSpec } from '../problems';
 
 /** Everything needed to reproduce one run. */
@@ -40,8 +40,8 @@ export type ToWorker =
   | { type: 'csv/parse'; requestId: string; text: string; options: CsvParseOptions }
   /** The loss along the segment from -> to (Goodfellow, Vinyals & Saxe 2015), at `count` alphas in [lo, hi]. */
   | { type: 'profile/sample'; requestId: string; surface: SurfaceSpec; from: number[]; to: number[]; alphas: { from: number; to: number; count: number } }
-  /** Run a start-point map (src/worker/studies.ts); a new study supersedes the one in progress. */
-  | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StartMapSpec }
+  /** Run a study (src/worker/studies.ts); a new study supersedes the one in progress. */
+  | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StudySpec }
   | { type: 'study/cancel'; requestId: string };
 
 /** Finished cells of a study, in the order they finished (cell indices as in StartMapSpec). */
@@ -82,7 +82,8 @@ export type FromWorker =
   | { type: 'profile/result'; requestId: string; alphas: Float64Array; values: Float64Array }
   | { type: 'profile/error'; requestId: string; message: string }
   | { type: 'study/cells'; requestId: string; cells: StudyCells; done: number; total: number; elapsedMs: number }
-  | { type: 'study/done'; requestId: string; elapsedMs: number }
+  /** `bands`: for multi-start studies, the 25%, 50% and 75% quantiles of the loss across runs per step. */
+  | { type: 'study/done'; requestId: string; elapsedMs: number; bands?: Float64Array[] }
   | { type: 'study/error'; requestId: string; message: string };
 
 /**

@@ -1,5 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { BasinTracker, OUTCOME_KINDS, type KnownPoint, type OutcomeKind, type RunOutcome, type StartMapSpec } from '../engine';
+import { BasinTracker, OUTCOME_KINDS, type KnownPoint, type OutcomeKind, type RunOutcome, type StudySpec } from '../engine';
 import type { SurfaceSpec } from '../problems';
 import type { FromWorker, StudyCells } from '../protocol';
 import type { EngineLink } from './engine-link';
@@ -21,7 +21,7 @@ export interface StudyState {
   status: 'idle' | 'running' | 'done' | 'cancelled' | 'error';
   message: string | null;
   requestId: string | null;
-  spec: StartMapSpec | null;
+  spec: StudySpec | null;
   surface: SurfaceSpec | null;
   variables: string[];
   /** The run whose configuration the study uses. */
@@ -33,6 +33,8 @@ export interface StudyState {
   basinLabels: string[];
   /** The known minima the basins are measured against (drawn on the map). */
   known: KnownPoint[];
+  /** Multi-start studies: the 25%, 50% and 75% quantiles of the loss across runs, per step. */
+  bands: Float64Array[] | null;
   /** Bumped whenever cells arrive, so views redraw. */
   version: number;
 }
@@ -40,9 +42,11 @@ export interface StudyState {
 export interface StudyParams {
   surface: SurfaceSpec;
   variables: string[];
-  spec: StartMapSpec;
+  spec: StudySpec;
   configLabel: string;
   known: KnownPoint[];
+  /** End points within this distance share a basin (BasinTracker). */
+  basinRadius: number;
 }
 
 export interface StudyStore {
@@ -52,10 +56,11 @@ export interface StudyStore {
 }
 
 /**
- * Studies on the page: one start-point map at a time, run in its own worker so ordinary runs keep
- * streaming. Cells arrive in coarse-to-fine order; each is assigned its basin as it arrives
- * (BasinTracker: the nearest known minimum within 1% of the map's diagonal, else a cluster of end
- * points within that distance).
+ * Studies on the page: one study (a start-point map or a multi-start study) at a time, run in its own
+ * worker so ordinary runs keep streaming. Cells arrive as they finish (a map's in coarse-to-fine
+ * order); each is assigned its basin as it arrives (BasinTracker: the nearest known minimum within
+ * `basinRadius`, else a cluster of end points within that distance; the page uses 1% of the view's
+ * diagonal).
  */
 /** Least time between two redraws of a running study. */
 const UPDATE_MS = 200;
@@ -64,7 +69,7 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
   let lastUpdate = -Infinity;
   const store = createStore<StudyState>(() => ({
     status: 'idle', message: null, requestId: null, spec: null, surface: null, variables: [], configLabel: '',
-    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], version: 0,
+    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], bands: null, version: 0,
   }));
   let tracker: BasinTracker | null = null;
 
@@ -101,7 +106,7 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
         return;
       }
       case 'study/done':
-        store.setState((s) => ({ status: 'done', elapsedMs: msg.elapsedMs, done: s.total, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
+        store.setState((s) => ({ status: 'done', elapsedMs: msg.elapsedMs, done: s.total, bands: msg.bands ?? null, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
         return;
       case 'study/error':
         store.setState({ status: 'error', message: msg.message });
@@ -111,16 +116,15 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
 
   return {
     store,
-    start({ surface, variables, spec, configLabel, known }) {
+    start({ surface, variables, spec, configLabel, known, basinRadius }) {
       const previous = store.getState().requestId;
       if (previous) link.send({ type: 'study/cancel', requestId: previous });
-      const count = spec.resolution * spec.resolution;
+      const count = spec.kind === 'start-map' ? spec.resolution * spec.resolution : spec.count;
       const n = variables.length;
-      const diagonal = Math.hypot(spec.box.a[1] - spec.box.a[0], spec.box.b[1] - spec.box.b[0]);
-      tracker = new BasinTracker(known, 0.01 * diagonal);
+      tracker = new BasinTracker(known, basinRadius);
       const requestId = freshId('study');
       store.setState({
-        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels], known,
+        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels], known, bands: null,
         cells: {
           filled: new Uint8Array(count), kind: new Uint8Array(count), basin: new Int32Array(count).fill(-1), steps: new Int32Array(count),
           loss: new Float64Array(count), endPoints: new Float64Array(count * n), outcomes: new Array(count),

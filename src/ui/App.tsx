@@ -5,7 +5,7 @@ import { ExportMenu } from './export/ExportMenu';
 import { RunList } from './runs/RunList';
 import { SurfacePanel } from './surface/SurfacePanel';
 import { RunTable } from './table/RunTable';
-import { StartMapPanel } from './study/StartMapPanel';
+import { StudyArea } from './study/StudyArea';
 import { useActions, useApp } from './app-context';
 import { PanelBoundary } from './PanelBoundary';
 import { ViewArea } from './view/ViewArea';
@@ -66,8 +66,8 @@ export function App() {
               <RunTable />
             </PanelBoundary>
           </div>
-          <PanelBoundary name="The start-point map">
-            <StartMapPanel />
+          <PanelBoundary name="The studies">
+            <StudyArea />
           </PanelBoundary>
         </main>
         <aside className="sidebar sidebar-right">

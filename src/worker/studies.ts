@@ -1,4 +1,7 @@
-import { buildOptimizer, cellStart, coarseToFineOrder, RunCursor, validateStartMap, type Optimizer, type RunOutcome, type StartMapSpec, type Surface } from '../engine';
+import {
+  buildOptimizer, cellStart, coarseToFineOrder, drawStarts, hasParameterGroups, lossBands, RunCursor, validateMultiStart, validateStartMap,
+  type Optimizer, type RunOutcome, type RunSettings, type StudySpec, type Surface,
+} from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
 import type { FromWorker, StudyCells } from '../protocol';
 import { errorText } from './runs';
@@ -6,14 +9,15 @@ import { SLICE_MS, type Timing } from './scheduler';
 
 interface StudyJob {
   requestId: string;
-  spec: StartMapSpec;
   surface: Surface;
   optimizer: Optimizer;
+  /** The cells in the order they are run. */
   order: Int32Array;
-  /** Position in `order` of the next cell to start. */
+  settingsOf: (index: number) => RunSettings;
+  /** Loss curves of every run (multi-start studies), for the quantile bands. */
+  curves: Float64Array[] | null;
   next: number;
-  /** The cell being worked on when a slice ran out in the middle of a long run. */
-  current: { index: number; cursor: RunCursor } | null;
+  current: { index: number; cursor: RunCursor; loss: number[] | null } | null;
   startedAt: number;
   pending: { index: number; outcome: RunOutcome; steps: number; loss: number; end: Float64Array }[];
 }
@@ -22,10 +26,11 @@ interface StudyJob {
 const CHUNK = 2000;
 
 /**
- * Runs a start-point map: one ordinary RunCursor per cell (so every cell's end point and outcome are
- * exactly those of the same run done alone), cells in coarse-to-fine order, in time slices; after each
- * slice the finished cells go out in one message with the progress. One study at a time: a new one
- * supersedes the one in progress; cancel drops it between slices.
+ * Runs a study: one ordinary RunCursor per cell (a start of a start-point map or of a multi-start
+ * study), so every cell's end point and outcome are exactly those of the same run done alone; cells
+ * of a map in coarse-to-fine order; in time slices, posting the cells finished in each slice with
+ * the progress. One study at a time: a new one supersedes the one in progress; cancel drops it
+ * between slices.
  */
 export class StudyRunner {
   private job: StudyJob | null = null;
@@ -35,14 +40,11 @@ export class StudyRunner {
     private readonly timing: Timing,
   ) {}
 
-  start(requestId: string, surfaceSpec: SurfaceSpec, spec: StartMapSpec): void {
+  start(requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec): void {
     try {
       const surface = buildSurface(surfaceSpec);
-      validateStartMap(spec, surface.dimension);
-      const optimizer = buildOptimizer(spec.optimizer);
       const started = !this.job;
-      const order = coarseToFineOrder(spec.resolution);
-      this.job = { requestId, spec, surface, optimizer, order, next: 0, current: null, startedAt: this.timing.now(), pending: [] };
+      this.job = { requestId, surface, optimizer: buildOptimizer(spec.optimizer), ...plan(spec, surface), next: 0, current: null, startedAt: this.timing.now(), pending: [] };
       if (started) this.timing.later(() => this.work(), 0);
     } catch (e) {
       this.job = null;
@@ -58,17 +60,19 @@ export class StudyRunner {
     const job = this.job;
     if (!job) return;
     const deadline = this.timing.now() + SLICE_MS;
-    const start = new Float64Array(job.surface.dimension);
     try {
       while (this.timing.now() < deadline && (job.current || job.next < job.order.length)) {
         if (!job.current) {
           const index = job.order[job.next++];
-          const settings = { start: Array.from(cellStart(job.spec, index, start)), seed: job.spec.seed, stop: job.spec.stop };
-          job.current = { index, cursor: new RunCursor(job.surface, job.optimizer, settings) };
+          job.current = { index, cursor: new RunCursor(job.surface, job.optimizer, job.settingsOf(index)), loss: job.curves ? [] : null };
         }
-        const { index, cursor } = job.current;
-        if (!cursor.outcome) cursor.advance(CHUNK);
+        const { index, cursor, loss } = job.current;
+        if (!cursor.outcome) {
+          const batch = cursor.advance(CHUNK);
+          if (loss) for (let k = 0; k < batch.count; k++) loss.push(batch.loss[k]);
+        }
         if (cursor.outcome) {
+          if (job.curves && loss) job.curves[index] = Float64Array.from(loss);
           job.pending.push({ index, outcome: cursor.outcome, steps: cursor.state.t, loss: cursor.state.loss, end: Float64Array.from(cursor.state.x) });
           job.current = null;
         }
@@ -81,7 +85,8 @@ export class StudyRunner {
     this.flush(job);
     if (this.job !== job) return this.job ? this.timing.later(() => this.work(), 0) : undefined;
     if (job.next >= job.order.length && !job.current) {
-      this.post({ type: 'study/done', requestId: job.requestId, elapsedMs: this.timing.now() - job.startedAt });
+      const bands = job.curves ? lossBands(job.curves, [0.25, 0.5, 0.75]).bands : undefined;
+      this.post({ type: 'study/done', requestId: job.requestId, elapsedMs: this.timing.now() - job.startedAt, bands });
       this.job = null;
       return;
     }
@@ -102,4 +107,21 @@ export class StudyRunner {
     const done = job.next - (job.current ? 1 : 0);
     this.post({ type: 'study/cells', requestId: job.requestId, cells, done, total: job.order.length, elapsedMs: this.timing.now() - job.startedAt });
   }
+}
+
+/** The cells of a study: their order, each cell's run settings, whether loss curves are kept. */
+function plan(spec: StudySpec, surface: Surface): Pick<StudyJob, 'order' | 'settingsOf' | 'curves'> {
+  const n = surface.dimension;
+  if (spec.kind === 'start-map') {
+    validateStartMap(spec, n);
+    const start = new Float64Array(n);
+    return { order: coarseToFineOrder(spec.resolution), settingsOf: (index) => ({ start: Array.from(cellStart(spec, index, start)), seed: spec.seed, stop: spec.stop }), curves: null };
+  }
+  validateMultiStart(spec);
+  const starts = drawStarts(spec.distribution, n, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined);
+  return {
+    order: Int32Array.from({ length: spec.count }, (_, k) => k),
+    settingsOf: (index) => ({ start: Array.from(starts.subarray(index * n, (index + 1) * n)), seed: spec.seed, stop: spec.stop }),
+    curves: new Array(spec.count),
+  };
 }

@@ -20,7 +20,7 @@ const minima = describeSurface(surface).knownPoints.filter((p) => p.kind === 'gl
 describe('start-point map through the worker', () => {
   const harness = inProcessLink();
   const study = createStudyStore(harness.link);
-  study.start({ surface, variables: ['x', 'y'], spec, configLabel: 'GD', known: minima });
+  study.start({ surface, variables: ['x', 'y'], spec, configLabel: 'GD', known: minima, basinRadius: 0.01 * Math.hypot(10, 10) });
   harness.drain();
   const s = study.store.getState();
 
@@ -64,7 +64,7 @@ describe('start-point map through the worker', () => {
   it('a bad spec is reported as an error, not thrown', () => {
     const h = inProcessLink();
     const st = createStudyStore(h.link);
-    st.start({ surface, variables: ['x', 'y'], spec: { ...spec, resolution: 7 }, configLabel: 'GD', known: minima });
+    st.start({ surface, variables: ['x', 'y'], spec: { ...spec, resolution: 7 }, configLabel: 'GD', known: minima, basinRadius: 0.01 * Math.hypot(10, 10) });
     h.drain();
     expect(st.store.getState()).toMatchObject({ status: 'error', message: 'start-point map: resolution must be a whole number from 16 to 512, got 7' });
   });
@@ -72,10 +72,36 @@ describe('start-point map through the worker', () => {
   it('cancel stops the study: no more cells arrive', () => {
     const h = inProcessLink();
     const st = createStudyStore(h.link);
-    st.start({ surface, variables: ['x', 'y'], spec, configLabel: 'GD', known: minima });
+    st.start({ surface, variables: ['x', 'y'], spec, configLabel: 'GD', known: minima, basinRadius: 0.01 * Math.hypot(10, 10) });
     st.cancel();
     h.drain();
     expect(st.store.getState().status).toBe('cancelled');
     expect(st.store.getState().done).toBe(0);
+  });
+});
+
+describe('multi-start through the worker', () => {
+  it('runs N seeded starts, each identical to its lone run, and returns the quartile bands of the loss', async () => {
+    const { drawStarts, summariseStarts } = await import('../../src/engine');
+    const h = inProcessLink();
+    const st = createStudyStore(h.link);
+    const ms = { kind: 'multi-start' as const, optimizer: { kind: 'adam' as const, learningRate: 0.05 }, stop: { maxSteps: 400, gradientNormTolerance: 1e-8 }, seed: 1, distribution: { kind: 'uniform' as const, box: [[-5, 5], [-5, 5]] as [number, number][] }, count: 40, startSeed: 3 };
+    st.start({ surface, variables: ['x', 'y'], spec: ms, configLabel: 'Adam', known: minima, basinRadius: 0.1 });
+    h.drain();
+    const s = st.store.getState();
+    expect(s.status).toBe('done');
+    expect(s.bands).toHaveLength(3);
+    const [q1, med, q3] = s.bands!;
+    expect(med.length).toBe(401);
+    for (let t = 0; t < med.length; t++) expect(q1[t] <= med[t] && med[t] <= q3[t]).toBe(true);
+    const starts = drawStarts(ms.distribution, 2, 40, 3);
+    const himmelblau = buildSurface(surface);
+    const lone = new RunCursor(himmelblau, buildOptimizer(ms.optimizer), { start: Array.from(starts.subarray(14, 16)), seed: 1, stop: ms.stop });
+    lone.runToEnd();
+    expect(Array.from(s.cells!.endPoints.subarray(14, 16))).toEqual(Array.from(lone.state.x));
+    const results = Array.from({ length: 40 }, (_, c) => ({ outcome: s.cells!.outcomes[c]!, finalLoss: s.cells!.loss[c], endPoint: s.cells!.endPoints.subarray(2 * c, 2 * c + 2), stepsToTolerance: null }));
+    const summary = summariseStarts(results, 1e-6, 0);
+    expect(summary.runs).toBe(40);
+    expect(summary.successes).toBe(summary.converged); // every converged Adam run on Himmelblau ends at a global minimum (f = 0)
   });
 });

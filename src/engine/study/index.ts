@@ -3,3 +3,4 @@ export { lossBands, quantile, type LossBands } from './quantiles';
 export { summariseStarts, type MultiStartSummary, type StartResult } from './multistart';
 export { cellStart, cellStride, coarseToFineOrder, validateStartMap, START_MAP_RESOLUTIONS, type StartMapSpec } from './start-map';
 export { assignBasins, BasinTracker, type BasinAssignment, type KnownPoint } from './basins';
+export { validateMultiStart, MAX_MULTI_STARTS, type MultiStartSpec, type StudySpec } from './spec';

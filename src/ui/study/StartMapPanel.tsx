@@ -17,7 +17,12 @@ const fmt = (v: number) => String(+v.toPrecision(4));
  */
 export function StartMapPanel() {
   const study = useStudyStore();
-  const state = useStudy((s) => s);
+  const all = useStudy((s) => s);
+  // The study store holds one study at a time; this panel shows it only when it is a start-point map.
+  const mine = all.spec?.kind === 'start-map';
+  const state = mine
+    ? { ...all, spec: all.spec as StartMapSpec }
+    : { ...all, spec: null, cells: null, status: 'idle' as const, total: 0, done: 0, message: null, known: [] };
   const runs = useApp((s) => s.runs);
   const selected = useApp((s) => s.selectedRunId);
   const view = useApp((s) => s.view);
@@ -38,7 +43,7 @@ export function StartMapPanel() {
       box: { a: [view.a[0], view.a[1]], b: [view.b[0], view.b[1]] }, axes: slice.axes, base: slice.at.slice(), resolution,
     };
     const known = info.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min').map((p) => ({ point: p.point, label: `minimum (${p.point.map((v) => +v.toPrecision(6)).join(', ')})` }));
-    study.start({ surface, variables: info.variables, spec, configLabel: config.label, known });
+    study.start({ surface, variables: info.variables, spec, configLabel: config.label, known, basinRadius: 0.01 * Math.hypot(view.a[1] - view.a[0], view.b[1] - view.b[0]) });
   };
 
   useEffect(() => {

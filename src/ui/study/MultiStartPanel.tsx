@@ -1,0 +1,166 @@
+import { useEffect, useRef, useState } from 'react';
+import { drawStarts, hasParameterGroups, summariseStarts, type MultiStartSpec, type StartDistribution, type StartResult } from '../../engine';
+import { studyCsv } from '../../io/study-csv';
+import { useApp } from '../app-context';
+import { chooseLossAxis } from '../chart/loss-chart';
+import { download } from '../export/download';
+import { useMainThreadSurface } from '../view/use-surface';
+import { drawBandChart } from './band-chart';
+import { useStudy, useStudyStore } from './study-context';
+
+type DistributionChoice = 'uniform' | 'gaussian' | 'glorot' | 'he';
+
+/**
+ * Multi-start: N seeded starts of the selected run's configuration; success rate, final-loss spread,
+ * steps to tolerance, outcomes, and the median and quartile band of the loss across starts.
+ */
+export function MultiStartPanel() {
+  const study = useStudyStore();
+  const all = useStudy((s) => s);
+  const runs = useApp((s) => s.runs);
+  const selected = useApp((s) => s.selectedRunId);
+  const surfaceSpec = useApp((s) => s.surface);
+  const info = useApp((s) => s.surfaceInfo);
+  const view = useApp((s) => s.view);
+  const tolerance = useApp((s) => s.tolerance);
+  const surface = useMainThreadSurface(surfaceSpec);
+  const [choice, setChoice] = useState<DistributionChoice>('uniform');
+  const [count, setCount] = useState(100);
+  const [sd, setSd] = useState(0.5);
+  const [startSeed, setStartSeed] = useState(1);
+  const canvas = useRef<HTMLCanvasElement>(null);
+  const config = runs.find((r) => r.id === selected) ?? runs[0];
+  const network = !!surface && hasParameterGroups(surface);
+  const mine = all.spec?.kind === 'multi-start';
+  const spec = mine ? (all.spec as MultiStartSpec) : null;
+  const knownMinimum = info.knownPoints.filter((p) => p.kind === 'global-min').reduce<number | null>((m, p) => (m === null ? p.value : Math.min(m, p.value)), null);
+
+  const distribution = (): StartDistribution => {
+    if (choice === 'uniform') return { kind: 'uniform', box: info.view.map(([lo, hi]) => [lo, hi] as [number, number]) };
+    if (choice === 'gaussian') return { kind: 'gaussian', centre: config!.settings.start.slice(), sd };
+    return { kind: choice };
+  };
+  let problem: string | null = !config ? 'Add a run first: the starts use its optimizer and stop rules.' : null;
+  if (!problem && surface) {
+    try {
+      drawStarts(distribution(), surface.dimension, 1, startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined);
+      if (!(Number.isInteger(count) && count >= 1 && count <= 10_000)) problem = `number of starts must be a whole number from 1 to 10000, got ${count}`;
+    } catch (e) {
+      problem = (e as Error).message;
+    }
+  }
+
+  const start = () => {
+    if (!config || problem) return;
+    const s: MultiStartSpec = { kind: 'multi-start', optimizer: config.optimizer, stop: config.settings.stop, seed: config.settings.seed, distribution: distribution(), count, startSeed };
+    const known = info.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min').map((p) => ({ point: p.point, label: `minimum (${p.point.map((v) => +v.toPrecision(6)).join(', ')})` }));
+    study.start({ surface: surfaceSpec, variables: info.variables, spec: s, configLabel: config.label, known, basinRadius: 0.01 * Math.hypot(view.a[1] - view.a[0], view.b[1] - view.b[0]) });
+  };
+
+  const results: StartResult[] = [];
+  if (mine && all.cells) {
+    const n = all.variables.length;
+    for (let c = 0; c < all.cells.filled.length; c++) {
+      const outcome = all.cells.outcomes[c];
+      if (all.cells.filled[c] && outcome) results.push({ outcome, finalLoss: all.cells.loss[c], endPoint: all.cells.endPoints.subarray(c * n, (c + 1) * n), stepsToTolerance: null });
+    }
+  }
+  const summary = results.length ? summariseStarts(results, tolerance, knownMinimum) : null;
+
+  useEffect(() => {
+    const c = canvas.current;
+    const ctx = c?.getContext('2d');
+    if (!c || !ctx) return;
+    ctx.clearRect(0, 0, c.width, c.height);
+    if (!mine || !all.bands) return;
+    drawBandChart(ctx, { width: c.width, height: c.height }, all.bands, chooseLossAxis([], knownMinimum));
+  }, [mine, all.bands, knownMinimum]);
+
+  const exportCsv = () => {
+    if (!spec || !all.cells) return;
+    const n = all.variables.length;
+    const starts = drawStarts(spec.distribution, n, spec.count, spec.startSeed, surface && hasParameterGroups(surface) ? surface.parameterGroups : undefined);
+    const rows = [];
+    for (let c = 0; c < all.cells.filled.length; c++) {
+      const outcome = all.cells.outcomes[c];
+      if (!all.cells.filled[c] || !outcome) continue;
+      rows.push({
+        index: c, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: starts.subarray(c * n, (c + 1) * n), outcome,
+        steps: all.cells.steps[c], finalLoss: all.cells.loss[c], endPoint: all.cells.endPoints.subarray(c * n, (c + 1) * n),
+        basin: all.cells.basin[c] >= 0 ? all.basinLabels[all.cells.basin[c]] : null, stepsToTolerance: null,
+      });
+    }
+    download('fall-line-multi-start.csv', studyCsv('multi-start', all.variables, rows), 'text/csv');
+  };
+
+  const pct = (v: number) => `${(100 * v).toFixed(1)}%`;
+  const formatValue = (v: number) => (Number.isFinite(v) ? String(+v.toPrecision(3)) : String(v));
+  return (
+    <section className="study-panel" aria-label="Multi-start" data-testid="multi-start">
+      <h2>Multi-start</h2>
+      <p className="study-help">
+        {config ? `Runs “${config.label}” from many seeded starts` : 'Runs one configuration from many seeded starts'}: how often it reaches the best minimum, how the final loss spreads, and the median and quartile band of the loss across starts.
+      </p>
+      <div className="study-controls">
+        <label>
+          starts from{' '}
+          <select value={choice} onChange={(e) => setChoice(e.target.value as DistributionChoice)}>
+            <option value="uniform">uniform over the surface's box</option>
+            <option value="gaussian">Gaussian around the run's start</option>
+            {network && <option value="glorot">Glorot uniform (network weights)</option>}
+            {network && <option value="he">He normal (network weights)</option>}
+          </select>
+        </label>
+        {choice === 'gaussian' && (
+          <label>
+            standard deviation <input type="number" value={sd} step="any" min={0} onChange={(e) => setSd(Number(e.target.value))} style={{ width: '5rem' }} />
+          </label>
+        )}
+        <label>
+          number of starts <input type="number" value={count} min={1} max={10000} onChange={(e) => setCount(Number(e.target.value))} style={{ width: '5rem' }} />
+        </label>
+        <label>
+          seed of the starts <input type="number" value={startSeed} onChange={(e) => setStartSeed(Number(e.target.value))} style={{ width: '4rem' }} />
+        </label>
+        {mine && all.status === 'running' ? (
+          <button type="button" onClick={() => study.cancel()}>Cancel starts</button>
+        ) : (
+          <button type="button" onClick={start} disabled={!!problem}>Run starts</button>
+        )}
+        <button type="button" onClick={exportCsv} disabled={!mine || !all.cells || all.done === 0}>Starts CSV</button>
+        {mine && all.total > 0 && (
+          <span className="study-progress" data-status={all.status}>
+            <progress max={all.total} value={all.done} aria-label="Starts done" /> {all.done} / {all.total} runs
+            {all.status === 'done' ? ` in ${(all.elapsedMs / 1000).toFixed(1)} s` : all.status === 'cancelled' ? ' (cancelled)' : ''}
+          </span>
+        )}
+      </div>
+      {problem && <p className="field-error">{problem}</p>}
+      {mine && all.message && <p className="field-error" role="alert">{all.message}</p>}
+      {summary && (
+        <div className="study-body">
+          <table className="study-legend" data-testid="multi-start-summary">
+            <caption>Over {summary.runs} starts (tolerance {tolerance} above the {summary.target.source})</caption>
+            <tbody>
+              <tr data-key="success"><th scope="row">success rate</th><td data-value={summary.successRate}>{pct(summary.successRate)} ({summary.successes} converged within the tolerance of {formatValue(summary.target.loss)})</td></tr>
+              <tr><th scope="row">converged</th><td>{summary.converged}</td></tr>
+              <tr><th scope="row">final loss</th><td>min {formatValue(summary.finalLoss.min)}, quartiles {formatValue(summary.finalLoss.q1)} / {formatValue(summary.finalLoss.median)} / {formatValue(summary.finalLoss.q3)}, max {formatValue(summary.finalLoss.max)}</td></tr>
+              <tr><th scope="row">outcomes</th><td data-testid="multi-start-outcomes">{Object.entries(summary.outcomes).map(([k, v]) => `${k} ${v}`).join(', ')}</td></tr>
+              <tr><th scope="row">ended in</th><td>{countBasins(all.cells!.basin, all.basinLabels)}</td></tr>
+            </tbody>
+          </table>
+          <figure className="start-map-figure" style={{ width: 420 }}>
+            <canvas ref={canvas} width={420} height={220} data-testid="multi-start-bands" aria-label="Median and quartile band of the loss across starts" />
+            <figcaption className="start-map-axes">median (line) and 25–75% band of the loss across starts; a run that ended keeps its last loss</figcaption>
+          </figure>
+        </div>
+      )}
+    </section>
+  );
+}
+
+function countBasins(basin: Int32Array, labels: readonly string[]): string {
+  const counts = new Map<number, number>();
+  for (const b of basin) if (b >= 0) counts.set(b, (counts.get(b) ?? 0) + 1);
+  return [...counts].sort((a, b) => a[0] - b[0]).map(([b, c]) => `${labels[b]}: ${c}`).join('; ') || 'no basin';
+}

@@ -1,0 +1,25 @@
+import { useState } from 'react';
+import { MultiStartPanel } from './MultiStartPanel';
+import { StartMapPanel } from './StartMapPanel';
+
+const KINDS = [
+  ['map', 'Start-point map'],
+  ['multi', 'Multi-start'],
+] as const;
+
+/** The studies below the results: how the outcome depends on the start point. One shown at a time. */
+export function StudyArea() {
+  const [kind, setKind] = useState<(typeof KINDS)[number][0]>('map');
+  return (
+    <div className="study-area">
+      <div role="tablist" aria-label="Studies" className="study-tabs">
+        {KINDS.map(([k, label]) => (
+          <button key={k} type="button" role="tab" aria-selected={kind === k} onClick={() => setKind(k)}>
+            {label}
+          </button>
+        ))}
+      </div>
+      {kind === 'map' ? <StartMapPanel /> : <MultiStartPanel />}
+    </div>
+  );
+}
