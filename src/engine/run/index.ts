@@ -13,3 +13,6 @@ export {
   type StopRules,
 } from './settings';
 export { allocateBatch, concatBatches, trimBatch, type TrajectoryBatch } from './trajectory';
+export { movingAway, nextCalmSteps, pointFinding, pointOutcome, progressTrigger, startOutcome, type PointFinding } from './checks';
+export { addNoise, countingSurface, noisyOracle } from './oracle';
+export { createRecentPath, recordRecent, RECENT_POINTS, type RecentPath } from './recent';
