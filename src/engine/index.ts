@@ -9,3 +9,4 @@ export * from './optim';
 export * from './linalg';
 export * from './analysis';
 export * from './expr';
+export * from './sweep';
