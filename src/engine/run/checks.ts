@@ -25,10 +25,10 @@ export type PointFinding = 'ok' | 'x-non-finite' | 'loss-minus-infinity' | 'loss
 
 /** Rules 1-6 above at the point x with loss and exact gradient grad; 'ok' when none fires. */
 export function pointFinding(x: Float64Array, grad: Float64Array, loss: number, initialLoss: number, stop: StopRules): PointFinding {
-  if (!allFinite(x)) return 'x-non-finite';
+  if (!finiteEntries(x)) return 'x-non-finite';
   if (loss === -Infinity) return 'loss-minus-infinity';
   if (!Number.isFinite(loss)) return 'loss-non-finite';
-  if (!allFinite(grad)) return 'gradient-non-finite';
+  if (!finiteEntries(grad)) return 'gradient-non-finite';
   const blowUp = stop.blowUpFactor ?? DEFAULT_BLOW_UP_FACTOR;
   if (loss - initialLoss > blowUp * Math.max(1, Math.abs(initialLoss))) return 'blow-up';
   const gTol = stop.gradientNormTolerance;
@@ -113,4 +113,11 @@ export function progressTrigger(stop: StopRules, calmSteps: number, t: number): 
   if (lossChangeTolerance !== undefined && calmSteps >= lossChangePatience) return { rule: 'loss-change', tolerance: lossChangeTolerance, patience: lossChangePatience };
   if (t >= maxSteps) return 'step-limit';
   return null;
+}
+
+/** Whether every entry is finite: v * 0 is 0 for a finite v and NaN for NaN and +-Infinity (one branch per vector). */
+function finiteEntries(a: Float64Array): boolean {
+  let z = 0;
+  for (let i = 0; i < a.length; i++) z += a[i] * 0;
+  return z === 0;
 }

@@ -29,9 +29,12 @@ export function createRecentPath(x0: Float64Array, loss0: number): RecentPath {
 export function recordRecent(path: RecentPath, t: number, x: Float64Array, loss: number, x0: Float64Array): void {
   const n = x.length;
   const slot = t % RECENT_POINTS;
-  path.points.set(x, slot * n);
+  // A plain loop: for the few coordinates of a typical surface it is much cheaper than TypedArray#set.
+  const points = path.points;
+  const base = slot * n;
+  for (let i = 0; i < n; i++) points[base + i] = x[i];
   path.loss[slot] = loss;
-  path.filled = Math.min(RECENT_POINTS, path.filled + 1);
+  if (path.filled < RECENT_POINTS) path.filled += 1;
   if (t > 0 && (t & (t - 1)) === 0) {
     const k = Math.log2(t);
     if (k < path.distanceAt.length) path.distanceAt[k] = distance(x, x0);

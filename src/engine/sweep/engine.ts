@@ -1,4 +1,5 @@
 import { buildOptimizer } from '../optim/build';
+import { applyTransforms, isChainOptimizer, learningRateStage, type ChainOptimizer, type ChainState, type GradientTransform } from '../optim/transform';
 import type { Optimizer, Oracle, StepContext, StepReport } from '../optim/types';
 import { createRng, type RngState } from '../rng';
 import { nextCalmSteps, pointFinding, pointOutcome, progressTrigger, startOutcome, type PointFinding } from '../run/checks';
@@ -13,6 +14,23 @@ import { validateSweepPlan, type SweepPlan, type SweepProgress, type SweepResult
 
 /** Milestones kept per run: the distance from the start after steps 2^0 .. 2^31 (recent.ts). */
 const MILESTONES = 32;
+
+/**
+ * Runs per block on the block path: one optimizer state per block of consecutive runs. Small enough
+ * that a block with few live runs wastes little, large enough that the per-call cost of the
+ * transforms (Adam's two powers of beta per step) is spread thin.
+ */
+const BLOCK = 64;
+
+/** The block path's parts: the chain's transforms and one chain state per block of BLOCK runs. */
+interface Blocks {
+  transforms: readonly GradientTransform[];
+  rate: { learningRate(t: number): number };
+  states: ChainState[];
+  x: Float64Array[];
+  grad: Float64Array[];
+  work: Float64Array[];
+}
 
 /** A run's mutable step context, made once (the optimizer reads t, loss and oracle). */
 interface RunContext {
@@ -32,6 +50,15 @@ interface RunContext {
  * stop rules from run/checks.ts, so a run's end point, loss, steps, evaluations and outcome are
  * bit-identical to the same run done alone by a RunCursor. Outcomes are built (and the end point
  * judged) only when a run ends.
+ *
+ * The block path: when every run shares one optimizer that is a chain of elementwise transforms
+ * (transform.ts; every first-order kind without gradient clipping), the transforms run once per round
+ * over each block of BLOCK consecutive runs, on one chain state for the block, instead of once per
+ * run. An elementwise transform gives every entry the numbers it would get alone, so the results are
+ * the same bits; a block whose runs have all ended is skipped (an ended run's entries in a block still
+ * in use are transformed and ignored; its point no longer moves). Other optimizers (L-BFGS, Newton,
+ * the Sutskever form of Nesterov momentum, clipped chains, several learning rates) step run by run
+ * with a state per run.
  *
  * Stream it with `advance(rounds)` or `advanceFor(ms, clock)` and read `result()` between calls.
  */
@@ -74,6 +101,7 @@ export class Sweep {
   private readonly states: unknown[] = [];
   private readonly rngs: RngState[] = [];
   private readonly contexts: RunContext[] = [];
+  private readonly blocks: Blocks | null;
 
   constructor(plan: SweepPlan) {
     const count = validateSweepPlan(plan);
@@ -139,7 +167,7 @@ export class Sweep {
       this.initialGradNorm[r] = norm2(grad);
       this.evaluations[r] = 1;
       recordRecent(recent, 0, x, loss, x0);
-      this.states.push(optimizer.init(Float64Array.from(x)));
+      this.states.push(null);
       this.contexts.push({ t: 0, loss, oracle: noisyOracle(surface, this.noise, { rng }) });
       if (loss <= this.lossTolerance) this.stepsToTolerance[r] = 0;
       let outcome = startOutcome(surface, x, loss, grad);
@@ -150,6 +178,23 @@ export class Sweep {
       this.outcomes[r] = outcome;
       if (!outcome) this.live[this.liveCount++] = r;
     }
+    const shared = byRate.size === 1 ? [...byRate.values()][0] : null;
+    this.blocks = shared && isChainOptimizer(shared) && shared.transforms.every((tr) => tr.elementwise) ? this.makeBlocks(shared) : null;
+    if (!this.blocks) for (let r = 0; r < count; r++) this.states[r] = this.optimizers[r].init(Float64Array.from(this.xs[r]));
+  }
+
+  private makeBlocks(o: ChainOptimizer): Blocks {
+    const n = this.dimension;
+    const b: Blocks = { transforms: o.transforms, rate: learningRateStage(o.transforms, o.label), states: [], x: [], grad: [], work: [] };
+    for (let lo = 0; lo < this.count; lo += BLOCK) {
+      const hi = Math.min(this.count, lo + BLOCK);
+      const x = this.x.subarray(lo * n, hi * n);
+      b.x.push(x);
+      b.grad.push(this.grad.subarray(lo * n, hi * n));
+      b.work.push(this.work.subarray(lo * n, hi * n));
+      b.states.push(o.init(Float64Array.from(x)));
+    }
+    return b;
   }
 
   get progress(): SweepProgress {
@@ -204,6 +249,7 @@ export class Sweep {
 
   /** One step of every live run, in plan order; runs that end leave the live list. */
   private round(): void {
+    if (this.blocks) return this.blockRound(this.blocks);
     const live = this.live;
     const liveCount = this.liveCount;
     let kept = 0;
@@ -214,6 +260,62 @@ export class Sweep {
     this.totalSteps += liveCount;
     this.liveCount = kept;
     this.rounds += 1;
+  }
+
+  /**
+   * One round on the block path: for each block holding live runs, the work buffer gets the exact
+   * gradients (plus each live run's noise, drawn from its own generator), the transforms run over the
+   * block, then each live run moves by its entries of the update and is evaluated and checked.
+   */
+  private blockRound(b: Blocks): void {
+    const live = this.live;
+    const liveCount = this.liveCount;
+    const n = this.dimension;
+    const noise = this.noise;
+    const t = this.rounds + 1;
+    const learningRate = b.rate.learningRate(t);
+    let kept = 0;
+    let k = 0;
+    while (k < liveCount) {
+      const block = (live[k] / BLOCK) | 0;
+      const end = Math.min(this.count, (block + 1) * BLOCK);
+      let stop = k;
+      while (stop < liveCount && live[stop] < end) stop++;
+      const work = b.work[block];
+      work.set(b.grad[block]);
+      if (noise > 0) for (let j = k; j < stop; j++) addNoise(this.works[live[j]], noise, this.rngs[live[j]]);
+      applyTransforms(b.transforms, b.states[block], work, b.x[block], t);
+      for (let j = k; j < stop; j++) {
+        const r = live[j];
+        const x = this.xs[r];
+        const u = this.works[r];
+        for (let i = 0; i < n; i++) x[i] += u[i];
+        if (this.afterStep(r, t, this.loss[r], learningRate)) live[kept++] = r;
+      }
+      k = stop;
+    }
+    this.totalSteps += liveCount;
+    this.liveCount = kept;
+    this.rounds += 1;
+  }
+
+  /** A chain step's end on the block path: evaluate the new point and apply the stop rules. */
+  private afterStep(r: number, t: number, previousLoss: number, learningRate: number): boolean {
+    const x = this.xs[r];
+    const grad = this.grads[r];
+    this.steps[r] = t;
+    const loss = this.surface.valueGradient(x, grad);
+    this.evaluations[r] += 1;
+    this.loss[r] = loss;
+    if (loss <= this.lossTolerance && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
+    recordRecent(this.recents[r], t, x, loss, this.x0s[r]);
+    const finding = pointFinding(x, grad, loss, this.initialLoss[r], this.stop);
+    if (finding !== 'ok') return this.end(r, this.pointEnd(r, finding));
+    const calm = nextCalmSteps(this.stop, this.calm[r], loss, previousLoss, learningRate);
+    this.calm[r] = calm;
+    const trigger = progressTrigger(this.stop, calm, t);
+    if (trigger) return this.end(r, this.judge(r, trigger));
+    return true;
   }
 
   /** One step of run r, as RunCursor.advance takes it; false when the run ended. */
