@@ -1,5 +1,5 @@
 import type { Surface } from '../surface';
-import { allFinite, norm2 } from '../vector';
+import { allFinite, norm2At } from '../vector';
 import { describeEndPoint, judgeEnd, type EndFacts, type EndTrigger } from './end-state';
 import type { RunOutcome } from './outcome';
 import type { RecentPath } from './recent';
@@ -25,14 +25,19 @@ export type PointFinding = 'ok' | 'x-non-finite' | 'loss-minus-infinity' | 'loss
 
 /** Rules 1-6 above at the point x with loss and exact gradient grad; 'ok' when none fires. */
 export function pointFinding(x: Float64Array, grad: Float64Array, loss: number, initialLoss: number, stop: StopRules): PointFinding {
-  if (!finiteEntries(x)) return 'x-non-finite';
+  return pointFindingAt(x, grad, 0, x.length, loss, initialLoss, stop);
+}
+
+/** pointFinding for the point x[at..at+n) and gradient grad[at..at+n) of flat storage (a sweep's). */
+export function pointFindingAt(x: Float64Array, grad: Float64Array, at: number, n: number, loss: number, initialLoss: number, stop: StopRules): PointFinding {
+  if (!finiteEntries(x, at, n)) return 'x-non-finite';
   if (loss === -Infinity) return 'loss-minus-infinity';
   if (!Number.isFinite(loss)) return 'loss-non-finite';
-  if (!finiteEntries(grad)) return 'gradient-non-finite';
+  if (!finiteEntries(grad, at, n)) return 'gradient-non-finite';
   const blowUp = stop.blowUpFactor ?? DEFAULT_BLOW_UP_FACTOR;
   if (loss - initialLoss > blowUp * Math.max(1, Math.abs(initialLoss))) return 'blow-up';
   const gTol = stop.gradientNormTolerance;
-  if (gTol !== undefined && norm2(grad) <= gTol) return 'gradient-norm';
+  if (gTol !== undefined && norm2At(grad, at, n) <= gTol) return 'gradient-norm';
   return 'ok';
 }
 
@@ -116,8 +121,8 @@ export function progressTrigger(stop: StopRules, calmSteps: number, t: number): 
 }
 
 /** Whether every entry is finite: v * 0 is 0 for a finite v and NaN for NaN and +-Infinity (one branch per vector). */
-function finiteEntries(a: Float64Array): boolean {
+function finiteEntries(a: Float64Array, at: number, n: number): boolean {
   let z = 0;
-  for (let i = 0; i < a.length; i++) z += a[i] * 0;
+  for (let i = at; i < at + n; i++) z += a[i] * 0;
   return z === 0;
 }

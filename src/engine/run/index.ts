@@ -13,6 +13,6 @@ export {
   type StopRules,
 } from './settings';
 export { allocateBatch, concatBatches, trimBatch, type TrajectoryBatch } from './trajectory';
-export { movingAway, nextCalmSteps, pointFinding, pointOutcome, progressTrigger, startOutcome, type PointFinding } from './checks';
+export { movingAway, nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrigger, startOutcome, type PointFinding } from './checks';
 export { addNoise, countingSurface, noisyOracle } from './oracle';
-export { createRecentPath, recordRecent, RECENT_POINTS, type RecentPath } from './recent';
+export { createRecentPath, recordRecent, recordRecentAt, MILESTONES, RECENT_POINTS, type RecentPath } from './recent';

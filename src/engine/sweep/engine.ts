@@ -2,18 +2,15 @@ import { buildOptimizer } from '../optim/build';
 import { applyTransforms, isChainOptimizer, learningRateStage, type ChainOptimizer, type ChainState, type GradientTransform } from '../optim/transform';
 import type { Optimizer, Oracle, StepContext, StepReport } from '../optim/types';
 import { createRng, type RngState } from '../rng';
-import { nextCalmSteps, pointFinding, pointOutcome, progressTrigger, startOutcome, type PointFinding } from '../run/checks';
+import { nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrigger, startOutcome, type PointFinding } from '../run/checks';
 import { judgeEnd, type EndFacts, type EndTrigger } from '../run/end-state';
 import { addNoise, countingSurface, noisyOracle } from '../run/oracle';
 import type { RunOutcome } from '../run/outcome';
-import { RECENT_POINTS, recordRecent, type RecentPath } from '../run/recent';
+import { MILESTONES, RECENT_POINTS, recordRecent, recordRecentAt, type RecentPath } from '../run/recent';
 import type { StopRules } from '../run/settings';
 import type { Surface } from '../surface';
 import { norm2 } from '../vector';
 import { validateSweepPlan, type SweepPlan, type SweepProgress, type SweepResult } from './plan';
-
-/** Milestones kept per run: the distance from the start after steps 2^0 .. 2^31 (recent.ts). */
-const MILESTONES = 32;
 
 /**
  * Runs per block on the block path: one optimizer state per block of consecutive runs. Small enough
@@ -102,6 +99,8 @@ export class Sweep {
   private readonly rngs: RngState[] = [];
   private readonly contexts: RunContext[] = [];
   private readonly blocks: Blocks | null;
+  private readonly scratchX: Float64Array;
+  private readonly scratchGrad: Float64Array;
 
   constructor(plan: SweepPlan) {
     const count = validateSweepPlan(plan);
@@ -130,6 +129,8 @@ export class Sweep {
     this.milestones = new Float64Array(count * MILESTONES).fill(Number.NaN);
     this.outcomes = new Array<RunOutcome | null>(count).fill(null);
     this.live = new Int32Array(count);
+    this.scratchX = new Float64Array(n);
+    this.scratchGrad = new Float64Array(n);
 
     // One optimizer per distinct learning rate: an Optimizer keeps its run's state in `state`, its
     // closures only scratch buffers that each step fills before reading, so runs can share it.
@@ -270,7 +271,6 @@ export class Sweep {
   private blockRound(b: Blocks): void {
     const live = this.live;
     const liveCount = this.liveCount;
-    const n = this.dimension;
     const noise = this.noise;
     const t = this.rounds + 1;
     const learningRate = b.rate.learningRate(t);
@@ -285,13 +285,7 @@ export class Sweep {
       work.set(b.grad[block]);
       if (noise > 0) for (let j = k; j < stop; j++) addNoise(this.works[live[j]], noise, this.rngs[live[j]]);
       applyTransforms(b.transforms, b.states[block], work, b.x[block], t);
-      for (let j = k; j < stop; j++) {
-        const r = live[j];
-        const x = this.xs[r];
-        const u = this.works[r];
-        for (let i = 0; i < n; i++) x[i] += u[i];
-        if (this.afterStep(r, t, this.loss[r], learningRate)) live[kept++] = r;
-      }
+      kept = this.blockSteps(k, stop, kept, t, learningRate);
       k = stop;
     }
     this.totalSteps += liveCount;
@@ -299,23 +293,57 @@ export class Sweep {
     this.rounds += 1;
   }
 
-  /** A chain step's end on the block path: evaluate the new point and apply the stop rules. */
-  private afterStep(r: number, t: number, previousLoss: number, learningRate: number): boolean {
-    const x = this.xs[r];
-    const grad = this.grads[r];
-    this.steps[r] = t;
-    const loss = this.surface.valueGradient(x, grad);
-    this.evaluations[r] += 1;
-    this.loss[r] = loss;
-    if (loss <= this.lossTolerance && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
-    recordRecent(this.recents[r], t, x, loss, this.x0s[r]);
-    const finding = pointFinding(x, grad, loss, this.initialLoss[r], this.stop);
-    if (finding !== 'ok') return this.end(r, this.pointEnd(r, finding));
-    const calm = nextCalmSteps(this.stop, this.calm[r], loss, previousLoss, learningRate);
-    this.calm[r] = calm;
-    const trigger = progressTrigger(this.stop, calm, t);
-    if (trigger) return this.end(r, this.judge(r, trigger));
-    return true;
+  /**
+   * The rest of a chain step for the live runs live[from..to) of one block, on the flat arrays (no
+   * per-run objects: at thousands of runs those views would not stay in cache): move by the update,
+   * evaluate the new point (through a scratch copy, so the surface sees a vector of its own), record
+   * it and apply the stop rules. Returns the new count of kept runs.
+   */
+  private blockSteps(from: number, to: number, kept: number, t: number, learningRate: number): number {
+    const live = this.live;
+    const n = this.dimension;
+    const X = this.x;
+    const G = this.grad;
+    const W = this.work;
+    const X0 = this.x0;
+    const losses = this.loss;
+    const sx = this.scratchX;
+    const sg = this.scratchGrad;
+    const surface = this.surface;
+    const stopRules = this.stop;
+    const calmRule = stopRules.lossChangeTolerance !== undefined;
+    const tol = this.lossTolerance;
+    for (let j = from; j < to; j++) {
+      const r = live[j];
+      const o = r * n;
+      for (let i = 0; i < n; i++) sx[i] = X[o + i] += W[o + i];
+      const loss = surface.valueGradient(sx, sg);
+      for (let i = 0; i < n; i++) G[o + i] = sg[i];
+      const previousLoss = losses[r];
+      losses[r] = loss;
+      this.evaluations[r] += 1;
+      this.steps[r] = t;
+      if (loss <= tol && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
+      recordRecentAt(this.ringPoints, r * RECENT_POINTS * n, this.ringLoss, r * RECENT_POINTS, this.milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
+      const finding = pointFindingAt(X, G, o, n, loss, this.initialLoss[r], stopRules);
+      if (finding !== 'ok') {
+        this.endFlat(r, finding, null);
+        continue;
+      }
+      // Without the loss-change rule the counter never moves (checks.ts), so it is not updated.
+      if (calmRule) this.calm[r] = nextCalmSteps(stopRules, this.calm[r], loss, previousLoss, learningRate);
+      const trigger = progressTrigger(stopRules, this.calm[r], t);
+      if (trigger) {
+        this.endFlat(r, null, trigger);
+        continue;
+      }
+      live[kept++] = r;
+    }
+    return kept;
+  }
+
+  private endFlat(r: number, finding: Exclude<PointFinding, 'ok'> | null, trigger: EndTrigger | null): void {
+    this.end(r, finding ? this.pointEnd(r, finding) : this.judge(r, trigger!));
   }
 
   /** One step of run r, as RunCursor.advance takes it; false when the run ended. */
@@ -363,6 +391,9 @@ export class Sweep {
 
   /** The facts the end judgement reads, for run r (made only when the run ends). */
   private facts(r: number): EndFacts {
+    // Every run is recorded at each step from 0, so its ring holds min(RECENT_POINTS, t + 1) points
+    // (the block path records through recordRecentAt and leaves the count to here).
+    this.recents[r].filled = Math.min(RECENT_POINTS, this.steps[r] + 1);
     return {
       t: this.steps[r],
       x: this.xs[r],

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { defaultOptimizerSpec, Sweep, type OptimizerKind, type OptimizerSpec, type StopRules, type Surface } from '../../../src/engine';
+import { buildOptimizer, defaultOptimizerSpec, RunCursor, Sweep, type OptimizerKind, type OptimizerSpec, type StopRules, type Surface } from '../../../src/engine';
 import { buildSurface } from '../../../src/problems';
 import { gridStarts, runAlone } from './alone';
 
@@ -77,6 +77,43 @@ describe('Sweep: every run equals the same run done alone by RunCursor', () => {
       expect(sweep.finished).toBe(true);
       expectSameAsAlone(sweep, runAlone(himmelblau, optimizer, stop, starts, { seeds, gradientNoise: 0.5 }));
     }
+  });
+
+  it('cancel judges each live run as RunCursor.cancel does, on the block path and run by run', () => {
+    const starts = gridStarts(-5, 5, -5, 5, 6);
+    const stop: StopRules = { maxSteps: 1000 };
+    for (const [optimizer, rounds] of [[spec('adam', 0.05), 12], [spec('lbfgs', 1), 2]] as const) {
+      const sweep = new Sweep({ surface: himmelblau, optimizer, stop, starts });
+      sweep.advance(rounds);
+      sweep.cancel();
+      expect(sweep.finished).toBe(true);
+      const res = sweep.result();
+      for (let r = 0; r < 36; r++) {
+        const c = new RunCursor(himmelblau, buildOptimizer(optimizer), { start: Array.from(starts.subarray(2 * r, 2 * r + 2)), stop, seed: 0 });
+        c.advance(rounds);
+        expect(res.outcomes[r]).toEqual(c.outcome ?? c.cancel());
+        expect(res.evaluations[r]).toBe(c.state.evaluations);
+      }
+      expect(res.outcomes.filter((o) => o?.kind === 'cancelled').length).toBeGreaterThan(0);
+    }
+  });
+
+  it('advanceFor reads only the clock it is given and takes at least one round', () => {
+    const sweep = new Sweep({ surface: bowl, optimizer: spec('gd', 0.01), stop: { maxSteps: 100 }, starts: gridStarts(-1, 1, -1, 1, 4) });
+    let now = 0;
+    const clock = () => (now += 1);
+    const p = sweep.advanceFor(5, clock);
+    expect(p.rounds).toBe(5);
+    expect(p.steps).toBe(5 * 16);
+    expect(sweep.advanceFor(0, clock).rounds).toBe(6);
+    expect(sweep.advance(1000)).toEqual({ done: 16, total: 16, steps: 1600, rounds: 100 });
+  });
+
+  it('refuses a minibatch plan and bad per-run arrays with the field named', () => {
+    const base = { surface: bowl, optimizer: spec('gd', 0.01), stop: { maxSteps: 10 }, starts: new Float64Array(4) };
+    expect(() => new Sweep({ ...base, minibatch: { size: 2 } } as never)).toThrow('minibatch runs are not supported');
+    expect(() => new Sweep({ ...base, learningRates: Float64Array.of(0.1) })).toThrow('one value per run (2)');
+    expect(() => new Sweep({ ...base, starts: Float64Array.of(0, NaN) })).toThrow('start of run 0, coordinate 2');
   });
 
   it('with a learning rate per run', () => {
