@@ -10,3 +10,4 @@ export * from './linalg';
 export * from './expr';
 export * from './analysis';
 export * from './study';
+export * from './sweep';

@@ -10,11 +10,16 @@ export function dot(a: ArrayLike<number>, b: ArrayLike<number>): number {
 
 /** Euclidean norm, scaled to avoid overflow for very large entries. */
 export function norm2(a: ArrayLike<number>): number {
+  return norm2At(a, 0, a.length);
+}
+
+/** norm2 of the n entries a[at..at+n) (a vector inside flat storage). */
+export function norm2At(a: ArrayLike<number>, at: number, n: number): number {
   let scale = 0;
-  for (let i = 0; i < a.length; i++) scale = Math.max(scale, Math.abs(a[i]));
+  for (let i = at; i < at + n; i++) scale = Math.max(scale, Math.abs(a[i]));
   if (scale === 0 || !Number.isFinite(scale)) return scale;
   let s = 0;
-  for (let i = 0; i < a.length; i++) {
+  for (let i = at; i < at + n; i++) {
     const r = a[i] / scale;
     s += r * r;
   }

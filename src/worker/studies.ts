@@ -115,7 +115,7 @@ function plan(spec: StudySpec, surface: Surface): Pick<StudyJob, 'order' | 'sett
   if (spec.kind === 'start-map') {
     validateStartMap(spec, n);
     const start = new Float64Array(n);
-    return { order: coarseToFineOrder(spec.resolution), settingsOf: (index) => ({ start: Array.from(cellStart(spec, index, start)), seed: spec.seed, stop: spec.stop }), curves: null };
+    return { order: coarseToFineOrder(spec.resolution, spec.resolution), settingsOf: (index) => ({ start: Array.from(cellStart(spec, index, start)), seed: spec.seed, stop: spec.stop }), curves: null };
   }
   validateMultiStart(spec);
   const starts = drawStarts(spec.distribution, n, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined);

@@ -55,9 +55,9 @@ describe('start-point map through the worker', () => {
   it('cell starts are cell centres, and the coarse-to-fine order lists every cell once, coarse grid first', () => {
     expect(Array.from(cellStart(spec, 0, new Float64Array(2)))).toEqual([-5 + 10 / 32, -5 + 10 / 32]);
     expect(Array.from(cellStart(spec, 16 + 3, new Float64Array(2)))).toEqual([-5 + 3.5 * 10 / 16, -5 + 1.5 * 10 / 16]);
-    const order = coarseToFineOrder(16);
+    const order = coarseToFineOrder(16, 16);
     expect(new Set(order).size).toBe(256);
-    // stride 2 first: the 8 x 8 coarse grid (i, j even) makes the first 64 cells.
+    // The 8 x 8 coarse grid (i, j even) makes the first 64 cells.
     expect(Array.from(order.subarray(0, 64)).every((c) => (c % 16) % 2 === 0 && Math.floor(c / 16) % 2 === 0)).toBe(true);
   });
 

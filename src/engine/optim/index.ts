@@ -5,7 +5,7 @@ export { learningRateAt, SCHEDULES, scheduleInfo, type ScheduleSpec, type Schedu
 export { OPTIMIZERS, optimizerInfo, defaultOptimizerSpec } from './catalogue';
 export { validateOptimizerSpec, resolveSpec } from './validate';
 export { buildOptimizer } from './build';
-export { chain, applyTransforms, initTransforms, type GradientTransform, type ChainState } from './transform';
+export { chain, applyTransforms, initTransforms, isChainOptimizer, learningRateStage, type ChainOptimizer, type GradientTransform, type ChainState } from './transform';
 export * from './transforms';
 export { strongWolfeSearch, backtrackingSearch, cubicMinimizer, safeguardedCubic, type LineFunction, type LinePoint, type LineSearchResult, type StrongWolfeOptions } from './search';
 export { createHistory, clearHistory, pushPair, twoLoopDirection, type CurvatureHistory } from './quasiNewton/history';

@@ -19,6 +19,14 @@ export interface GradientTransform<S = unknown> {
   update(u: Float64Array, state: S, params: Float64Array, t: number): S;
   /** Only on the learning-rate transform: the (scheduled) learning rate at step t, positive. */
   learningRate?(t: number): number;
+  /**
+   * Set when the transform works entry by entry: u[i] depends only on u[i], params[i], t and the
+   * state's own entry i (its Float64Arrays hold one entry per parameter; its numbers, such as a step
+   * count, move the same way whatever the length). Then one state over the concatenated points of
+   * many runs in lockstep gives each run exactly the numbers its own state would (the sweep engine
+   * relies on this). Not set on transforms that mix entries (clipping by the global norm).
+   */
+  readonly elementwise?: boolean;
 }
 
 /** State of a chained optimizer: one entry per transform, in chain order. */
@@ -49,15 +57,26 @@ export function learningRateStage(transforms: readonly GradientTransform[], labe
   return withRate[0] as GradientTransform & { learningRate(t: number): number };
 }
 
+/** A chained optimizer, with its transforms in order (the sweep engine steps many runs through them at once). */
+export interface ChainOptimizer extends Optimizer<ChainState> {
+  readonly transforms: readonly GradientTransform[];
+}
+
+/** Whether an optimizer is a chain of transforms (transform.ts) rather than a method using the oracle. */
+export function isChainOptimizer(o: Optimizer): o is ChainOptimizer {
+  return Array.isArray((o as Partial<ChainOptimizer>).transforms);
+}
+
 /**
  * Turns a list of transforms into an `Optimizer`: each step runs the gradient through the chain in
  * the run loop's work buffer and adds the result to the point. One surface evaluation per step (the
  * run loop's own).
  */
-export function chain(label: string, transforms: readonly GradientTransform[]): Optimizer<ChainState> {
+export function chain(label: string, transforms: readonly GradientTransform[]): ChainOptimizer {
   const rate = learningRateStage(transforms, label);
   return {
     label,
+    transforms,
     init: (x0) => initTransforms(transforms, x0),
     step(x, grad, state, ctx): StepReport {
       applyTransforms(transforms, state, grad, x, ctx.t);

@@ -1,17 +1,14 @@
 import { isRowwiseSurface, type RowwiseSurface, type Surface } from '../surface';
 import type { Optimizer, Oracle } from '../optim/types';
-import { createRng, nextGaussian, type RngState } from '../rng';
-import { allFinite, norm2 } from '../vector';
+import { createRng, type RngState } from '../rng';
+import { norm2 } from '../vector';
+import { nextCalmSteps, pointFinding, pointOutcome, progressTrigger, startOutcome } from './checks';
 import { createMinibatchState, nextMinibatch, type MinibatchState } from './minibatch';
 import { describeEndPoint, judgeEnd, type EndTrigger } from './end-state';
 import type { RunOutcome } from './outcome';
 import { createRecentPath, recordRecent, type RecentPath } from './recent';
-import {
-  DEFAULT_BLOW_UP_FACTOR,
-  DEFAULT_LOSS_CHANGE_PATIENCE,
-  validateRunSettings,
-  type RunSettings,
-} from './settings';
+import { addNoise, batchOracle, countingSurface, noisyOracle, type RowBatch } from './oracle';
+import { validateRunSettings, type RunSettings } from './settings';
 import { allocateBatch, trimBatch, type TrajectoryBatch } from './trajectory';
 
 /** Everything a run needs to resume, as plain data (structuredClone-able). */
@@ -179,142 +176,28 @@ export class RunCursor {
     return judgeEnd(countingSurface(this.surface, this.state), this.endFacts(), trigger);
   }
 
-  /**
-   * A start where the loss or its gradient does not exist is not a divergence: the surface is
-   * undefined there (outside a formula's domain, or at a cusp), and the outcome says why.
-   */
+  /** A start where the loss or its gradient does not exist (checks.ts, startOutcome). */
   private checkStart(): RunOutcome | null {
     const s = this.state;
-    if (!allFinite(s.x)) return null;
-    if (!Number.isFinite(s.loss)) {
-      const why = this.surface.explainUndefined?.(s.x, 'value');
-      return { kind: 'undefined', step: 0, detail: `the loss is not defined at the start (${why ?? `it is ${s.loss}`})` };
-    }
-    if (!allFinite(s.grad)) {
-      const why = this.surface.explainUndefined?.(s.x, 'gradient');
-      return { kind: 'undefined', step: 0, detail: `the gradient does not exist at the start: the loss is finite but not differentiable here (a kink or cusp${why ? `: ${why}` : ''})` };
-    }
-    return null;
+    return startOutcome(this.surface, s.x, s.loss, s.grad);
   }
 
-  /** Non-finite values, blow-up and the gradient-norm rule, at every point the run reaches. */
+  /** Non-finite values, blow-up and the gradient-norm rule, at every point the run reaches (checks.ts). */
   private checkPoint(): RunOutcome | null {
     const s = this.state;
-    const step = s.t;
-    if (!allFinite(s.x)) {
-      if (s.loss < s.initialLoss && this.movingAway()) return { kind: 'escaping', step, detail: 'a coordinate overflowed to infinity while the loss kept falling', point: this.endPoint() };
-      return { kind: 'diverged', reason: 'non-finite', step, detail: 'a coordinate became non-finite' };
-    }
-    if (s.loss === -Infinity) return { kind: 'escaping', step, detail: 'the loss fell without bound (it reached -Infinity)', point: this.endPoint() };
-    if (!Number.isFinite(s.loss)) {
-      const why = s.loss !== s.loss ? this.surface.explainUndefined?.(s.x, 'value') : null;
-      if (why) return { kind: 'undefined', step, detail: `the step left the surface's domain: ${why}` };
-      return { kind: 'diverged', reason: 'non-finite', step, detail: `the loss became ${s.loss}` };
-    }
-    if (!allFinite(s.grad)) {
-      const why = this.surface.explainUndefined?.(s.x, 'gradient');
-      return { kind: 'undefined', step, detail: `the run reached a point where the gradient does not exist${why ? `: ${why}` : ''}` };
-    }
-    const blowUp = this.settings.stop.blowUpFactor ?? DEFAULT_BLOW_UP_FACTOR;
-    if (s.loss - s.initialLoss > blowUp * Math.max(1, Math.abs(s.initialLoss)))
-      return { kind: 'diverged', reason: 'blow-up', step, detail: `the loss rose to ${s.loss.toPrecision(4)} from ${s.initialLoss.toPrecision(4)} at the start` };
-    const gTol = this.settings.stop.gradientNormTolerance;
-    if (gTol !== undefined && norm2(s.grad) <= gTol) return this.judge({ rule: 'gradient-norm', tolerance: gTol });
-    return null;
-  }
-
-  /** Whether the distance from the start has been growing over the recorded doublings of steps. */
-  private movingAway(): boolean {
-    const d = this.state.recent.distanceAt;
-    const k = Math.floor(Math.log2(Math.max(1, this.state.t)));
-    return k >= 2 && d[k] > d[k - 1] && d[k - 1] > d[k - 2];
+    const finding = pointFinding(s.x, s.grad, s.loss, s.initialLoss, this.settings.stop);
+    return finding === 'ok' ? null : pointOutcome(finding, countingSurface(this.surface, s), this.endFacts(), this.settings.stop);
   }
 
   /**
-   * The loss-change rule and the step limit. A step taken at learning rate 0 (a schedule decayed to
-   * nothing) does not count as calm: the loss stopped changing because the run stopped moving, not
-   * because it reached a minimum. Whichever rule fires, the end point is judged (end-state.ts).
+   * The loss-change rule (a step at learning rate 0 is not calm) and the step limit (checks.ts).
+   * Whichever rule fires, the end point is judged (end-state.ts).
    */
   private checkProgress(previousLoss: number, learningRate: number): RunOutcome | null {
     const s = this.state;
-    const { lossChangeTolerance, lossChangePatience = DEFAULT_LOSS_CHANGE_PATIENCE, maxSteps } = this.settings.stop;
-    if (lossChangeTolerance !== undefined && learningRate === 0) s.calmSteps = 0;
-    else if (lossChangeTolerance !== undefined) {
-      const scale = Math.max(1, Math.abs(s.loss), Math.abs(previousLoss));
-      s.calmSteps = Math.abs(s.loss - previousLoss) / scale <= lossChangeTolerance ? s.calmSteps + 1 : 0;
-      if (s.calmSteps >= lossChangePatience) return this.judge({ rule: 'loss-change', tolerance: lossChangeTolerance, patience: lossChangePatience });
-    }
-    if (s.t >= maxSteps) return this.judge('step-limit');
-    return null;
+    const stop = this.settings.stop;
+    s.calmSteps = nextCalmSteps(stop, s.calmSteps, s.loss, previousLoss, learningRate);
+    const trigger = progressTrigger(stop, s.calmSteps, s.t);
+    return trigger ? this.judge(trigger) : null;
   }
-}
-
-/** The surface with every evaluation added to the run's count. */
-function countingSurface(surface: Surface, counter: { evaluations: number }): Surface {
-  const counted: Surface = {
-    dimension: surface.dimension,
-    variables: surface.variables,
-    value: (x) => (counter.evaluations++, surface.value(x)),
-    valueGradient: (x, g) => (counter.evaluations++, surface.valueGradient(x, g)),
-    valueGradientHessian: (x, g, h) => (counter.evaluations++, surface.valueGradientHessian(x, g, h)),
-  };
-  const withProducts = surface as Surface & { hessianVector?: (x: ArrayLike<number>, v: ArrayLike<number>, out: Float64Array) => void };
-  if (withProducts.hessianVector) {
-    const hv = withProducts.hessianVector.bind(surface);
-    (counted as typeof withProducts).hessianVector = (x, v, out) => (counter.evaluations++, hv(x, v, out));
-  }
-  return counted;
-}
-
-function addNoise(g: Float64Array, std: number, rng: RngState): void {
-  for (let i = 0; i < g.length; i++) g[i] += std * nextGaussian(rng);
-}
-
-interface RowBatch {
-  indices: Int32Array;
-  count: number;
-}
-
-/** The surface as optimizers see it: with the run's gradient noise, counting evaluations. */
-function noisyOracle(surface: Surface, std: number, state: { rng: RngState }): Oracle {
-  return {
-    dimension: surface.dimension,
-    value(x) {
-      return surface.value(x);
-    },
-    valueGradient(x, grad) {
-      const f = surface.valueGradient(x, grad);
-      if (std > 0) addNoise(grad, std, state.rng);
-      return f;
-    },
-    valueGradientHessian(x, grad, hessian) {
-      const f = surface.valueGradientHessian(x, grad, hessian);
-      if (std > 0) addNoise(grad, std, state.rng);
-      return f;
-    },
-  };
-}
-
-/**
- * The surface as optimizers see it on a minibatch run: the current batch's loss (line searches and
- * Newton steps work on the same batch the step's gradient came from), with the run's gradient noise.
- */
-function batchOracle(surface: RowwiseSurface, batch: RowBatch, std: number, state: { rng: RngState }): Oracle {
-  const scratch = new Float64Array(surface.dimension);
-  return {
-    dimension: surface.dimension,
-    value(x) {
-      return surface.valueGradientOnRows(x, scratch, batch.indices, batch.count);
-    },
-    valueGradient(x, grad) {
-      const f = surface.valueGradientOnRows(x, grad, batch.indices, batch.count);
-      if (std > 0) addNoise(grad, std, state.rng);
-      return f;
-    },
-    valueGradientHessian(x, grad, hessian) {
-      const f = surface.valueGradientHessianOnRows(x, grad, hessian, batch.indices, batch.count);
-      if (std > 0) addNoise(grad, std, state.rng);
-      return f;
-    },
-  };
 }

@@ -4,6 +4,8 @@
  * start at steps 1, 2, 4, 8, ... (for growth without bound). Recording costs one copy of x per step.
  */
 export const RECENT_POINTS = 9;
+/** Distance milestones kept: after steps 2^0 .. 2^31. */
+export const MILESTONES = 32;
 
 export interface RecentPath {
   /** RECENT_POINTS x n, row (t mod RECENT_POINTS) holds the point after step t. */
@@ -20,21 +22,50 @@ export function createRecentPath(x0: Float64Array, loss0: number): RecentPath {
     points: new Float64Array(RECENT_POINTS * x0.length),
     loss: new Float64Array(RECENT_POINTS),
     filled: 0,
-    distanceAt: new Float64Array(32).fill(Number.NaN),
+    distanceAt: new Float64Array(MILESTONES).fill(Number.NaN),
   };
   recordRecent(path, 0, x0, loss0, x0);
   return path;
 }
 
 export function recordRecent(path: RecentPath, t: number, x: Float64Array, loss: number, x0: Float64Array): void {
-  const n = x.length;
+  recordRecentAt(path.points, 0, path.loss, 0, path.distanceAt, 0, t, x, 0, x.length, loss, x0, 0);
+  if (path.filled < RECENT_POINTS) path.filled += 1;
+}
+
+/**
+ * recordRecent on flat storage, for a sweep's structure-of-arrays state: the ring starts at
+ * points[pointsAt] (RECENT_POINTS x n) and loss[lossAt], the milestones at distanceAt[milestonesAt]
+ * (MILESTONES of them), the point at x[xAt], the start at x0[x0At]. The caller keeps `filled`
+ * (min(RECENT_POINTS, t + 1) for a run recorded at every step from 0).
+ */
+export function recordRecentAt(
+  points: Float64Array,
+  pointsAt: number,
+  loss: Float64Array,
+  lossAt: number,
+  distanceAt: Float64Array,
+  milestonesAt: number,
+  t: number,
+  x: Float64Array,
+  xAt: number,
+  n: number,
+  lossValue: number,
+  x0: Float64Array,
+  x0At: number,
+): void {
   const slot = t % RECENT_POINTS;
-  path.points.set(x, slot * n);
-  path.loss[slot] = loss;
-  path.filled = Math.min(RECENT_POINTS, path.filled + 1);
+  // A plain loop: for the few coordinates of a typical surface it is much cheaper than TypedArray#set.
+  const base = pointsAt + slot * n;
+  for (let i = 0; i < n; i++) points[base + i] = x[xAt + i];
+  loss[lossAt + slot] = lossValue;
   if (t > 0 && (t & (t - 1)) === 0) {
     const k = Math.log2(t);
-    if (k < path.distanceAt.length) path.distanceAt[k] = distance(x, x0);
+    if (k < MILESTONES) {
+      let s = 0;
+      for (let i = 0; i < n; i++) s += (x[xAt + i] - x0[x0At + i]) ** 2;
+      distanceAt[milestonesAt + k] = Math.sqrt(s);
+    }
   }
 }
 

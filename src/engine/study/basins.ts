@@ -1,11 +1,13 @@
 import type { OutcomeKind } from '../run';
+import { distance } from '../run/recent';
+import { basinOf } from '../sweep/basins';
 
 /**
  * Which basin each run of a study ended in. A run whose outcome is `converged` (or `stationary`, a flat
- * end) belongs to the known point nearest its end point when that is within `radius`; otherwise to
- * a cluster of such end points: the first end point farther than `radius` from every cluster so far
- * opens a new cluster at itself, later ones join the first cluster (in order) within `radius` (a
- * leader clustering; the result depends only on the run order, which is the cell order). Runs with
+ * end) belongs to the known point nearest its end point when that is within `radius` (sweep/basins.ts
+ * `basinOf`); otherwise to a cluster of such end points by the leader rule of sweep/basins.ts
+ * `clusterEndPoints`, applied one run at a time as results arrive (the first end point farther than
+ * `radius` from every leader so far leads a new cluster; the result depends only on the arrival order). Runs with
  * any other outcome get no basin (-1): their outcome is their legend entry.
  * Basin ids: 0..known-1 are the known points in order, then clusters in order of discovery.
  */
@@ -35,17 +37,15 @@ export class BasinTracker {
   ) {
     if (!(radius > 0 && Number.isFinite(radius))) throw new RangeError(`basins: radius must be a finite number > 0, got ${radius}`);
     this.labels = known.map((k) => k.label);
+    this.knownPoints = known.map((k) => k.point);
   }
+
+  private readonly knownPoints: ArrayLike<number>[];
 
   /** The basin of a run that ended at `end` with outcome `kind` (-1: none). */
   assign(end: ArrayLike<number>, kind: OutcomeKind): number {
     if (!BASIN_KINDS.has(kind)) return -1;
-    let best = -1;
-    let bestDistance = this.radius;
-    this.known.forEach((k, q) => {
-      const d = distance(k.point, end);
-      if (d <= bestDistance) [best, bestDistance] = [q, d];
-    });
+    const best = basinOf(end, this.knownPoints, this.radius);
     if (best >= 0) return best;
     const c = this.centres.findIndex((p) => distance(p, end) <= this.radius);
     if (c >= 0) return this.known.length + c;
@@ -67,10 +67,4 @@ export function assignBasins(
   const tracker = new BasinTracker(known, radius, formatPoint);
   const basin = Int32Array.from(kinds, (kind, r) => tracker.assign(endPoints.subarray(r * n, (r + 1) * n), kind));
   return { basin, labels: tracker.labels, centres: tracker.centres };
-}
-
-function distance(a: ArrayLike<number>, b: ArrayLike<number>): number {
-  let s = 0;
-  for (let i = 0; i < a.length; i++) s += (a[i] - b[i]) ** 2;
-  return Math.sqrt(s);
 }

@@ -1,6 +1,6 @@
 export { drawStarts, networkLayers, MAX_STARTS, type NetworkLayer, type StartDistribution } from './starts';
 export { lossBands, quantile, type LossBands } from './quantiles';
 export { summariseStarts, type MultiStartSummary, type StartResult } from './multistart';
-export { cellStart, cellStride, coarseToFineOrder, validateStartMap, START_MAP_RESOLUTIONS, type StartMapSpec } from './start-map';
+export { cellStart, validateStartMap, START_MAP_RESOLUTIONS, type StartMapSpec } from './start-map';
 export { assignBasins, BasinTracker, type BasinAssignment, type KnownPoint } from './basins';
 export { validateMultiStart, MAX_MULTI_STARTS, type MultiStartSpec, type StudySpec } from './spec';

@@ -6,7 +6,9 @@ import type { StopRules } from '../run';
  * resolution x resolution grid over a box in the plane of two parameters (`axes`); the other
  * coordinates stay as `base` holds them (for surfaces of more than two parameters the map is a slice).
  * Cell (i, j) has index i + j * resolution and its start at the centre of the cell: a_lo + (i + 1/2)
- * (a_hi - a_lo) / resolution along the first axis, likewise b with j along the second.
+ * (a_hi - a_lo) / resolution along the first axis, likewise b with j along the second (the same cells
+ * as sweep/grid.ts `startGrid`, one at a time). Cells run in `coarseToFineOrder(resolution,
+ * resolution)` (sweep/grid.ts).
  */
 export interface StartMapSpec {
   kind: 'start-map';
@@ -41,35 +43,4 @@ export function cellStart(spec: StartMapSpec, index: number, out: Float64Array):
   out[spec.axes[0]] = spec.box.a[0] + ((i + 0.5) * (spec.box.a[1] - spec.box.a[0])) / r;
   out[spec.axes[1]] = spec.box.b[0] + ((j + 0.5) * (spec.box.b[1] - spec.box.b[0])) / r;
   return out;
-}
-
-/**
- * Cell indices of a resolution x resolution grid (resolution a power of two times 16 or less) in
- * coarse-to-fine order: first the cells whose (i, j) are both multiples of resolution / 8, then those
- * of resolution / 16 not yet listed, and so on down to 1, so after the first 1/64, 1/16, 1/4 of the
- * work a coarser full picture can be drawn (each cell painted over the block it stands for).
- */
-export function coarseToFineOrder(resolution: number): Int32Array {
-  const out = new Int32Array(resolution * resolution);
-  const seen = new Uint8Array(resolution * resolution);
-  let k = 0;
-  for (let stride = Math.max(1, 2 ** Math.floor(Math.log2(resolution / 8))); stride >= 1; stride /= 2)
-    for (let j = 0; j < resolution; j += stride)
-      for (let i = 0; i < resolution; i += stride) {
-        const c = i + j * resolution;
-        if (!seen[c]) {
-          seen[c] = 1;
-          out[k++] = c;
-        }
-      }
-  return out;
-}
-
-/** The stride of the block a cell stands for while the map is drawn coarse-to-fine (see above). */
-export function cellStride(index: number, resolution: number): number {
-  const i = index % resolution;
-  const j = (index - i) / resolution;
-  let stride = Math.max(1, 2 ** Math.floor(Math.log2(resolution / 8)));
-  while (stride > 1 && (i % stride !== 0 || j % stride !== 0)) stride /= 2;
-  return stride;
 }

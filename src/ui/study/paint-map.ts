@@ -5,12 +5,13 @@ import { cellColour } from './study-colours';
 /**
  * The map as resolution x resolution RGBA pixels, cell (i, j) at column i and row resolution - 1 - j
  * (the second axis grows upwards, as on the surface view). While the map fills in coarse-to-fine
- * order, a cell not yet run takes the colour of the coarse cell whose block it lies in (cellStride),
- * so the first 1/64 of the work already gives a full, blocky picture; cells with nothing yet stay clear.
+ * order (sweep/grid.ts coarseToFineOrder), a cell not yet run takes the colour of the coarsest-level
+ * cell at the corner of the block it lies in, so a fraction of the work already gives a full, blocky
+ * picture; cells with nothing yet stay clear.
  */
 export function paintStartMap(cells: StudyCellsState, resolution: number, maxSteps: number): Uint8ClampedArray<ArrayBuffer> {
   const out = new Uint8ClampedArray(resolution * resolution * 4);
-  const top = Math.max(1, 2 ** Math.floor(Math.log2(resolution / 8)));
+  const top = 2 ** Math.floor(Math.log2(resolution));
   for (let j = 0; j < resolution; j++)
     for (let i = 0; i < resolution; i++) {
       let index = i + j * resolution;

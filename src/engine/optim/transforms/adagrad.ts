@@ -10,6 +10,7 @@ export type EpsilonPlacement = 'outside' | 'inside';
 export function scaleByAdagrad(epsilon: number, placement: EpsilonPlacement, initialAccumulator: number): GradientTransform<{ sumSquares: Float64Array }> {
   return {
     name: 'scaleByAdagrad',
+    elementwise: true,
     init: (p) => ({ sumSquares: new Float64Array(p.length).fill(initialAccumulator) }),
     update(u, s) {
       const G = s.sumSquares;

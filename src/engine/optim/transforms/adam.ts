@@ -18,6 +18,7 @@ export type AdamEpsilonForm = 'algorithm1' | 'hat';
 export function scaleByAdam(beta1: number, beta2: number, epsilon: number, form: AdamEpsilonForm = 'algorithm1'): GradientTransform<MomentsState> {
   return {
     name: 'scaleByAdam',
+    elementwise: true,
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length) }),
     update(u, s, _p, t) {
       const { m, v } = s;

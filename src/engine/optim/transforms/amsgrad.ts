@@ -21,6 +21,7 @@ export interface AmsgradState {
 export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, form: AmsgradForm): GradientTransform<AmsgradState> {
   return {
     name: 'scaleByAmsgrad',
+    elementwise: true,
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length), vMax: new Float64Array(p.length) }),
     update(u, s, _p, t) {
       const { m, v, vMax } = s;

@@ -8,6 +8,7 @@ import type { GradientTransform } from '../transform';
 export function scaleByLearningRate(base: number, schedule?: ScheduleSpec): GradientTransform<null> {
   return {
     name: 'scaleByLearningRate',
+    elementwise: true,
     init: () => null,
     update(u, _s, _p, t) {
       const lr = learningRateAt(schedule, base, t);

@@ -15,6 +15,7 @@ export interface MomentumState {
 export function traceMomentum(mu: number, dampening = 0, nesterov = false): GradientTransform<MomentumState> {
   return {
     name: nesterov ? 'traceNesterov' : 'traceMomentum',
+    elementwise: true,
     init: (p) => ({ buffer: new Float64Array(p.length), steps: 0 }),
     update(u, s) {
       const b = s.buffer;
@@ -38,6 +39,7 @@ export function traceMomentum(mu: number, dampening = 0, nesterov = false): Grad
 export function traceVelocity(mu: number): GradientTransform<{ velocity: Float64Array }> {
   return {
     name: 'traceVelocity',
+    elementwise: true,
     init: (p) => ({ velocity: new Float64Array(p.length) }),
     update(u, s) {
       const v = s.velocity;

@@ -21,6 +21,7 @@ export function scaleByNadam(beta1: number, beta2: number, epsilon: number, mome
   const mu = (t: number) => beta1 * (1 - 0.5 * Math.pow(0.96, t * momentumDecay));
   return {
     name: 'scaleByNadam',
+    elementwise: true,
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length), muProduct: 1 }),
     update(u, s, _p, t) {
       const { m, v } = s;

@@ -28,6 +28,7 @@ export interface RmsOptions {
 export function scaleByRms(o: RmsOptions): GradientTransform<RmsState> {
   return {
     name: 'scaleByRms',
+    elementwise: true,
     init: (p) => ({
       meanSquare: new Float64Array(p.length).fill(o.initialMeanSquare),
       meanGrad: o.centered ? new Float64Array(p.length) : null,

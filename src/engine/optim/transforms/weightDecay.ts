@@ -3,6 +3,7 @@ import type { GradientTransform } from '../transform';
 function addScaledParams(name: string, coefficient: number): GradientTransform<null> {
   return {
     name,
+    elementwise: true,
     init: () => null,
     update(u, _s, params) {
       for (let i = 0; i < u.length; i++) u[i] += coefficient * params[i];

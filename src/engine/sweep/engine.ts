@@ -1,0 +1,425 @@
+import { buildOptimizer } from '../optim/build';
+import { applyTransforms, isChainOptimizer, learningRateStage, type ChainOptimizer, type ChainState, type GradientTransform } from '../optim/transform';
+import type { Optimizer, Oracle, StepContext, StepReport } from '../optim/types';
+import { createRng, type RngState } from '../rng';
+import { nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrigger, startOutcome, type PointFinding } from '../run/checks';
+import { judgeEnd, type EndFacts, type EndTrigger } from '../run/end-state';
+import { addNoise, countingSurface, noisyOracle } from '../run/oracle';
+import type { RunOutcome } from '../run/outcome';
+import { MILESTONES, RECENT_POINTS, recordRecent, recordRecentAt, type RecentPath } from '../run/recent';
+import type { StopRules } from '../run/settings';
+import type { Surface } from '../surface';
+import { norm2 } from '../vector';
+import { validateSweepPlan, type SweepPlan, type SweepProgress, type SweepResult } from './plan';
+
+/**
+ * Runs per block on the block path: one optimizer state per block of consecutive runs. Small enough
+ * that a block with few live runs wastes little, large enough that the per-call cost of the
+ * transforms (Adam's two powers of beta per step) is spread thin.
+ */
+const BLOCK = 64;
+
+/** The block path's parts: the chain's transforms and one chain state per block of BLOCK runs. */
+interface Blocks {
+  transforms: readonly GradientTransform[];
+  rate: { learningRate(t: number): number };
+  states: ChainState[];
+  x: Float64Array[];
+  grad: Float64Array[];
+  work: Float64Array[];
+}
+
+/** A run's mutable step context, made once (the optimizer reads t, loss and oracle). */
+interface RunContext {
+  t: number;
+  loss: number;
+  oracle: Oracle;
+}
+
+/**
+ * Runs one configuration from many starts in lockstep: every live run takes one step per round, in
+ * plan order. State is structure-of-arrays: all points in one Float64Array (count x n), all exact
+ * gradients in another, the optimizer's work buffers, start points, losses, step and calm counters,
+ * evaluation counts, recent-point rings and distance milestones each in one typed array; per-run
+ * subarray views, optimizer states, seeded noise generators and oracles are made once in the
+ * constructor, so a step allocates nothing beyond what the optimizer's own step does. Runs that end
+ * leave the live list. Each step follows the run loop (cursor.ts) operation for operation, with the
+ * stop rules from run/checks.ts, so a run's end point, loss, steps, evaluations and outcome are
+ * bit-identical to the same run done alone by a RunCursor. Outcomes are built (and the end point
+ * judged) only when a run ends.
+ *
+ * The block path: when every run shares one optimizer that is a chain of elementwise transforms
+ * (transform.ts; every first-order kind without gradient clipping), the transforms run once per round
+ * over each block of BLOCK consecutive runs, on one chain state for the block, instead of once per
+ * run. An elementwise transform gives every entry the numbers it would get alone, so the results are
+ * the same bits; a block whose runs have all ended is skipped (an ended run's entries in a block still
+ * in use are transformed and ignored; its point no longer moves). Other optimizers (L-BFGS, Newton,
+ * the Sutskever form of Nesterov momentum, clipped chains, several learning rates) step run by run
+ * with a state per run.
+ *
+ * Stream it with `advance(rounds)` or `advanceFor(ms, clock)` and read `result()` between calls.
+ */
+export class Sweep {
+  readonly count: number;
+  readonly dimension: number;
+  readonly surface: Surface;
+  readonly stop: StopRules;
+  private readonly noise: number;
+  private readonly lossTolerance: number;
+  private readonly stationarityTolerance: number | undefined;
+
+  private readonly x: Float64Array;
+  private readonly grad: Float64Array;
+  private readonly work: Float64Array;
+  private readonly x0: Float64Array;
+  private readonly loss: Float64Array;
+  private readonly initialLoss: Float64Array;
+  private readonly initialGradNorm: Float64Array;
+  private readonly steps: Int32Array;
+  private readonly calm: Int32Array;
+  private readonly evaluations: Float64Array;
+  private readonly stepsToTolerance: Int32Array;
+  private readonly ringPoints: Float64Array;
+  private readonly ringLoss: Float64Array;
+  private readonly milestones: Float64Array;
+  private readonly outcomes: (RunOutcome | null)[];
+  /** Indices of the runs still going, in plan order, in [0, liveCount). */
+  private readonly live: Int32Array;
+  private liveCount = 0;
+  private totalSteps = 0;
+  private rounds = 0;
+
+  private readonly xs: Float64Array[] = [];
+  private readonly grads: Float64Array[] = [];
+  private readonly works: Float64Array[] = [];
+  private readonly x0s: Float64Array[] = [];
+  private readonly recents: RecentPath[] = [];
+  private readonly optimizers: Optimizer[] = [];
+  private readonly states: unknown[] = [];
+  private readonly rngs: RngState[] = [];
+  private readonly contexts: RunContext[] = [];
+  private readonly blocks: Blocks | null;
+  private readonly scratchX: Float64Array;
+  private readonly scratchGrad: Float64Array;
+
+  constructor(plan: SweepPlan) {
+    const count = validateSweepPlan(plan);
+    const surface = plan.surface;
+    const n = surface.dimension;
+    this.count = count;
+    this.dimension = n;
+    this.surface = surface;
+    this.stop = plan.stop;
+    this.noise = plan.gradientNoise ?? 0;
+    this.lossTolerance = plan.lossTolerance ?? Number.NaN;
+    this.stationarityTolerance = plan.stop.stationarityTolerance;
+    this.x = Float64Array.from(plan.starts);
+    this.grad = new Float64Array(count * n);
+    this.work = new Float64Array(count * n);
+    this.x0 = Float64Array.from(plan.starts);
+    this.loss = new Float64Array(count);
+    this.initialLoss = new Float64Array(count);
+    this.initialGradNorm = new Float64Array(count);
+    this.steps = new Int32Array(count);
+    this.calm = new Int32Array(count);
+    this.evaluations = new Float64Array(count);
+    this.stepsToTolerance = new Int32Array(count).fill(-1);
+    this.ringPoints = new Float64Array(count * RECENT_POINTS * n);
+    this.ringLoss = new Float64Array(count * RECENT_POINTS);
+    this.milestones = new Float64Array(count * MILESTONES).fill(Number.NaN);
+    this.outcomes = new Array<RunOutcome | null>(count).fill(null);
+    this.live = new Int32Array(count);
+    this.scratchX = new Float64Array(n);
+    this.scratchGrad = new Float64Array(n);
+
+    // One optimizer per distinct learning rate: an Optimizer keeps its run's state in `state`, its
+    // closures only scratch buffers that each step fills before reading, so runs can share it.
+    const byRate = new Map<number, Optimizer>();
+    const optimizerFor = (lr: number) => {
+      let o = byRate.get(lr);
+      if (!o) byRate.set(lr, (o = buildOptimizer({ ...plan.optimizer, learningRate: lr })));
+      return o;
+    };
+    for (let r = 0; r < count; r++) {
+      const lo = r * n;
+      const hi = lo + n;
+      const x = this.x.subarray(lo, hi);
+      const grad = this.grad.subarray(lo, hi);
+      const x0 = this.x0.subarray(lo, hi);
+      const recent: RecentPath = {
+        points: this.ringPoints.subarray(r * RECENT_POINTS * n, (r + 1) * RECENT_POINTS * n),
+        loss: this.ringLoss.subarray(r * RECENT_POINTS, (r + 1) * RECENT_POINTS),
+        filled: 0,
+        distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES),
+      };
+      const optimizer = optimizerFor(plan.learningRates ? plan.learningRates[r] : plan.optimizer.learningRate);
+      const rng = createRng(plan.seeds ? plan.seeds[r] : (plan.seed ?? 0));
+      this.xs.push(x);
+      this.grads.push(grad);
+      this.works.push(this.work.subarray(lo, hi));
+      this.x0s.push(x0);
+      this.recents.push(recent);
+      this.optimizers.push(optimizer);
+      this.rngs.push(rng);
+      // The start, as RunCursor's constructor evaluates and checks it.
+      const loss = surface.valueGradient(x, grad);
+      this.loss[r] = loss;
+      this.initialLoss[r] = loss;
+      this.initialGradNorm[r] = norm2(grad);
+      this.evaluations[r] = 1;
+      recordRecent(recent, 0, x, loss, x0);
+      this.states.push(null);
+      this.contexts.push({ t: 0, loss, oracle: noisyOracle(surface, this.noise, { rng }) });
+      if (loss <= this.lossTolerance) this.stepsToTolerance[r] = 0;
+      let outcome = startOutcome(surface, x, loss, grad);
+      if (!outcome) {
+        const finding = pointFinding(x, grad, loss, loss, this.stop);
+        if (finding !== 'ok') outcome = this.pointEnd(r, finding);
+      }
+      this.outcomes[r] = outcome;
+      if (!outcome) this.live[this.liveCount++] = r;
+    }
+    const shared = byRate.size === 1 ? [...byRate.values()][0] : null;
+    this.blocks = shared && isChainOptimizer(shared) && shared.transforms.every((tr) => tr.elementwise) ? this.makeBlocks(shared) : null;
+    if (!this.blocks) for (let r = 0; r < count; r++) this.states[r] = this.optimizers[r].init(Float64Array.from(this.xs[r]));
+  }
+
+  private makeBlocks(o: ChainOptimizer): Blocks {
+    const n = this.dimension;
+    const b: Blocks = { transforms: o.transforms, rate: learningRateStage(o.transforms, o.label), states: [], x: [], grad: [], work: [] };
+    for (let lo = 0; lo < this.count; lo += BLOCK) {
+      const hi = Math.min(this.count, lo + BLOCK);
+      const x = this.x.subarray(lo * n, hi * n);
+      b.x.push(x);
+      b.grad.push(this.grad.subarray(lo * n, hi * n));
+      b.work.push(this.work.subarray(lo * n, hi * n));
+      b.states.push(o.init(Float64Array.from(x)));
+    }
+    return b;
+  }
+
+  get progress(): SweepProgress {
+    return { done: this.count - this.liveCount, total: this.count, steps: this.totalSteps, rounds: this.rounds };
+  }
+
+  /** Whether every run has ended. */
+  get finished(): boolean {
+    return this.liveCount === 0;
+  }
+
+  /** Takes up to `maxRounds` lockstep rounds (one step of every live run each) and reports progress. */
+  advance(maxRounds: number): SweepProgress {
+    for (let k = 0; k < maxRounds && this.liveCount > 0; k++) this.round();
+    return this.progress;
+  }
+
+  /**
+   * Takes rounds until `ms` milliseconds have passed on `clock` (checked after each round, so at
+   * least one round is taken) or every run has ended. The clock is passed in: the engine reads none.
+   */
+  advanceFor(ms: number, clock: () => number): SweepProgress {
+    const t0 = clock();
+    do this.round();
+    while (this.liveCount > 0 && clock() - t0 < ms);
+    return this.progress;
+  }
+
+  /** Ends every live run where it stands, each judged as a cancelled RunCursor would be. */
+  cancel(): SweepProgress {
+    for (let k = 0; k < this.liveCount; k++) {
+      const r = this.live[k];
+      this.outcomes[r] = this.judge(r, 'cancelled');
+    }
+    this.liveCount = 0;
+    return this.progress;
+  }
+
+  /** The runs' results so far, copied (safe to transfer or keep while the sweep goes on). */
+  result(): SweepResult {
+    return {
+      count: this.count,
+      dimension: this.dimension,
+      endPoints: this.x.slice(),
+      losses: this.loss.slice(),
+      steps: this.steps.slice(),
+      evaluations: this.evaluations.slice(),
+      stepsToTolerance: this.stepsToTolerance.slice(),
+      outcomes: this.outcomes.slice(),
+    };
+  }
+
+  /** One step of every live run, in plan order; runs that end leave the live list. */
+  private round(): void {
+    if (this.blocks) return this.blockRound(this.blocks);
+    const live = this.live;
+    const liveCount = this.liveCount;
+    let kept = 0;
+    for (let k = 0; k < liveCount; k++) {
+      const r = live[k];
+      if (this.stepRun(r)) live[kept++] = r;
+    }
+    this.totalSteps += liveCount;
+    this.liveCount = kept;
+    this.rounds += 1;
+  }
+
+  /**
+   * One round on the block path: for each block holding live runs, the work buffer gets the exact
+   * gradients (plus each live run's noise, drawn from its own generator), the transforms run over the
+   * block, then each live run moves by its entries of the update and is evaluated and checked.
+   */
+  private blockRound(b: Blocks): void {
+    const live = this.live;
+    const liveCount = this.liveCount;
+    const noise = this.noise;
+    const t = this.rounds + 1;
+    const learningRate = b.rate.learningRate(t);
+    let kept = 0;
+    let k = 0;
+    while (k < liveCount) {
+      const block = (live[k] / BLOCK) | 0;
+      const end = Math.min(this.count, (block + 1) * BLOCK);
+      let stop = k;
+      while (stop < liveCount && live[stop] < end) stop++;
+      const work = b.work[block];
+      work.set(b.grad[block]);
+      if (noise > 0) for (let j = k; j < stop; j++) addNoise(this.works[live[j]], noise, this.rngs[live[j]]);
+      applyTransforms(b.transforms, b.states[block], work, b.x[block], t);
+      kept = this.blockSteps(k, stop, kept, t, learningRate);
+      k = stop;
+    }
+    this.totalSteps += liveCount;
+    this.liveCount = kept;
+    this.rounds += 1;
+  }
+
+  /**
+   * The rest of a chain step for the live runs live[from..to) of one block, on the flat arrays (no
+   * per-run objects: at thousands of runs those views would not stay in cache): move by the update,
+   * evaluate the new point (through a scratch copy, so the surface sees a vector of its own), record
+   * it and apply the stop rules. Returns the new count of kept runs.
+   */
+  private blockSteps(from: number, to: number, kept: number, t: number, learningRate: number): number {
+    const live = this.live;
+    const n = this.dimension;
+    const X = this.x;
+    const G = this.grad;
+    const W = this.work;
+    const X0 = this.x0;
+    const losses = this.loss;
+    const sx = this.scratchX;
+    const sg = this.scratchGrad;
+    const surface = this.surface;
+    const stopRules = this.stop;
+    const calmRule = stopRules.lossChangeTolerance !== undefined;
+    const tol = this.lossTolerance;
+    for (let j = from; j < to; j++) {
+      const r = live[j];
+      const o = r * n;
+      for (let i = 0; i < n; i++) sx[i] = X[o + i] += W[o + i];
+      const loss = surface.valueGradient(sx, sg);
+      for (let i = 0; i < n; i++) G[o + i] = sg[i];
+      const previousLoss = losses[r];
+      losses[r] = loss;
+      this.evaluations[r] += 1;
+      this.steps[r] = t;
+      if (loss <= tol && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
+      recordRecentAt(this.ringPoints, r * RECENT_POINTS * n, this.ringLoss, r * RECENT_POINTS, this.milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
+      const finding = pointFindingAt(X, G, o, n, loss, this.initialLoss[r], stopRules);
+      if (finding !== 'ok') {
+        this.endFlat(r, finding, null);
+        continue;
+      }
+      // Without the loss-change rule the counter never moves (checks.ts), so it is not updated.
+      if (calmRule) this.calm[r] = nextCalmSteps(stopRules, this.calm[r], loss, previousLoss, learningRate);
+      const trigger = progressTrigger(stopRules, this.calm[r], t);
+      if (trigger) {
+        this.endFlat(r, null, trigger);
+        continue;
+      }
+      live[kept++] = r;
+    }
+    return kept;
+  }
+
+  private endFlat(r: number, finding: Exclude<PointFinding, 'ok'> | null, trigger: EndTrigger | null): void {
+    this.end(r, finding ? this.pointEnd(r, finding) : this.judge(r, trigger!));
+  }
+
+  /** One step of run r, as RunCursor.advance takes it; false when the run ended. */
+  private stepRun(r: number): boolean {
+    const x = this.xs[r];
+    const grad = this.grads[r];
+    const work = this.works[r];
+    const n = x.length;
+    const previousLoss = this.loss[r];
+    for (let i = 0; i < n; i++) work[i] = grad[i];
+    const noise = this.noise;
+    if (noise > 0) addNoise(work, noise, this.rngs[r]);
+    const t = this.steps[r] + 1;
+    this.steps[r] = t;
+    const ctx = this.contexts[r];
+    ctx.t = t;
+    ctx.loss = previousLoss;
+    const report: StepReport = this.optimizers[r].step(x, work, this.states[r], ctx as StepContext);
+    this.evaluations[r] += report.extraEvaluations;
+    let loss: number;
+    if (report.lossAtNewPoint !== undefined && noise === 0) {
+      loss = report.lossAtNewPoint;
+      for (let i = 0; i < n; i++) grad[i] = work[i];
+    } else {
+      loss = this.surface.valueGradient(x, grad);
+      this.evaluations[r] += 1;
+    }
+    this.loss[r] = loss;
+    if (loss <= this.lossTolerance && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
+    recordRecent(this.recents[r], t, x, loss, this.x0s[r]);
+    const finding = pointFinding(x, grad, loss, this.initialLoss[r], this.stop);
+    if (finding !== 'ok') return this.end(r, this.pointEnd(r, finding));
+    if (report.noDescent) return this.end(r, this.judge(r, { rule: 'no-step' }));
+    const calm = nextCalmSteps(this.stop, this.calm[r], loss, previousLoss, report.learningRate);
+    this.calm[r] = calm;
+    const trigger = progressTrigger(this.stop, calm, t);
+    if (trigger) return this.end(r, this.judge(r, trigger));
+    return true;
+  }
+
+  private end(r: number, outcome: RunOutcome): false {
+    this.outcomes[r] = outcome;
+    return false;
+  }
+
+  /** The facts the end judgement reads, for run r (made only when the run ends). */
+  private facts(r: number): EndFacts {
+    // Every run is recorded at each step from 0, so its ring holds min(RECENT_POINTS, t + 1) points
+    // (the block path records through recordRecentAt and leaves the count to here).
+    this.recents[r].filled = Math.min(RECENT_POINTS, this.steps[r] + 1);
+    return {
+      t: this.steps[r],
+      x: this.xs[r],
+      x0: this.x0s[r],
+      grad: this.grads[r],
+      loss: this.loss[r],
+      initialLoss: this.initialLoss[r],
+      initialGradNorm: this.initialGradNorm[r],
+      recent: this.recents[r],
+      stationarityTolerance: this.stationarityTolerance,
+    };
+  }
+
+  /** Runs `f` on the surface counting into run r's evaluations, as the cursor's judgement counts. */
+  private counted<T>(r: number, f: (surface: Surface) => T): T {
+    const counter = { evaluations: this.evaluations[r] };
+    const out = f(countingSurface(this.surface, counter));
+    this.evaluations[r] = counter.evaluations;
+    return out;
+  }
+
+  private pointEnd(r: number, finding: Exclude<PointFinding, 'ok'>): RunOutcome {
+    return this.counted(r, (s) => pointOutcome(finding, s, this.facts(r), this.stop));
+  }
+
+  private judge(r: number, trigger: EndTrigger): RunOutcome {
+    return this.counted(r, (s) => judgeEnd(s, this.facts(r), trigger));
+  }
+}
