@@ -8,3 +8,4 @@ export * from './slice';
 export * from './optim';
 export * from './linalg';
 export * from './expr';
+export * from './rules';
