@@ -6,4 +6,4 @@ export { compileRule, ruleProblems, type CompiledRule } from './compile';
 export { ruleOptimizer, type RuleOptimizerOptions, type RuleState } from './optimizer';
 export { REDUCTIONS, RULE_FUNCTIONS, type ReductionName } from './functions';
 export type { HyperInfo } from './ir';
-export { RULE_LIBRARY, ruleExample, type RuleExample } from './library';
+export { RULE_LIBRARY, ruleExample, adamRule, rmspropRule, heavyBallRule, adadeltaRule, lionRule, signumRule, adabeliefRule, type RuleExample } from './library';

@@ -7,6 +7,8 @@ import type { RuleExample } from './example';
  *   E[dx^2]_t = rho E[dx^2]_{t-1} + (1 - rho) dx_t^2,  x_{t+1} = x_t + dx_t.
  * The paper has no learning rate (lr = 1, our default); tfjs, PyTorch and Keras multiply the step by
  * one (tfjs default 0.001, PyTorch 1.0). Defaults rho = 0.95, eps = 1e-6 (the paper's experiments).
+ * tfjs-core 4.22.0 forms the step with E[g^2]_{t-1}, before adding g_t^2 (its first step is lr g); that
+ * order is this rule with the `sq = ...` line moved below `let d = ...` (test/engine/rules/tfjs.test.ts).
  */
 export const adadeltaRule: RuleExample = {
   id: 'adadelta',
