@@ -22,7 +22,7 @@ beforeAll(async () => {
 
 function runTfjs(surface: Surface, start: number[], steps: number, lr: number, rho: number, eps: number): number[][] {
   const x = tf.variable(tf.tensor1d(start, 'float32'));
-  const opt = tf.train.adadelta(lr, rho, eps);
+  const opt: tf.Optimizer = tf.train.adadelta(lr, rho, eps);
   const g = new Float64Array(surface.dimension);
   const path: number[][] = [Array.from(x.dataSync())];
   for (let k = 0; k < steps; k++) {
