@@ -9,6 +9,7 @@ import { formulaGradRatios, formulaVsMathjs } from './formula';
 import { gridVsHandwritten } from './grid';
 import { datafitGridVsHandwritten, datafitSlice } from './datafit';
 import { poolSpeedup } from './pool';
+import { ruleVsBuiltin } from './rule';
 
 const TARGETS = {
   formula_grad_vs_handwritten: 0.5,
@@ -17,11 +18,13 @@ const TARGETS = {
   grid_vs_handwritten: 0.7,
   datafit_grid_vs_handwritten: 0.7,
   pool_speedup: 1.7,
+  rule_vs_builtin: 0.9,
 };
 
 const grad = formulaGradRatios();
 const mathjs = formulaVsMathjs();
 const adam = await adamVsTfjs();
+const rule = ruleVsBuiltin();
 const grid = gridVsHandwritten();
 const datafit = datafitGridVsHandwritten();
 const slice = datafitSlice();
@@ -40,6 +43,8 @@ const ratios = {
   pool_speedup: pool.ratio,
   // What two threads reach with no pool: 2 x (one grid alone) / (two grids at once); the pool's ceiling here.
   pool_speedup_machine_limit: pool.limit,
+  // Adam written as an update rule / the built-in Adam, steps per second on Rosenbrock through the run loop.
+  rule_vs_builtin: rule.ratio,
 };
 
 const rows = Object.entries(ratios).map(([k, v]) => [k, v, TARGETS[k as keyof typeof TARGETS]] as const);
@@ -50,12 +55,13 @@ console.log('\ndetails');
 for (const g of grad) console.log(`  value+gradient ${g.name.padEnd(14)} compiled ${(g.compiled * 1000).toExponential(3)}/s  hand-written ${(g.handwritten * 1000).toExponential(3)}/s  ratio ${g.ratio.toFixed(3)}`);
 for (const m of mathjs) console.log(`  value ${m.name.padEnd(14)} compiled ${(m.compiled * 1000).toExponential(3)}/s  mathjs ${(m.mathjs * 1000).toExponential(3)}/s  ratio ${m.ratio.toFixed(1)} (hand-written/mathjs ${m.handwrittenRatio.toFixed(1)})`);
 console.log(`  Adam on Rosenbrock: engine ${(adam.engineStepsPerMs * 1000).toExponential(3)} steps/s, hand-written ${(adam.handwrittenStepsPerMs * 1000).toExponential(3)}, tfjs-core cpu ${(adam.tfjsStepsPerMs * 1000).toExponential(3)} (hand-written/tfjs ${adam.handwrittenRatio.toFixed(0)})`);
+console.log(`  Adam as a rule on Rosenbrock: ${(rule.ruleStepsPerMs * 1000).toExponential(3)} steps/s, built-in ${(rule.builtinStepsPerMs * 1000).toExponential(3)} steps/s`);
 console.log(`  256x256 Rosenbrock grid: engine ${grid.engineMs.toFixed(2)} ms, hand-written ${grid.handwrittenMs.toFixed(2)} ms`);
 console.log(`  128x128 data-fit slice (${datafit.surface}, ${datafit.rows} rows): engine ${datafit.engineMs.toFixed(1)} ms, hand-written ${datafit.handwrittenMs.toFixed(1)} ms, hand-written for any p ${datafit.handwrittenGenericMs.toFixed(1)} ms (ratio ${datafit.genericRatio.toFixed(3)})`);
 console.log(`  grid pool on that slice: 1 worker ${pool.oneWorkerMs.toFixed(1)} ms, 2 workers ${pool.twoWorkersMs.toFixed(1)} ms; two 1-worker pools at once ${pool.twoGridsAtOnceMs.toFixed(1)} ms (pool efficiency ${((100 * pool.ratio) / pool.limit).toFixed(0)}% of the machine limit)`);
 
 writeFileSync(
   new URL('./results.json', import.meta.url),
-  JSON.stringify({ measuredAt: new Date().toISOString(), node: process.version, targets: TARGETS, ratios, details: { grad, mathjs, adam, grid, datafit, pool } }, null, 2),
+  JSON.stringify({ measuredAt: new Date().toISOString(), node: process.version, targets: TARGETS, ratios, details: { grad, mathjs, adam, rule, grid, datafit, pool } }, null, 2),
 );
 console.log('\nwrote bench/results.json');
