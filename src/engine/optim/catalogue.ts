@@ -1,3 +1,5 @@
+import { adamRule } from '../rules/library';
+import { compileRule } from '../rules/compile';
 import { METHODS, methodFor } from './methods';
 import type { HyperValue, OptimizerInfo, OptimizerKind, OptimizerSpec } from './spec';
 
@@ -10,13 +12,25 @@ export function optimizerInfo(kind: OptimizerKind): OptimizerInfo {
   return m.info;
 }
 
-/** A complete spec with every setting at its default (constant schedule, no clipping or penalty). */
+/**
+ * A complete spec with every setting at its default (constant schedule, no clipping or penalty). For
+ * kind 'rule' the rule is Adam written as a rule (the library's first template).
+ */
 export function defaultOptimizerSpec(kind: OptimizerKind): OptimizerSpec {
   const info = optimizerInfo(kind);
   const hyper: Record<string, HyperValue> = {};
+  if (kind === 'rule') {
+    for (const h of compileRule(adamRule.text).hyperparameters) hyper[h.name] = h.default;
+    return { kind, learningRate: adamRule.defaultLearningRate, hyper, schedule: { kind: 'constant' }, rule: { name: adamRule.label, text: adamRule.text } };
+  }
   for (const h of info.hyperparameters) hyper[h.name] = h.default;
   const spec: OptimizerSpec = { kind, learningRate: info.defaultLearningRate, hyper };
   if (info.usesSchedule) spec.schedule = { kind: 'constant' };
   if (info.defaultWeightDecay > 0) spec.weightDecay = info.defaultWeightDecay;
   return spec;
+}
+
+/** The name a run's optimizer goes by in the page, the table and CSV files: a rule's own name, else the kind's label. */
+export function optimizerLabel(spec: Pick<OptimizerSpec, 'kind' | 'rule'>): string {
+  return spec.kind === 'rule' && spec.rule ? spec.rule.name : optimizerInfo(spec.kind).label;
 }

@@ -77,3 +77,19 @@ describe('built-in optimizers written as rules reproduce them bit for bit over 1
     expect(Array.from(actual.learningRate)).toEqual(Array.from(expected.learningRate));
   });
 });
+
+describe("the optimizer kind 'rule' (OptimizerSpec, buildOptimizer)", () => {
+  it('runs a rule by spec, with clipNorm and l2Penalty applied to g as the built-in chain does', () => {
+    const extras = { clipNorm: 5, l2Penalty: 0.01, schedule: { kind: 'cosine', horizon: STEPS } } as const;
+    const expected = runBuiltin(rosenbrock, { kind: 'adam', learningRate: 0.01, ...extras }, [0.01, -0.02]);
+    const viaSpec = runBuiltin(rosenbrock, { kind: 'rule', learningRate: 0.01, ...extras, rule: { name: 'Adam (rule)', text: adamRule.text } }, [0.01, -0.02]);
+    expect(Array.from(viaSpec.points)).toEqual(Array.from(expected.points));
+  });
+
+  it("labels the optimizer with the rule's name and passes the spec's settings to the rule", () => {
+    const spec: OptimizerSpec = { kind: 'rule', learningRate: 0.01, hyper: { momentum: 0.5 }, rule: { name: 'My heavy ball', text: heavyBallRule.text } };
+    expect(buildOptimizer(spec).label).toBe('My heavy ball');
+    const expected = runBuiltin(rosenbrock, { kind: 'momentum', learningRate: 0.01, hyper: { momentum: 0.5 } }, [0.01, -0.02]);
+    expect(Array.from(runBuiltin(rosenbrock, spec, [0.01, -0.02]).points)).toEqual(Array.from(expected.points));
+  });
+});
