@@ -1,7 +1,7 @@
 import { adamRule } from '../rules/library';
 import { compileRule } from '../rules/compile';
 import { METHODS, methodFor } from './methods';
-import type { HyperValue, OptimizerInfo, OptimizerKind, OptimizerSpec } from './spec';
+import type { HyperparameterInfo, HyperValue, OptimizerInfo, OptimizerKind, OptimizerSpec } from './spec';
 
 /** Metadata of every optimizer kind (labels, defaults, settings with ranges, sources). */
 export const OPTIMIZERS: readonly OptimizerInfo[] = METHODS.map((m) => m.info);
@@ -33,4 +33,13 @@ export function defaultOptimizerSpec(kind: OptimizerKind): OptimizerSpec {
 /** The name a run's optimizer goes by in the page, the table and CSV files: a rule's own name, else the kind's label. */
 export function optimizerLabel(spec: Pick<OptimizerSpec, 'kind' | 'rule'>): string {
   return spec.kind === 'rule' && spec.rule ? spec.rule.name : optimizerInfo(spec.kind).label;
+}
+
+/** The settings a spec's optimizer has: the kind's own, or for a rule the rule's hyper lines ([] if the rule does not compile). */
+export function optimizerSettings(spec: OptimizerSpec): readonly HyperparameterInfo[] {
+  const method = methodFor(spec.kind);
+  if (!method) return [];
+  if (!method.settingsOf) return method.info.hyperparameters;
+  const own = method.settingsOf(spec as unknown as Record<string, unknown>);
+  return 'settings' in own ? own.settings : [];
 }
