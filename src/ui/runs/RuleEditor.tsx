@@ -28,12 +28,13 @@ export function RuleEditor({ run }: { run: RunConfig }) {
     if (found.length > 0) return setWarnings([]);
     const rule = compileRule(text);
     setWarnings(rule.warnings);
-    // Settings the previous rule also had keep their values; new ones start at the rule's defaults.
-    const before = new Set(optimizerSettings(opt).map((h) => h.name));
+    // A setting keeps the value typed in its field while the rule keeps its default; a new setting,
+    // or a default changed in the text (another template, say), starts at the rule's default.
+    const before = new Map(optimizerSettings(opt).map((h) => [h.name, h.default]));
     const hyper: Record<string, HyperValue> = {};
     for (const h of rule.hyperparameters) {
       const old = opt.hyper?.[h.name];
-      hyper[h.name] = typeof old === 'number' && before.has(h.name) ? old : h.default;
+      hyper[h.name] = typeof old === 'number' && before.get(h.name) === h.default ? old : h.default;
     }
     const next: OptimizerSpec = { ...opt, rule: { name: name.trim() || 'My rule', text }, hyper, ...(rate !== null ? { learningRate: rate } : {}) };
     const invalid = validateOptimizerSpec(next);
