@@ -82,4 +82,18 @@ describe('rule runs are first-class runs (real store, real worker handler)', () 
     expect(t.sent.filter((m) => m.type === 'run/start').length).toBe(before);
     expect(t.state().status[id].error?.message).toBe("rule: unknown name 'gg' at line 1, column 14; did you mean 'g'?");
   });
+
+  it("the optimizer x learning-rate table's rule row runs the selected rule run's rule at each rate", () => {
+    const { t, lion } = lionAgainstAdam();
+    t.actions.selectRun(lion);
+    t.actions.setPanels({ tableOptimizers: ['adam', 'rule'], tableLearningRates: [0.001, 0.01] });
+    t.actions.buildTableRuns();
+    t.drain();
+    const ruleCells = t.state().runs.filter((r) => r.cell?.row === 1);
+    expect(ruleCells.map((r) => r.label)).toEqual(['Lion lr=0.001', 'Lion lr=0.01']);
+    for (const r of ruleCells) {
+      expect(r.optimizer.rule).toEqual({ name: 'Lion', text: lionRule.text });
+      expect(t.state().status[r.id].phase).toBe('ended');
+    }
+  });
 });

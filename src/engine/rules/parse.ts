@@ -69,6 +69,12 @@ function parseLine(raw: string, from: number, lines: LineIndex, errors: RuleErro
     else report("expected a statement 'name = expression'", firstCharacter, end, "or 'hyper name = value', 'state name = initial value', 'let name = expression'");
     return undefined;
   }
+  const compound = /^\s*([A-Za-z_][A-Za-z0-9_]*)\s*([-+*/^])$/.exec(code.slice(0, eq));
+  if (compound) {
+    const [, name, op] = compound;
+    report(`'${op}=' is not an operator`, from + eq - 1, from + eq + 1, `write ${name} = ${name} ${op} ...`);
+    return undefined;
+  }
   if (!head) {
     const start = firstCharacter < from + eq ? firstCharacter : from + eq;
     report("expected a name before '='", start, from + eq, "statements read 'name = expression', 'hyper name = value', 'state name = initial value' or 'let name = expression'");

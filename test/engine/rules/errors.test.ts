@@ -21,7 +21,8 @@ const cases: { name: string; text: string; message: string; line: number; column
   { name: 'state without an initial value', text: 'state q\nx = x - g', message: "state 'q' needs an initial value at line 1, column 1; write state q = 0", line: 1, column: 1 },
   { name: 'assigning a hyperparameter', text: 'hyper b = 1\nb = 2\nx = x - lr * g', message: "hyperparameter 'b' cannot be assigned; it is fixed during a run at line 2, column 1", line: 2, column: 1 },
   { name: 'assigning an undeclared state', text: 'state mom = 0\nmon = g\nx = x - lr * mom', message: "unknown state 'mon' at line 2, column 1; did you mean 'mom'?", line: 2, column: 1 },
-  { name: 'a line that is not a statement', text: 'x = x - lr * g\nx += g', message: "expected a name before '=' at line 2, column 1; statements read 'name = expression', 'hyper name = value', 'state name = initial value' or 'let name = expression'", line: 2, column: 1 },
+  { name: 'a line that is not a statement', text: 'x = x - lr * g\n2 * m = g', message: "expected a name before '=' at line 2, column 1; statements read 'name = expression', 'hyper name = value', 'state name = initial value' or 'let name = expression'", line: 2, column: 1 },
+  { name: 'a compound assignment', text: 'state m = 0\nm += g\nx = x - lr * m', message: "'+=' is not an operator at line 2, column 3; write m = m + ...", line: 2, column: 3 },
   { name: 'empty rule', text: '# nothing yet\n', message: 'empty rule at line 1, column 1; a rule needs at least a line x = ...', line: 1, column: 1 },
 ];
 
