@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { compileRule, MAX_RULE_LINES, ruleProblems, RuleSyntaxError, FormulaSyntaxError } from '../../../src/engine';
+import { rosenbrock } from '../optim/surfaces';
+import { runRule } from './run';
 
 /** Bad rules: each a message naming the problem at its line and column (1-based), with the span. */
 const cases: { name: string; text: string; message: string; line: number; column: number }[] = [
@@ -85,3 +87,13 @@ describe('compile-time warnings', () => {
     expect(warnings[0]).toMatchObject({ line: 3, column: 19 }); // the v of (v + eps)
   });
 });
+
+describe('at run time', () => {
+  it('a division by a state still at 0 makes the run loop report divergence at step 1 (the warning foretold it)', () => {
+    const text = 'state v = 0\nx = x - lr * g / v\nv = v + g * g';
+    expect(compileRule(text).warnings).toHaveLength(1);
+    const batch = runRule(rosenbrock, text, { learningRate: 0.01 }, [-1.2, 1], 10);
+    expect(batch.outcome).toMatchObject({ kind: 'diverged', step: 1 });
+  });
+});
+
