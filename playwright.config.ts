@@ -1,6 +1,8 @@
 import { defineConfig } from '@playwright/test';
 
 const executablePath = process.env.CHROMIUM_PATH ?? '/usr/lib/chromium/chromium';
+/** The preview server's port; set FALL_LINE_E2E_PORT when another worktree's tests hold 4173. */
+const port = Number(process.env.FALL_LINE_E2E_PORT ?? 4173);
 
 export default defineConfig({
   testDir: 'e2e',
@@ -10,7 +12,7 @@ export default defineConfig({
   reporter: [['list']],
   outputDir: 'test-results',
   use: {
-    baseURL: 'http://localhost:4173',
+    baseURL: `http://localhost:${port}`,
     browserName: 'chromium',
     viewport: { width: 1400, height: 900 },
     launchOptions: {
@@ -28,8 +30,8 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: 'npx vite build && npx vite preview --port 4173 --strictPort',
-    url: 'http://localhost:4173',
+    command: `npx vite build && npx vite preview --port ${port} --strictPort`,
+    url: `http://localhost:${port}`,
     timeout: 60_000,
     reuseExistingServer: false,
   },

@@ -10,6 +10,7 @@ import { gridVsHandwritten } from './grid';
 import { datafitGridVsHandwritten, datafitSlice } from './datafit';
 import { poolSpeedup } from './pool';
 import { sweepBench } from './sweep';
+import { ruleVsBuiltin } from './rule';
 
 const TARGETS = {
   formula_grad_vs_handwritten: 0.5,
@@ -21,6 +22,7 @@ const TARGETS = {
   sweep_vs_handwritten: 0.8,
   // A cost, not a throughput: lower is better (4 = time grows linearly with the number of starts).
   sweep_cost_growth: 4.4,
+  rule_vs_builtin: 0.9,
 };
 /** Ratios where lower is better (the table's status compares the other way). */
 const LOWER_IS_BETTER = new Set(['sweep_cost_growth']);
@@ -28,6 +30,7 @@ const LOWER_IS_BETTER = new Set(['sweep_cost_growth']);
 const grad = formulaGradRatios();
 const mathjs = formulaVsMathjs();
 const adam = await adamVsTfjs();
+const rule = ruleVsBuiltin();
 const grid = gridVsHandwritten();
 const datafit = datafitGridVsHandwritten();
 const slice = datafitSlice();
@@ -51,6 +54,8 @@ const ratios = {
   sweep_vs_handwritten: sweep.ratio,
   // Sweep time for 16,384 starts over time for 4,096 (same steps).
   sweep_cost_growth: sweep.growth,
+  // Adam written as an update rule / the built-in Adam, steps per second on Rosenbrock through the run loop.
+  rule_vs_builtin: rule.ratio,
 };
 
 const rows = Object.entries(ratios).map(([k, v]) => [k, v, TARGETS[k as keyof typeof TARGETS]] as const);
@@ -61,6 +66,7 @@ console.log('\ndetails');
 for (const g of grad) console.log(`  value+gradient ${g.name.padEnd(14)} compiled ${(g.compiled * 1000).toExponential(3)}/s  hand-written ${(g.handwritten * 1000).toExponential(3)}/s  ratio ${g.ratio.toFixed(3)}`);
 for (const m of mathjs) console.log(`  value ${m.name.padEnd(14)} compiled ${(m.compiled * 1000).toExponential(3)}/s  mathjs ${(m.mathjs * 1000).toExponential(3)}/s  ratio ${m.ratio.toFixed(1)} (hand-written/mathjs ${m.handwrittenRatio.toFixed(1)})`);
 console.log(`  Adam on Rosenbrock: engine ${(adam.engineStepsPerMs * 1000).toExponential(3)} steps/s, hand-written ${(adam.handwrittenStepsPerMs * 1000).toExponential(3)}, tfjs-core cpu ${(adam.tfjsStepsPerMs * 1000).toExponential(3)} (hand-written/tfjs ${adam.handwrittenRatio.toFixed(0)})`);
+console.log(`  Adam as a rule on Rosenbrock: ${(rule.ruleStepsPerMs * 1000).toExponential(3)} steps/s, built-in ${(rule.builtinStepsPerMs * 1000).toExponential(3)} steps/s`);
 console.log(`  256x256 Rosenbrock grid: engine ${grid.engineMs.toFixed(2)} ms, hand-written ${grid.handwrittenMs.toFixed(2)} ms`);
 console.log(`  128x128 data-fit slice (${datafit.surface}, ${datafit.rows} rows): engine ${datafit.engineMs.toFixed(1)} ms, hand-written ${datafit.handwrittenMs.toFixed(1)} ms, hand-written for any p ${datafit.handwrittenGenericMs.toFixed(1)} ms (ratio ${datafit.genericRatio.toFixed(3)})`);
 console.log(`  grid pool on that slice: 1 worker ${pool.oneWorkerMs.toFixed(1)} ms, 2 workers ${pool.twoWorkersMs.toFixed(1)} ms; two 1-worker pools at once ${pool.twoGridsAtOnceMs.toFixed(1)} ms (pool efficiency ${((100 * pool.ratio) / pool.limit).toFixed(0)}% of the machine limit)`);
@@ -68,6 +74,6 @@ console.log(`  sweep, Adam on Himmelblau, 4,096 starts x 500 steps: engine ${swe
 
 writeFileSync(
   new URL('./results.json', import.meta.url),
-  JSON.stringify({ measuredAt: new Date().toISOString(), node: process.version, targets: TARGETS, ratios, details: { grad, mathjs, adam, grid, datafit, pool, sweep } }, null, 2),
+  JSON.stringify({ measuredAt: new Date().toISOString(), node: process.version, targets: TARGETS, ratios, details: { grad, mathjs, adam, rule, grid, datafit, pool, sweep } }, null, 2),
 );
 console.log('\nwrote bench/results.json');

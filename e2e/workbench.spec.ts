@@ -123,7 +123,8 @@ test.describe('the workbench in Chromium', () => {
     const outside: string[] = [];
     page.on('request', (r) => {
       const url = r.url();
-      if (!/^(http:\/\/localhost:4173\/|data:|blob:)/.test(url)) outside.push(url);
+      const origin = `http://localhost:${process.env.FALL_LINE_E2E_PORT ?? 4173}/`; // the preview server (playwright.config.ts)
+      if (!(url.startsWith(origin) || /^(data|blob):/.test(url))) outside.push(url);
     });
     await openFresh(page);
     await waitForRunsToEnd(page, 3);

@@ -11,3 +11,4 @@ export * from './expr';
 export * from './analysis';
 export * from './study';
 export * from './sweep';
+export * from './rules';

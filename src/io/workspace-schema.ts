@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { MAX_RULE_LENGTH } from '../engine';
 import type { Workspace } from '../store/workspace';
 
 /**
@@ -20,13 +21,16 @@ const surfaceSpec = z.discriminatedUnion('kind', [
 const schedule = z.looseObject({ kind: z.string() });
 
 const optimizerSpec = z.object({
-  kind: z.enum(['gd', 'momentum', 'nesterov', 'adagrad', 'rmsprop', 'adam', 'adamw', 'amsgrad', 'nadam', 'lbfgs', 'newton']),
+  kind: z.enum(['gd', 'momentum', 'nesterov', 'adagrad', 'rmsprop', 'adam', 'adamw', 'amsgrad', 'nadam', 'lbfgs', 'newton', 'rule']),
   learningRate: finite,
   hyper: z.record(z.string(), z.union([z.number(), z.boolean(), z.string()])).optional(),
   schedule: schedule.optional(),
   clipNorm: finite.optional(),
   l2Penalty: finite.optional(),
   weightDecay: finite.optional(),
+  // Kind 'rule' only: the update rule's name and text (optional, so version-1 files without it still load;
+  // the text is checked in depth by the rule compiler when the run is validated).
+  rule: z.object({ name: z.string().min(1).max(200), text: z.string().max(MAX_RULE_LENGTH) }).optional(),
 });
 
 const runConfig = z.object({

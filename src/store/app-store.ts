@@ -1,5 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { optimizerInfo, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
+import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
 import type { ViewBox } from '../ui/plot';
@@ -369,12 +369,15 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       for (const r of s.runs) if (r.cell) live.forget(r.id);
       const kept = s.runs.filter((r) => !r.cell);
       const start = suggestedStartOf(s);
+      // The 'rule' row runs the selected run's rule when it is a rule run, else the latest rule run's.
+      const ruleSource = s.runs.find((r) => r.id === s.selectedRunId && r.optimizer.kind === 'rule') ?? [...kept].reverse().find((r) => r.optimizer.kind === 'rule');
       const table: RunConfig[] = [];
       s.panels.tableOptimizers.forEach((kind, row) =>
         s.panels.tableLearningRates.forEach((lr, column) => {
           const run = newRunConfig(kind, [...kept, ...table], start);
-          run.optimizer = { ...run.optimizer, learningRate: lr };
-          run.label = `${optimizerInfo(kind).label} lr=${lr}`;
+          const base = kind === 'rule' && ruleSource ? structuredClone(ruleSource.optimizer) : run.optimizer;
+          run.optimizer = { ...base, learningRate: lr };
+          run.label = `${optimizerLabel(run.optimizer)} lr=${lr}`;
           run.cell = { row, column };
           table.push(run);
         }),

@@ -1,4 +1,4 @@
-import { defaultOptimizerSpec, optimizerInfo, type OptimizerKind } from '../engine';
+import { defaultOptimizerSpec, optimizerLabel, type OptimizerKind } from '../engine';
 import { freshId } from './ids';
 import type { RunConfig } from './workspace';
 
@@ -27,14 +27,15 @@ export function pageDefaultSpec(kind: OptimizerKind) {
 
 /** A new run with the optimizer's defaults, a label not used yet, and its own style. */
 export function newRunConfig(kind: OptimizerKind, existing: readonly RunConfig[], start: number[]): RunConfig {
-  const base = optimizerInfo(kind).label;
+  const optimizer = pageDefaultSpec(kind);
+  const base = optimizerLabel(optimizer);
   const labels = new Set(existing.map((r) => r.label));
   let label = base;
   for (let k = 2; labels.has(label); k++) label = `${base} ${k}`;
   return {
     id: freshId('c'),
     label,
-    optimizer: pageDefaultSpec(kind),
+    optimizer,
     settings: { start: start.slice(), seed: 1, stop: { ...DEFAULT_STOP } },
     style: nextStyle(existing),
   };

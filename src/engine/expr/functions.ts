@@ -1,11 +1,15 @@
 import { UNARY_KERNELS, type UnaryKernelName } from './kernels';
 
-/** A function the formula language knows: its name, how many arguments it takes, what it computes. */
-export interface FunctionInfo {
-  readonly name: string;
+/** How many arguments a function takes. */
+export interface Arity {
   readonly minArgs: number;
   /** `Infinity` for the variadic `min` and `max`. */
   readonly maxArgs: number;
+}
+
+/** A function the formula language knows: its name, how many arguments it takes, what it computes. */
+export interface FunctionInfo extends Arity {
+  readonly name: string;
   /** One line for help texts. */
   readonly summary: string;
   /** The value, used by the tree-walking evaluator and by constant folding. */
@@ -82,7 +86,7 @@ export const FUNCTION_HINTS: ReadonlyMap<string, string> = new Map([
 ]);
 
 /** "1 argument", "2 or more arguments", "1 to 3 arguments". */
-export function describeArity(f: FunctionInfo): string {
+export function describeArity(f: Arity): string {
   if (f.minArgs === f.maxArgs) return `${f.minArgs} argument${f.minArgs === 1 ? '' : 's'}`;
   if (f.maxArgs === Infinity) return `${f.minArgs} or more arguments`;
   return `${f.minArgs} to ${f.maxArgs} arguments`;

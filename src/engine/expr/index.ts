@@ -2,11 +2,11 @@
 export type { BinaryExpr, BinaryOperator, CallExpr, Expr, NameExpr, NumberExpr, Span, UnaryExpr, UnaryOperator } from './ast';
 export { sameTree } from './ast';
 export { FormulaSyntaxError, type FormulaError } from './errors';
-export { parseFormula } from './parser';
+export { parseFormula, type ParseOptions } from './parser';
 export { printFormula, prettyFormula } from './printer';
 export { freeNames } from './names';
 export { evaluateFormula, type Environment } from './evaluate';
-export { FUNCTIONS, BUILTIN_CONSTANTS, type FunctionInfo } from './functions';
+export { FUNCTIONS, BUILTIN_CONSTANTS, type Arity, type FunctionInfo } from './functions';
 export {
   compileFormula,
   compileModel,
@@ -15,3 +15,6 @@ export {
   type FormulaSurface,
   type ModelOptions,
 } from './compile';
+export { KERNEL_TABLE, isKernelName } from './kernels';
+export { formatNumber } from './codegen';
+export { nearestName } from './suggest';

@@ -1,6 +1,6 @@
 import type { BinaryOperator, Expr, Span } from './ast';
 import { errorAt, type FormulaError } from './errors';
-import { FUNCTIONS, FUNCTION_HINTS, describeArity } from './functions';
+import { FUNCTIONS, FUNCTION_HINTS, describeArity, type Arity } from './functions';
 import { tokenize, type Token } from './lexer';
 import { nearestName } from './suggest';
 
@@ -70,7 +70,10 @@ class Parser {
   private readonly groups: ('paren' | 'call')[] = [];
   readonly errors: FormulaError[] = [];
 
-  constructor(private readonly tokens: Token[]) {}
+  constructor(
+    private readonly tokens: Token[],
+    private readonly functions: ReadonlyMap<string, Arity>,
+  ) {}
 
   parseFormula(): Expr {
     const parsed = this.expression(0);
@@ -200,7 +203,7 @@ class Parser {
   /** A name not followed by '(': a variable or constant, or a function used without its parentheses. */
   private bareName(token: Token): Parsed {
     const node: Expr = { kind: 'name', name: token.text, span: spanOf(token) };
-    if (!FUNCTIONS.has(token.text)) return leaf(node);
+    if (!this.functions.has(token.text)) return leaf(node);
     this.report(`function '${token.text}' needs its arguments in parentheses`, token, `write ${token.text}(...)`);
     const next = this.peek();
     if (next.kind === 'number' || next.kind === 'name') {
@@ -265,10 +268,10 @@ class Parser {
 
   private checkCall(nameToken: Token, count: number, span: Span): void {
     const name = nameToken.text;
-    const info = FUNCTIONS.get(name);
+    const info = this.functions.get(name);
     if (!info) {
       const hint = FUNCTION_HINTS.get(name);
-      const nearest = nearestName(name, FUNCTIONS.keys());
+      const nearest = nearestName(name, this.functions.keys());
       const note = hint ? `write ${hint}` : nearest ? `did you mean '${nearest}'?` : undefined;
       this.report(`unknown function '${name}'`, nameToken, note);
       return;
@@ -318,11 +321,17 @@ function placeholder(start: number, end: number): Expr {
   return { kind: 'number', value: 0, span: { start, end } };
 }
 
+/** Options of `parseFormula` for languages built on the formula language (the update rules). */
+export interface ParseOptions {
+  /** The functions calls may name, with their argument counts. Default: the formula language's FUNCTIONS. */
+  functions?: ReadonlyMap<string, Arity>;
+}
+
 /**
  * Parses formula text. On success the tree's spans index into `text`; on failure every problem found
  * is listed in text order, each with its span and a message naming the 1-based column.
  */
-export function parseFormula(text: string): { ok: true; ast: Expr } | { ok: false; errors: FormulaError[] } {
+export function parseFormula(text: string, options: ParseOptions = {}): { ok: true; ast: Expr } | { ok: false; errors: FormulaError[] } {
   if (text.length > MAX_FORMULA_LENGTH) {
     return {
       ok: false,
@@ -330,7 +339,7 @@ export function parseFormula(text: string): { ok: true; ast: Expr } | { ok: fals
     };
   }
   const { tokens, errors: lexErrors } = tokenize(text);
-  const parser = new Parser(tokens);
+  const parser = new Parser(tokens, options.functions ?? FUNCTIONS);
   let ast: Expr | undefined;
   try {
     ast = parser.parseFormula();

@@ -1,8 +1,8 @@
 // The optimizers' one public door.
 export { SettingError, type Optimizer, type Oracle, type StepContext, type StepReport } from './types';
-export type { OptimizerKind, OptimizerSpec, HyperparameterInfo, HyperValue, OptimizerInfo, ResolvedSpec } from './spec';
+export type { OptimizerKind, OptimizerSpec, HyperparameterInfo, HyperValue, OptimizerInfo, ResolvedSpec, RuleSpec } from './spec';
 export { learningRateAt, SCHEDULES, scheduleInfo, type ScheduleSpec, type ScheduleKind, type ScheduleInfo } from './schedule';
-export { OPTIMIZERS, optimizerInfo, defaultOptimizerSpec } from './catalogue';
+export { OPTIMIZERS, optimizerInfo, defaultOptimizerSpec, optimizerLabel, optimizerSettings } from './catalogue';
 export { validateOptimizerSpec, resolveSpec } from './validate';
 export { buildOptimizer } from './build';
 export { chain, applyTransforms, initTransforms, isChainOptimizer, learningRateStage, type ChainOptimizer, type GradientTransform, type ChainState } from './transform';

@@ -15,7 +15,18 @@ export type OptimizerKind =
   | 'amsgrad'
   | 'nadam'
   | 'lbfgs'
-  | 'newton';
+  | 'newton'
+  | 'rule';
+
+/**
+ * An optimizer written in the update-rule language (src/engine/rules): its name (shown in the page,
+ * the table and CSV files) and its text. Its settings are the rule's `hyper` lines; their values go in
+ * the spec's `hyper` like any other kind's.
+ */
+export interface RuleSpec {
+  name: string;
+  text: string;
+}
 
 export type HyperValue = number | boolean | string;
 
@@ -45,6 +56,8 @@ export interface OptimizerSpec {
    * and Optax convention). First-order kinds only; default 0, except AdamW's own default 0.01.
    */
   weightDecay?: number;
+  /** Kind 'rule' only (and required there): the rule to run. */
+  rule?: RuleSpec;
 }
 
 /** One kind-specific setting, described for validation and for the settings panel. */
@@ -89,4 +102,5 @@ export interface ResolvedSpec {
   clipNorm: number | undefined;
   l2Penalty: number;
   weightDecay: number;
+  rule?: RuleSpec;
 }

@@ -4,7 +4,7 @@ import { scheduleProblems } from './schedule';
 import type { OptimizerSpec, ResolvedSpec } from './spec';
 import { SettingError } from './types';
 
-const TOP_LEVEL = ['kind', 'learningRate', 'hyper', 'schedule', 'clipNorm', 'l2Penalty', 'weightDecay'];
+const TOP_LEVEL = ['kind', 'learningRate', 'hyper', 'schedule', 'clipNorm', 'l2Penalty', 'weightDecay', 'rule'];
 
 /**
  * Every problem with a spec, each a SettingError naming its field ('learningRate', 'hyper.beta1',
@@ -21,7 +21,16 @@ export function validateOptimizerSpec(spec: OptimizerSpec): SettingError[] {
   const errors: SettingError[] = [];
   const fail = (field: string, message: string) => errors.push(new SettingError(field, `${info.kind}: ${message}`));
 
-  for (const key of Object.keys(raw)) if (!TOP_LEVEL.includes(key)) fail(key, `unknown field '${key}'`);
+  for (const key of Object.keys(raw)) if (!TOP_LEVEL.includes(key) || (key === 'rule' && !method.settingsOf)) fail(key, `unknown field '${key}'`);
+  let settings = info.hyperparameters;
+  if (method.settingsOf) {
+    const own = method.settingsOf(raw);
+    if ('message' in own) {
+      fail(own.field, own.message);
+      return errors;
+    }
+    settings = own.settings;
+  }
 
   const positive = { min: 0, minExclusive: true };
   const nonNegative = { min: 0 };
@@ -50,9 +59,9 @@ export function validateOptimizerSpec(spec: OptimizerSpec): SettingError[] {
   if (hyper !== undefined && !isPlainObject(hyper)) fail('hyper', `hyper must be an object of named settings, got ${show(hyper)}`);
   else if (hyper) {
     for (const [name, value] of Object.entries(hyper)) {
-      const h = info.hyperparameters.find((p) => p.name === name);
+      const h = settings.find((p) => p.name === name);
       if (!h) {
-        const known = info.hyperparameters.map((p) => p.name);
+        const known = settings.map((p) => p.name);
         fail(`hyper.${name}`, `unknown setting '${name}'${known.length ? ` (known: ${known.join(', ')})` : ' (this method has no settings of its own)'}`);
         continue;
       }
@@ -71,7 +80,9 @@ export function resolveSpec(spec: OptimizerSpec): ResolvedSpec {
   const method = methodFor(spec.kind);
   if (!method) throw new SettingError('kind', `optimizer: unknown kind ${show(spec.kind)}`);
   const hyper: ResolvedSpec['hyper'] = {};
-  for (const h of method.info.hyperparameters) hyper[h.name] = spec.hyper?.[h.name] ?? h.default;
+  const own = method.settingsOf?.(spec as unknown as Record<string, unknown>);
+  const settings = own && 'settings' in own ? own.settings : method.info.hyperparameters;
+  for (const h of settings) hyper[h.name] = spec.hyper?.[h.name] ?? h.default;
   return {
     kind: spec.kind,
     learningRate: spec.learningRate,
@@ -80,5 +91,6 @@ export function resolveSpec(spec: OptimizerSpec): ResolvedSpec {
     clipNorm: spec.clipNorm,
     l2Penalty: spec.l2Penalty ?? 0,
     weightDecay: spec.weightDecay ?? method.info.defaultWeightDecay,
+    ...(spec.rule ? { rule: { name: spec.rule.name, text: spec.rule.text } } : {}),
   };
 }

@@ -1,4 +1,4 @@
-import { optimizerInfo } from '../../engine';
+import { optimizerLabel } from '../../engine';
 import { runTableCsv, trajectoryCsv, type RunSummaryRow, type TrajectoryExportRun } from '../../io/csv';
 import type { AppState } from '../../store/app-store';
 import type { LiveRuns } from '../../store/live-runs';
@@ -15,7 +15,7 @@ export function trajectoriesCsv(s: AppState, live: LiveRuns): string {
   for (const r of s.runs) {
     const b = live.trajectory(r.id);
     if (!b) continue;
-    runs.push({ id: r.id, label: r.label, optimizer: optimizerInfo(r.optimizer.kind).label, learningRate: r.optimizer.learningRate, variables: s.surfaceInfo.variables, batch: b.asBatch() });
+    runs.push({ id: r.id, label: r.label, optimizer: optimizerLabel(r.optimizer), learningRate: r.optimizer.learningRate, variables: s.surfaceInfo.variables, batch: b.asBatch() });
   }
   return trajectoryCsv(runs);
 }
@@ -29,7 +29,7 @@ export function resultsCsv(s: AppState): string {
     return {
       id: r.id,
       label: r.label,
-      optimizer: optimizerInfo(r.optimizer.kind).label,
+      optimizer: optimizerLabel(r.optimizer),
       learningRate: r.optimizer.learningRate,
       outcome: sum?.outcome ?? null,
       steps: sum?.steps ?? 0,

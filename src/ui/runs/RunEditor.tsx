@@ -5,6 +5,8 @@ import {
   SCHEDULES,
   SettingError,
   optimizerInfo,
+  optimizerLabel,
+  optimizerSettings,
   validateOptimizerSpec,
   validateRunSettings,
   isRowwiseSurface,
@@ -18,6 +20,7 @@ import {
 import type { RunConfig } from '../../store/workspace';
 import { useActions, useApp } from '../app-context';
 import { NumberField } from '../fields/NumberField';
+import { RuleEditor } from './RuleEditor';
 import { useMainThreadSurface } from '../view/use-surface';
 
 /** Every setting of the selected run. Edits apply (and restart the run) only when they validate. */
@@ -53,6 +56,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
   }
 
   const opt = run.optimizer;
+  const settings = optimizerSettings(opt);
   const hyper = (h: HyperparameterInfo) => opt.hyper?.[h.name] ?? h.default;
   const schedule: ScheduleSpec = opt.schedule ?? { kind: 'constant' };
   const scheduleInfo = SCHEDULES.find((s) => s.kind === schedule.kind)!;
@@ -71,7 +75,8 @@ export function RunEditor({ run }: { run: RunConfig }) {
           value={opt.kind}
           onChange={(e) => {
             const kind = e.target.value as OptimizerKind;
-            actions.updateRun(run.id, { optimizer: pageDefaultSpec(kind), label: run.label === info.label ? optimizerInfo(kind).label : run.label });
+            const next = pageDefaultSpec(kind);
+            actions.updateRun(run.id, { optimizer: next, label: run.label === optimizerLabel(opt) ? optimizerLabel(next) : run.label });
           }}
         >
           {OPTIMIZERS.map((o) => (
@@ -82,6 +87,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
         </select>
         <p className="field-help">{info.summary}</p>
       </div>
+      {opt.kind === 'rule' && <RuleEditor key={run.id} run={run} />}
       {runError && (
         <div className="field-error" role="alert">
           {runError.message}
@@ -124,10 +130,10 @@ export function RunEditor({ run }: { run: RunConfig }) {
           </>
         )}
       </fieldset>
-      {info.hyperparameters.length > 0 && (
+      {settings.length > 0 && (
         <fieldset>
-          <legend>{info.label} settings</legend>
-          {info.hyperparameters.map((h) => (
+          <legend>{optimizerLabel(opt)} settings</legend>
+          {settings.map((h) => (
             <HyperField key={h.name} info={h} value={hyper(h)} onChange={(v) => tryOptimizer({ ...opt, hyper: { ...opt.hyper, [h.name]: v } }, `hyper.${h.name}`)} />
           ))}
         </fieldset>
@@ -136,7 +142,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
         <legend>Regularisation</legend>
         {info.usesSchedule && <NumberField compact optional label="clip gradient norm at" value={opt.clipNorm} onCommit={(v) => tryOptimizer(omitUndefined({ ...opt, clipNorm: v }), 'clipNorm')} />}
         <NumberField compact optional label="L2 penalty (coupled)" value={opt.l2Penalty} onCommit={(v) => tryOptimizer(omitUndefined({ ...opt, l2Penalty: v }), 'l2Penalty')} />
-        {info.usesSchedule && (
+        {info.usesSchedule && opt.kind !== 'rule' && (
           <NumberField compact optional label="weight decay (decoupled)" value={opt.weightDecay ?? info.defaultWeightDecay} onCommit={(v) => tryOptimizer(omitUndefined({ ...opt, weightDecay: v }), 'weightDecay')} />
         )}
       </fieldset>

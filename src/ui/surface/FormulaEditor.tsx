@@ -2,6 +2,7 @@ import { useId, useState } from 'react';
 import { FormulaSyntaxError, type FormulaError } from '../../engine';
 import { buildSurface, type FormulaSpec } from '../../problems';
 import { useActions } from '../app-context';
+import { CaretProblem } from '../fields/CaretProblem';
 import { parseConstants, formatConstants } from './constants-text';
 
 interface Problem {
@@ -97,19 +98,5 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
 /** The message, then the formula with a row of carets under the offending columns. */
 function FormulaProblem({ text, problem }: { text: string; problem: Problem }) {
   const span = problem.span;
-  const start = span ? Math.min(span.start, text.length) : 0;
-  const width = span ? Math.max(1, Math.min(span.end, text.length + 1) - start) : 0;
-  return (
-    <div className="field-error formula-problem" role="alert">
-      <div className="formula-problem-message">{problem.message}</div>
-      {span && (
-        <pre className="mono formula-caret" aria-hidden="true">
-          {text}
-          {'\n'}
-          {' '.repeat(start)}
-          {'^'.repeat(width)}
-        </pre>
-      )}
-    </div>
-  );
+  return <CaretProblem message={problem.message} line={span ? text : undefined} start={span?.start} end={span?.end} />;
 }

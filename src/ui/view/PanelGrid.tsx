@@ -1,4 +1,4 @@
-import { optimizerInfo } from '../../engine';
+import { optimizerInfo, optimizerLabel } from '../../engine';
 import { useApp } from '../app-context';
 import { SurfaceView } from './SurfaceView';
 
@@ -21,9 +21,10 @@ export function PanelGrid() {
             learning rate {lr}
           </div>
         ))}
-        {panels.tableOptimizers.map((kind, row) => (
-          <TableRow key={`${kind}-${row}`} label={optimizerInfo(kind).label} runs={cells.filter((r) => r.cell!.row === row).sort((a, b) => a.cell!.column - b.cell!.column)} />
-        ))}
+        {panels.tableOptimizers.map((kind, row) => {
+          const rowRuns = cells.filter((r) => r.cell!.row === row).sort((a, b) => a.cell!.column - b.cell!.column);
+          return <TableRow key={`${kind}-${row}`} label={rowRuns[0] ? optimizerLabel(rowRuns[0].optimizer) : optimizerInfo(kind).label} runs={rowRuns} />;
+        })}
       </div>
     );
   }

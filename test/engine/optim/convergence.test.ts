@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { OptimizerSpec } from '../../../src/engine';
+import { adamRule, type OptimizerSpec } from '../../../src/engine';
 import { distance, lastPoint, runSpec } from './run';
 import { quadratic, rosenbrock, rotatedDiagonal } from './surfaces';
 
@@ -92,6 +92,12 @@ const table: { name: string; quadratic: Case; rosenbrock: Case }[] = [
     name: 'newton (saddle-free)',
     quadratic: { spec: { kind: 'newton', learningRate: 1, hyper: { variant: 'saddle-free' } }, maxSteps: 1, tolerance: 1e-12 },
     rosenbrock: { spec: { kind: 'newton', learningRate: 1, hyper: { variant: 'saddle-free', lineSearch: 'backtracking' } }, maxSteps: 100, tolerance: 1e-8 },
+  },
+  {
+    // Adam written as a rule (the kind's default rule), at Adam's rates.
+    name: 'rule',
+    quadratic: withCosine({ kind: 'rule', learningRate: 0.05, rule: { name: 'Adam (rule)', text: adamRule.text } }, 3000, 1e-4),
+    rosenbrock: withCosine({ kind: 'rule', learningRate: 0.02, rule: { name: 'Adam (rule)', text: adamRule.text } }, 10000, 1e-3),
   },
 ];
 

@@ -39,6 +39,7 @@ const invalid: Record<OptimizerKind, Bad[]> = {
     [{ schedule: { kind: 'cosine', horizon: 100, warmupSteps: -1 } }, 'schedule.warmupSteps', 'gd: cosine schedule warmupSteps must be a whole number >= 0, got -1'],
     [{ schedule: { kind: 'constant', gamma: 0.5 } }, 'schedule.gamma', "gd: unknown setting 'gamma' for the constant schedule"],
     [{ schedule: 'cosine' }, 'schedule', "gd: schedule must be an object, got 'cosine'"],
+    [{ rule: { name: 'Mine', text: 'x = x - lr * g' } }, 'rule', "gd: unknown field 'rule'"],
   ],
   momentum: [
     [{ hyper: { momentum: 1 } }, 'hyper.momentum', 'momentum: momentum must be in [0, 1), got 1'],
@@ -102,6 +103,17 @@ const invalid: Record<OptimizerKind, Bad[]> = {
     [{ hyper: { maxBacktracks: 0 } }, 'hyper.maxBacktracks', 'newton: maxBacktracks must be a whole number in [1, 1000], got 0'],
     [{ schedule: { kind: 'cosine', horizon: 10 } }, 'schedule', "newton: schedule does not apply to Newton's method, which chooses its own step lengths"],
   ],
+  rule: [
+    [{ rule: undefined }, 'rule', 'rule: a rule optimizer needs its rule: { name, text }'],
+    [{ rule: 'x = x - lr * g' }, 'rule', "rule: rule must be an object { name, text }, got 'x = x - lr * g'"],
+    [{ rule: { name: '', text: 'x = x - lr * g' } }, 'rule.name', "rule: rule.name must be a non-empty string, got ''"],
+    [{ rule: { name: 'Mine', text: 'x = x - lr * g', extra: 1 } }, 'rule.extra', "rule: unknown field 'rule.extra'"],
+    [{ rule: { name: 'Mine', text: 'x = x - lr * q' } }, 'rule.text', "rule: unknown name 'q' at line 1, column 14; did you mean 'g'?"],
+    [{ hyper: { beta3: 0.5 } }, 'hyper.beta3', "rule: unknown setting 'beta3' (known: beta1, beta2, eps)"],
+    [{ hyper: { beta1: Infinity } }, 'hyper.beta1', 'rule: beta1 must be a finite number, got Infinity'],
+    [{ hyper: { eps: '1e-8' } }, 'hyper.eps', "rule: eps must be a number, got '1e-8'"],
+    [{ weightDecay: 0.1 }, 'weightDecay', 'rule: weightDecay does not apply to a rule; write the decay into the rule (as Lion does)'],
+  ],
 };
 
 describe('validateOptimizerSpec', () => {
@@ -136,7 +148,7 @@ describe('validateOptimizerSpec', () => {
 
   it('rejects an unknown kind and a non-object', () => {
     expect(validateOptimizerSpec({ kind: 'sgd', learningRate: 0.1 } as unknown as OptimizerSpec).map((e) => e.message)).toEqual([
-      "optimizer: unknown kind 'sgd' (expected one of gd, momentum, nesterov, adagrad, rmsprop, adam, adamw, amsgrad, nadam, lbfgs, newton)",
+      "optimizer: unknown kind 'sgd' (expected one of gd, momentum, nesterov, adagrad, rmsprop, adam, adamw, amsgrad, nadam, lbfgs, newton, rule)",
     ]);
     expect(validateOptimizerSpec(null as unknown as OptimizerSpec)[0].field).toBe('kind');
   });
@@ -144,7 +156,7 @@ describe('validateOptimizerSpec', () => {
 
 describe('optimizer metadata', () => {
   it('lists each kind once with defaults that pass their own ranges', () => {
-    expect(new Set(OPTIMIZERS.map((o) => o.kind)).size).toBe(11);
+    expect(new Set(OPTIMIZERS.map((o) => o.kind)).size).toBe(12);
     for (const o of OPTIMIZERS) {
       expect(optimizerInfo(o.kind)).toBe(o);
       expect(o.source.length).toBeGreaterThan(10);

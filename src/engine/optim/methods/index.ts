@@ -11,9 +11,10 @@ import { nadam } from './nadam';
 import { nesterov } from './nesterov';
 import { newton } from './newton';
 import { rmsprop } from './rmsprop';
+import { rule } from './rule';
 
 /** Every optimizer kind, in the order the settings panel lists them. */
-export const METHODS: readonly MethodDefinition[] = [gd, momentum, nesterov, adagrad, rmsprop, adam, adamw, amsgrad, nadam, lbfgs, newton];
+export const METHODS: readonly MethodDefinition[] = [gd, momentum, nesterov, adagrad, rmsprop, adam, adamw, amsgrad, nadam, lbfgs, newton, rule];
 
 export function methodFor(kind: OptimizerKind): MethodDefinition | undefined {
   return METHODS.find((m) => m.info.kind === kind);

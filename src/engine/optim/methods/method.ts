@@ -1,4 +1,4 @@
-import type { OptimizerInfo, ResolvedSpec } from '../spec';
+import type { HyperparameterInfo, OptimizerInfo, ResolvedSpec } from '../spec';
 import type { Optimizer } from '../types';
 
 /**
@@ -13,6 +13,11 @@ export interface MethodDefinition {
    * pairs (message without the kind prefix). Called only when every setting is individually valid.
    */
   crossChecks?(spec: ResolvedSpec): [string, string][];
+  /**
+   * For kinds whose settings depend on the spec itself (a rule declares its own): the settings of
+   * this spec, or the [field, message] that makes it unusable. Replaces `info.hyperparameters`.
+   */
+  settingsOf?(spec: Record<string, unknown>): { settings: HyperparameterInfo[] } | { field: string; message: string };
 }
 
 export const num = (spec: ResolvedSpec, name: string): number => spec.hyper[name] as number;
