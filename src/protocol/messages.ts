@@ -44,6 +44,18 @@ export type ToWorker =
   | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StudySpec }
   | { type: 'study/cancel'; requestId: string };
 
+/**
+ * Learning-rate sweeps, per optimizer: the largest Hessian eigenvalue at the start, the predicted
+ * divergence threshold (null where the method has none), and the observed one as a bracket
+ * [lo stable, hi unstable] (refined by bisection when `refined`), null when no rate diverged or the
+ * smallest already did.
+ */
+export interface StudyThreshold {
+  lambdaMax: number;
+  predicted: number | null;
+  observed: { lo: number; hi: number; refined: boolean } | null;
+}
+
 /** Finished cells of a study, in the order they finished (cell indices as in StartMapSpec). */
 export interface StudyCells {
   indices: Int32Array;
@@ -83,7 +95,7 @@ export type FromWorker =
   | { type: 'profile/error'; requestId: string; message: string }
   | { type: 'study/cells'; requestId: string; cells: StudyCells; done: number; total: number; elapsedMs: number }
   /** `bands`: for multi-start studies, the 25%, 50% and 75% quantiles of the loss across runs per step. */
-  | { type: 'study/done'; requestId: string; elapsedMs: number; bands?: Float64Array[] }
+  | { type: 'study/done'; requestId: string; elapsedMs: number; bands?: Float64Array[]; thresholds?: StudyThreshold[] }
   | { type: 'study/error'; requestId: string; message: string };
 
 /**

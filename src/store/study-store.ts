@@ -1,7 +1,7 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { BasinTracker, OUTCOME_KINDS, type KnownPoint, type OutcomeKind, type RunOutcome, type StudySpec } from '../engine';
 import type { SurfaceSpec } from '../problems';
-import type { FromWorker, StudyCells } from '../protocol';
+import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
 
@@ -35,6 +35,8 @@ export interface StudyState {
   known: KnownPoint[];
   /** Multi-start studies: the 25%, 50% and 75% quantiles of the loss across runs, per step. */
   bands: Float64Array[] | null;
+  /** Learning-rate sweeps: per optimizer, the observed and predicted divergence thresholds. */
+  thresholds: StudyThreshold[] | null;
   /** Bumped whenever cells arrive, so views redraw. */
   version: number;
 }
@@ -69,7 +71,7 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
   let lastUpdate = -Infinity;
   const store = createStore<StudyState>(() => ({
     status: 'idle', message: null, requestId: null, spec: null, surface: null, variables: [], configLabel: '',
-    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], bands: null, version: 0,
+    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], bands: null, thresholds: null, version: 0,
   }));
   let tracker: BasinTracker | null = null;
 
@@ -106,7 +108,7 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
         return;
       }
       case 'study/done':
-        store.setState((s) => ({ status: 'done', elapsedMs: msg.elapsedMs, done: s.total, bands: msg.bands ?? null, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
+        store.setState((s) => ({ status: 'done', elapsedMs: msg.elapsedMs, done: s.total, bands: msg.bands ?? null, thresholds: msg.thresholds ?? null, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
         return;
       case 'study/error':
         store.setState({ status: 'error', message: msg.message });
@@ -119,12 +121,12 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
     start({ surface, variables, spec, configLabel, known, basinRadius }) {
       const previous = store.getState().requestId;
       if (previous) link.send({ type: 'study/cancel', requestId: previous });
-      const count = spec.kind === 'start-map' ? spec.resolution * spec.resolution : spec.count;
+      const count = spec.kind === 'start-map' ? spec.resolution * spec.resolution : spec.kind === 'lr-sweep' ? spec.count * spec.optimizers.length : spec.count;
       const n = variables.length;
       tracker = new BasinTracker(known, basinRadius);
       const requestId = freshId('study');
       store.setState({
-        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels], known, bands: null,
+        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels], known, bands: null, thresholds: null,
         cells: {
           filled: new Uint8Array(count), kind: new Uint8Array(count), basin: new Int32Array(count).fill(-1), steps: new Int32Array(count),
           loss: new Float64Array(count), endPoints: new Float64Array(count * n), outcomes: new Array(count),

@@ -1,36 +1,43 @@
 import {
-  buildOptimizer, cellStart, coarseToFineOrder, drawStarts, hasParameterGroups, lossBands, RunCursor, validateMultiStart, validateStartMap,
-  type Optimizer, type RunOutcome, type RunSettings, type StudySpec, type Surface,
+  buildOptimizer, cellStart, coarseToFineOrder, drawStarts, hasParameterGroups, logSpaced, lossBands, predictedStabilityLimit, refineDivergenceThreshold,
+  RunCursor, sharpnessAlong, Sweep, validateLearningRateSweep, validateMultiStart, validateStartMap,
+  type LearningRateSweepSpec, type MultiStartSpec, type OptimizerSpec, type RunOutcome, type StartMapSpec, type StopRules, type StudySpec, type Surface,
 } from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
-import type { FromWorker, StudyCells } from '../protocol';
+import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
 import { errorText } from './runs';
 import { SLICE_MS, type Timing } from './scheduler';
 
-interface StudyJob {
-  requestId: string;
-  surface: Surface;
-  optimizer: Optimizer;
-  /** The cells in the order they are run. */
-  order: Int32Array;
-  settingsOf: (index: number) => RunSettings;
-  /** Loss curves of every run (multi-start studies), for the quantile bands. */
-  curves: Float64Array[] | null;
-  next: number;
-  current: { index: number; cursor: RunCursor; loss: number[] | null } | null;
-  startedAt: number;
-  pending: { index: number; outcome: RunOutcome; steps: number; loss: number; end: Float64Array }[];
+interface CellResult {
+  index: number;
+  outcome: RunOutcome;
+  steps: number;
+  loss: number;
+  end: Float64Array;
 }
 
-/** Steps per advance call inside a cell, so a long run still yields between slices. */
-const CHUNK = 2000;
+/** A study's work, taken in time slices: each call runs until `deadline` and returns the cells that ended. */
+interface StudyWork {
+  readonly total: number;
+  readonly finished: boolean;
+  run(deadline: number, now: () => number): CellResult[];
+  /** What goes out with the last message (bands, thresholds). */
+  finish(): Pick<Extract<FromWorker, { type: 'study/done' }>, 'bands' | 'thresholds'>;
+}
+
+interface StudyJob {
+  requestId: string;
+  work: StudyWork;
+  done: number;
+  startedAt: number;
+}
 
 /**
- * Runs a study: one ordinary RunCursor per cell (a start of a start-point map or of a multi-start
- * study), so every cell's end point and outcome are exactly those of the same run done alone; cells
- * of a map in coarse-to-fine order; in time slices, posting the cells finished in each slice with
- * the progress. One study at a time: a new one supersedes the one in progress; cancel drops it
- * between slices.
+ * Runs studies in the worker, one at a time (a new one supersedes the one in progress; cancel drops it
+ * between slices). Start-point maps and learning-rate sweeps run on the lockstep sweep engine
+ * (engine/sweep, each run bit-identical to the same RunCursor run); a map runs in waves, the coarse
+ * grid of its coarse-to-fine order first, so a full blocky picture shows early. Multi-start studies
+ * run one RunCursor per start, which also records each run's loss curve for the quantile bands.
  */
 export class StudyRunner {
   private job: StudyJob | null = null;
@@ -44,8 +51,8 @@ export class StudyRunner {
     try {
       const surface = buildSurface(surfaceSpec);
       const started = !this.job;
-      this.job = { requestId, surface, optimizer: buildOptimizer(spec.optimizer), ...plan(spec, surface), next: 0, current: null, startedAt: this.timing.now(), pending: [] };
-      if (started) this.timing.later(() => this.work(), 0);
+      this.job = { requestId, work: planWork(spec, surface), done: 0, startedAt: this.timing.now() };
+      if (started) this.timing.later(() => this.slice(), 0);
     } catch (e) {
       this.job = null;
       this.post({ type: 'study/error', requestId, message: errorText(e) });
@@ -56,72 +63,234 @@ export class StudyRunner {
     if (this.job?.requestId === requestId) this.job = null;
   }
 
-  private work(): void {
+  private slice(): void {
     const job = this.job;
     if (!job) return;
-    const deadline = this.timing.now() + SLICE_MS;
+    const now = () => this.timing.now();
+    let cells: CellResult[];
     try {
-      while (this.timing.now() < deadline && (job.current || job.next < job.order.length)) {
-        if (!job.current) {
-          const index = job.order[job.next++];
-          job.current = { index, cursor: new RunCursor(job.surface, job.optimizer, job.settingsOf(index)), loss: job.curves ? [] : null };
-        }
-        const { index, cursor, loss } = job.current;
-        if (!cursor.outcome) {
-          const batch = cursor.advance(CHUNK);
-          if (loss) for (let k = 0; k < batch.count; k++) loss.push(batch.loss[k]);
-        }
-        if (cursor.outcome) {
-          if (job.curves && loss) job.curves[index] = Float64Array.from(loss);
-          job.pending.push({ index, outcome: cursor.outcome, steps: cursor.state.t, loss: cursor.state.loss, end: Float64Array.from(cursor.state.x) });
-          job.current = null;
-        }
-      }
+      cells = job.work.run(now() + SLICE_MS, now);
     } catch (e) {
       this.job = null;
       this.post({ type: 'study/error', requestId: job.requestId, message: errorText(e) });
       return;
     }
-    this.flush(job);
-    if (this.job !== job) return this.job ? this.timing.later(() => this.work(), 0) : undefined;
-    if (job.next >= job.order.length && !job.current) {
-      const bands = job.curves ? lossBands(job.curves, [0.25, 0.5, 0.75]).bands : undefined;
-      this.post({ type: 'study/done', requestId: job.requestId, elapsedMs: this.timing.now() - job.startedAt, bands });
+    job.done += cells.length;
+    this.post({ type: 'study/cells', requestId: job.requestId, cells: pack(cells), done: job.done, total: job.work.total, elapsedMs: now() - job.startedAt });
+    if (this.job !== job) return this.job ? this.timing.later(() => this.slice(), 0) : undefined;
+    if (job.work.finished) {
+      let extra: ReturnType<StudyWork['finish']>;
+      try {
+        extra = job.work.finish();
+      } catch (e) {
+        this.job = null;
+        this.post({ type: 'study/error', requestId: job.requestId, message: errorText(e) });
+        return;
+      }
+      this.post({ type: 'study/done', requestId: job.requestId, elapsedMs: now() - job.startedAt, ...extra });
       this.job = null;
       return;
     }
-    this.timing.later(() => this.work(), 0);
-  }
-
-  private flush(job: StudyJob): void {
-    const n = job.surface.dimension;
-    const cells: StudyCells = {
-      indices: Int32Array.from(job.pending, (c) => c.index),
-      steps: Int32Array.from(job.pending, (c) => c.steps),
-      loss: Float64Array.from(job.pending, (c) => c.loss),
-      endPoints: new Float64Array(job.pending.length * n),
-      outcomes: job.pending.map((c) => c.outcome),
-    };
-    job.pending.forEach((c, k) => cells.endPoints.set(c.end, k * n));
-    job.pending = [];
-    const done = job.next - (job.current ? 1 : 0);
-    this.post({ type: 'study/cells', requestId: job.requestId, cells, done, total: job.order.length, elapsedMs: this.timing.now() - job.startedAt });
+    this.timing.later(() => this.slice(), 0);
   }
 }
 
-/** The cells of a study: their order, each cell's run settings, whether loss curves are kept. */
-function plan(spec: StudySpec, surface: Surface): Pick<StudyJob, 'order' | 'settingsOf' | 'curves'> {
-  const n = surface.dimension;
-  if (spec.kind === 'start-map') {
-    validateStartMap(spec, n);
-    const start = new Float64Array(n);
-    return { order: coarseToFineOrder(spec.resolution, spec.resolution), settingsOf: (index) => ({ start: Array.from(cellStart(spec, index, start)), seed: spec.seed, stop: spec.stop }), curves: null };
-  }
-  validateMultiStart(spec);
-  const starts = drawStarts(spec.distribution, n, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined);
+function pack(cells: CellResult[]): StudyCells {
+  const n = cells.length ? cells[0].end.length : 0;
+  const endPoints = new Float64Array(cells.length * n);
+  cells.forEach((c, k) => endPoints.set(c.end, k * n));
   return {
-    order: Int32Array.from({ length: spec.count }, (_, k) => k),
-    settingsOf: (index) => ({ start: Array.from(starts.subarray(index * n, (index + 1) * n)), seed: spec.seed, stop: spec.stop }),
-    curves: new Array(spec.count),
+    indices: Int32Array.from(cells, (c) => c.index),
+    steps: Int32Array.from(cells, (c) => c.steps),
+    loss: Float64Array.from(cells, (c) => c.loss),
+    endPoints,
+    outcomes: cells.map((c) => c.outcome),
   };
+}
+
+function planWork(spec: StudySpec, surface: Surface): StudyWork {
+  switch (spec.kind) {
+    case 'start-map':
+      return startMapWork(spec, surface);
+    case 'multi-start':
+      return new CursorWork(spec, surface);
+    case 'lr-sweep':
+      return learningRateWork(spec, surface);
+  }
+}
+
+/** One wave: a sweep of one optimizer over some cells. */
+interface Wave {
+  indices: Int32Array;
+  optimizer: OptimizerSpec;
+  stop: StopRules;
+  seed: number;
+  starts: Float64Array;
+  learningRates?: Float64Array;
+}
+
+/** Waves run one after another on the sweep engine; a cell is reported when its run ends. */
+class SweepWork implements StudyWork {
+  private wave = -1;
+  private sweep: Sweep | null = null;
+  private reported: Uint8Array = new Uint8Array(0);
+  readonly total: number;
+
+  constructor(
+    private readonly surface: Surface,
+    private readonly waves: Wave[],
+    private readonly onFinish: () => ReturnType<StudyWork['finish']> = () => ({}),
+  ) {
+    this.total = waves.reduce((s, w) => s + w.indices.length, 0);
+  }
+
+  get finished(): boolean {
+    return this.wave >= this.waves.length - 1 && (!this.sweep || this.sweep.finished);
+  }
+
+  run(deadline: number, now: () => number): CellResult[] {
+    const out: CellResult[] = [];
+    while (now() < deadline) {
+      if (!this.sweep || this.sweep.finished) {
+        if (this.wave >= this.waves.length - 1) break;
+        const w = this.waves[++this.wave];
+        this.sweep = new Sweep({ surface: this.surface, optimizer: w.optimizer, stop: w.stop, seed: w.seed, starts: w.starts, learningRates: w.learningRates });
+        this.reported = new Uint8Array(w.indices.length);
+      }
+      this.sweep.advanceFor(Math.max(1, deadline - now()), now);
+      const r = this.sweep.result();
+      const w = this.waves[this.wave];
+      const n = r.dimension;
+      for (let k = 0; k < r.count; k++) {
+        const outcome = r.outcomes[k];
+        if (!outcome || this.reported[k]) continue;
+        this.reported[k] = 1;
+        out.push({ index: w.indices[k], outcome, steps: r.steps[k], loss: r.losses[k], end: r.endPoints.slice(k * n, (k + 1) * n) });
+      }
+      if (now() >= deadline) break;
+    }
+    return out;
+  }
+
+  finish() {
+    return this.onFinish();
+  }
+}
+
+/** A map's cells in coarse-to-fine order, cut into waves at the full grids of stride 8, 4, 2 and 1. */
+function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
+  const n = surface.dimension;
+  validateStartMap(spec, n);
+  const r = spec.resolution;
+  const order = coarseToFineOrder(r, r);
+  const cuts = [8, 4, 2, 1].map((s) => Math.ceil(r / s) ** 2);
+  const waves: Wave[] = [];
+  let from = 0;
+  for (const to of cuts) {
+    if (to <= from) continue;
+    const indices = order.slice(from, to);
+    const starts = new Float64Array(indices.length * n);
+    const cell = new Float64Array(n);
+    indices.forEach((c, k) => starts.set(cellStart(spec, c, cell), k * n));
+    waves.push({ indices, optimizer: spec.optimizer, stop: spec.stop, seed: spec.seed, starts });
+    from = to;
+  }
+  return new SweepWork(surface, waves);
+}
+
+/**
+ * Each optimizer at every rate, one wave per optimizer; at the end, per optimizer, the observed
+ * divergence threshold (between the last rate before the first diverged run and that run's rate,
+ * narrowed by refineDivergenceThreshold to 1e-6 relative where its stability test agrees) and the
+ * prediction from the largest Hessian eigenvalue at the start.
+ */
+function learningRateWork(spec: LearningRateSweepSpec, surface: Surface): StudyWork {
+  const n = surface.dimension;
+  validateLearningRateSweep(spec, n);
+  spec.optimizers.forEach((o) => buildOptimizer(o.spec));
+  const rates = logSpaced(spec.range[0], spec.range[1], spec.count);
+  const starts = new Float64Array(spec.count * n);
+  for (let k = 0; k < spec.count; k++) starts.set(spec.start, k * n);
+  const waves: Wave[] = spec.optimizers.map((o, q) => ({
+    indices: Int32Array.from({ length: spec.count }, (_, k) => q * spec.count + k), optimizer: o.spec, stop: spec.stop, seed: spec.seed, starts, learningRates: rates,
+  }));
+  const outcomes: (RunOutcome | undefined)[] = [];
+  const work = new SweepWork(surface, waves, () => {
+    const lambdaMax = sharpnessAlong(surface, Float64Array.from(spec.start), 1)[0];
+    const thresholds: StudyThreshold[] = spec.optimizers.map((o, q) => {
+      const predicted = predictedStabilityLimit(o.spec, lambdaMax);
+      const first = rates.findIndex((_, k) => outcomes[q * spec.count + k]?.kind === 'diverged');
+      if (first <= 0) return { lambdaMax, predicted, observed: null };
+      let lo = rates[first - 1];
+      let hi = rates[first];
+      let refined = false;
+      try {
+        const r = refineDivergenceThreshold({ surface, optimizer: o.spec, start: spec.start, seed: spec.seed, steps: Math.min(spec.stop.maxSteps, 2000) }, lo, hi, { relativeTolerance: 1e-6 });
+        [lo, hi, refined] = [r.lo, r.hi, true];
+      } catch {
+        // The refinement's own stability test disagrees with the sweep at the bracket's ends (e.g. a run
+        // that diverges only after more steps than a trial takes): keep the sweep's bracket, unrefined.
+      }
+      return { lambdaMax, predicted, observed: { lo, hi, refined } };
+    });
+    return { thresholds };
+  });
+  const run = work.run.bind(work);
+  work.run = (deadline, now) => {
+    const cells = run(deadline, now);
+    for (const c of cells) outcomes[c.index] = c.outcome;
+    return cells;
+  };
+  return work;
+}
+
+/** One RunCursor per start (multi-start), keeping each run's loss curve for the quantile bands. */
+class CursorWork implements StudyWork {
+  readonly total: number;
+  private next = 0;
+  private current: { index: number; cursor: RunCursor; loss: number[] } | null = null;
+  private readonly curves: Float64Array[];
+  private readonly starts: Float64Array;
+  private readonly optimizer;
+
+  constructor(
+    private readonly spec: MultiStartSpec,
+    private readonly surface: Surface,
+  ) {
+    validateMultiStart(spec);
+    this.total = spec.count;
+    this.curves = new Array(spec.count);
+    this.starts = drawStarts(spec.distribution, surface.dimension, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined);
+    this.optimizer = buildOptimizer(spec.optimizer);
+  }
+
+  get finished(): boolean {
+    return this.next >= this.total && !this.current;
+  }
+
+  run(deadline: number, now: () => number): CellResult[] {
+    const n = this.surface.dimension;
+    const out: CellResult[] = [];
+    while (now() < deadline && !this.finished) {
+      if (!this.current) {
+        const index = this.next++;
+        const settings = { start: Array.from(this.starts.subarray(index * n, (index + 1) * n)), seed: this.spec.seed, stop: this.spec.stop };
+        this.current = { index, cursor: new RunCursor(this.surface, this.optimizer, settings), loss: [] };
+      }
+      const { index, cursor, loss } = this.current;
+      const batch = cursor.advance(2000);
+      for (let k = 0; k < batch.count; k++) loss.push(batch.loss[k]);
+      if (cursor.outcome) {
+        this.curves[index] = Float64Array.from(loss);
+        out.push({ index, outcome: cursor.outcome, steps: cursor.state.t, loss: cursor.state.loss, end: Float64Array.from(cursor.state.x) });
+        this.current = null;
+      }
+      if (now() >= deadline) break;
+    }
+    return out;
+  }
+
+  finish() {
+    return { bands: lossBands(this.curves, [0.25, 0.5, 0.75]).bands };
+  }
 }

@@ -105,3 +105,36 @@ describe('multi-start through the worker', () => {
     expect(summary.successes).toBe(summary.converged); // every converged Adam run on Himmelblau ends at a global minimum (f = 0)
   });
 });
+
+describe('learning-rate sweep through the worker', () => {
+  it('on x^2 + 10 y^2 (lambda_max = 20) the observed thresholds are 2/lambda_max for GD and 2(1+mu)/lambda_max for heavy ball, to 1e-6, as predicted', () => {
+    // Standard quadratic stability results (common practice): GD stable for lr < 2/lambda_max = 0.1;
+    // heavy ball with mu = 0.9 for lr < 2(1 + mu)/lambda_max = 0.19.
+    const h = inProcessLink();
+    const st = createStudyStore(h.link);
+    const sweep = {
+      kind: 'lr-sweep' as const,
+      optimizers: [{ label: 'GD', spec: { kind: 'gd' as const, learningRate: 0.01 } }, { label: 'heavy ball', spec: { kind: 'momentum' as const, learningRate: 0.01, hyper: { momentum: 0.9 } } }],
+      stop: { maxSteps: 2000, gradientNormTolerance: 1e-10 },
+      seed: 1,
+      start: [1, 1],
+      range: [0.01, 1] as [number, number],
+      count: 32,
+    };
+    st.start({ surface: { kind: 'formula', text: 'x^2 + 10*y^2' }, variables: ['x', 'y'], spec: sweep, configLabel: 'GD', known: [], basinRadius: 0.01 });
+    h.drain();
+    const s = st.store.getState();
+    expect(s.status).toBe('done');
+    expect(s.done).toBe(64);
+    const [gd, hb] = s.thresholds!;
+    expect(gd.lambdaMax).toBeCloseTo(20, 10);
+    expect(gd.predicted).toBeCloseTo(0.1, 12);
+    expect(hb.predicted).toBeCloseTo(0.19, 12);
+    expect(gd.observed!.refined && hb.observed!.refined).toBe(true);
+    expect(Math.abs(Math.sqrt(gd.observed!.lo * gd.observed!.hi) / 0.1 - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(Math.sqrt(hb.observed!.lo * hb.observed!.hi) / 0.19 - 1)).toBeLessThan(1e-6);
+    // The sweep's own cells: every GD rate below 0.1 converged, every one above diverged.
+    const rates = Array.from({ length: 32 }, (_, k) => 0.01 * 100 ** (k / 31));
+    rates.forEach((lr, k) => expect(s.cells!.outcomes[k]!.kind, `lr ${lr}`).toBe(lr < 0.1 ? 'converged' : 'diverged'));
+  });
+});

@@ -21,8 +21,36 @@ export interface MultiStartSpec {
 
 export const MAX_MULTI_STARTS = 10_000;
 
+/**
+ * A learning-rate sweep as plain data: each optimizer (a full spec, its learning rate replaced) at
+ * `count` log-spaced learning rates from range[0] to range[1], all from one start; then, per optimizer,
+ * the observed divergence threshold between the last stable and the first unstable rate, refined by
+ * bisection (sweep/rates.ts), beside the threshold predicted from the Hessian at the start
+ * (stability.ts). Cell index: optimizer o, rate k -> o * count + k.
+ */
+export interface LearningRateSweepSpec {
+  kind: 'lr-sweep';
+  optimizers: { label: string; spec: OptimizerSpec }[];
+  stop: StopRules;
+  seed: number;
+  start: number[];
+  range: [number, number];
+  count: number;
+}
+
+export const MAX_SWEEP_RATES = 1024;
+
 /** Every study kind; each is plain data and goes into the experiment file as it is. */
-export type StudySpec = StartMapSpec | MultiStartSpec;
+export type StudySpec = StartMapSpec | MultiStartSpec | LearningRateSweepSpec;
+
+export function validateLearningRateSweep(spec: LearningRateSweepSpec, dimension: number): void {
+  const [lo, hi] = spec.range;
+  if (!(lo > 0 && hi > lo && Number.isFinite(hi))) throw new RangeError(`learning-rate sweep: range must satisfy 0 < low < high (finite), got [${lo}, ${hi}]`);
+  if (!Number.isInteger(spec.count) || spec.count < 2 || spec.count > MAX_SWEEP_RATES)
+    throw new RangeError(`learning-rate sweep: count must be a whole number from 2 to ${MAX_SWEEP_RATES}, got ${spec.count}`);
+  if (spec.optimizers.length < 1) throw new RangeError('learning-rate sweep: choose at least one optimizer');
+  if (spec.start.length !== dimension) throw new RangeError(`learning-rate sweep: start must have ${dimension} coordinates, got ${spec.start.length}`);
+}
 
 export function validateMultiStart(spec: MultiStartSpec): void {
   if (!Number.isInteger(spec.count) || spec.count < 1 || spec.count > MAX_MULTI_STARTS)
