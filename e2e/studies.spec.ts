@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { expect, test } from '@playwright/test';
 import Papa from 'papaparse';
-import { canvasPixels, openFresh, waitForContours } from './helpers';
+import { canvasPixels, countColour, openFresh, waitForContours } from './helpers';
 
 /**
  * A start-point map on Himmelblau (four minima, published in the reference file) with the demo's Adam
@@ -92,4 +92,28 @@ test('multi-start on Himmelblau: summary with the success rate, outcomes, the qu
   const parsed = Papa.parse<string[]>(readFileSync((await (await download).path())!, 'utf8').trim(), { skipEmptyLines: true });
   expect(parsed.data).toHaveLength(61);
   expect(parsed.data[1][0]).toBe('multi-start');
+});
+
+test('learning-rate sweep on x^2 + 10 y^2: observed thresholds at 2/lambda_max and 2(1+mu)/lambda_max beside the predictions, chart drawn', async ({ page }) => {
+  // Source of the expected values: standard quadratic stability of GD (lr < 2/lambda_max) and of heavy
+  // ball (lr < 2(1 + mu)/lambda_max), common practice; lambda_max = 20 here.
+  await openFresh(page);
+  await page.getByLabel('Your formula').check();
+  await page.getByLabel('Formula', { exact: true }).fill('x^2 + 10*y^2');
+  await page.getByRole('button', { name: 'Use this formula' }).click();
+  await waitForContours(page);
+  await page.getByRole('tab', { name: 'Learning-rate sweep' }).click();
+  const panel = page.getByTestId('rate-sweep');
+  await panel.getByRole('button', { name: 'Sweep learning rates' }).click();
+  await expect(panel.locator('.study-progress')).toHaveAttribute('data-status', 'done', { timeout: 60_000 });
+  const table = panel.getByTestId('rate-thresholds');
+  const value = async (label: string, col: 'observed' | 'predicted') => Number(await table.locator(`tr[data-optimizer="${label}"] td[data-${col}]`).getAttribute(`data-${col}`));
+  expect(Math.abs((await value('Plain descent', 'observed')) / 0.1 - 1)).toBeLessThan(1e-5);
+  expect(Math.abs((await value('Plain descent', 'predicted')) / 0.1 - 1)).toBeLessThan(1e-9);
+  expect(Math.abs((await value('Momentum', 'observed')) / 0.19 - 1)).toBeLessThan(1e-5);
+  expect(Math.abs((await value('Momentum', 'predicted')) / 0.19 - 1)).toBeLessThan(1e-9);
+  await expect(table.locator('tr[data-optimizer="Adam"] td').nth(2)).toHaveText('no prediction');
+  await expect(table).toContainText('λmax of the Hessian at the start: 20');
+  const px = await canvasPixels(page, 'rate-chart');
+  expect(countColour(px, '#e69f00', 30)).toBeGreaterThan(50); // the first run's colour (Okabe-Ito orange)
 });

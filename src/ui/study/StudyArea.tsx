@@ -1,13 +1,15 @@
 import { useState } from 'react';
 import { MultiStartPanel } from './MultiStartPanel';
+import { RateSweepPanel } from './RateSweepPanel';
 import { StartMapPanel } from './StartMapPanel';
 
 const KINDS = [
   ['map', 'Start-point map'],
   ['multi', 'Multi-start'],
+  ['rates', 'Learning-rate sweep'],
 ] as const;
 
-/** The studies below the results: how the outcome depends on the start point. One shown at a time. */
+/** The studies below the results: how the outcome depends on the start point and the learning rate. One shown at a time. */
 export function StudyArea() {
   const [kind, setKind] = useState<(typeof KINDS)[number][0]>('map');
   return (
@@ -19,7 +21,7 @@ export function StudyArea() {
           </button>
         ))}
       </div>
-      {kind === 'map' ? <StartMapPanel /> : <MultiStartPanel />}
+      {kind === 'map' ? <StartMapPanel /> : kind === 'multi' ? <MultiStartPanel /> : <RateSweepPanel />}
     </div>
   );
 }
