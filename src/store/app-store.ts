@@ -42,6 +42,8 @@ export interface AppState extends Workspace {
   startTarget: 'all' | 'selected';
   /** The slice point under the pointer, shared by every panel (linked hover). */
   hover: { a: number; b: number } | null;
+  /** The results table's chosen columns (null: the defaults for the surface) and sort; not saved. */
+  table: { columns: string[] | null; sort: { column: string; direction: 'ascending' | 'descending' } | null };
   actions: AppActions;
 }
 
@@ -77,6 +79,9 @@ export interface AppActions {
   /** Replaces the table runs with one run per optimizer x learning rate cell. */
   buildTableRuns(): void;
   dismissNotice(): void;
+  /** Shows or hides a results-table column (ids from ui/table/columns.ts); `shown` is the current list. */
+  setTableColumns(columns: string[] | null): void;
+  setTableSort(sort: AppState['table']['sort']): void;
   /** Loads a whole workspace (from storage or an experiment file) and launches its runs. */
   loadWorkspace(workspace: Workspace): void;
 }
@@ -230,7 +235,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     // A start is kept while it lies in the new surface's box; elsewhere the run would start out of view.
     const keepStart = (start: number[]) => sameShape && (keepView || insideBox(start, info.view));
     const runs = s.runs.map((r) => (keepStart(r.settings.start) ? r : { ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
-    set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs });
+    set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs, table: sameShape ? s.table : { columns: null, sort: null } });
     updateReference();
     launchAll();
     requestGrid();
@@ -385,6 +390,12 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     dismissNotice() {
       set({ notice: null });
     },
+    setTableColumns(columns) {
+      set({ table: { ...get().table, columns: columns ? [...columns] : null } });
+    },
+    setTableSort(sort) {
+      set({ table: { ...get().table, sort } });
+    },
     loadWorkspace(workspace) {
       let info: SurfaceInfo;
       try {
@@ -394,7 +405,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
         return;
       }
       for (const r of get().runs) live.forget(r.id);
-      set({ ...workspace, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null });
+      set({ ...workspace, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null, table: { columns: null, sort: null } });
       link.send({ type: 'run/pace', pace: workspace.pace });
       updateReference();
       launchAll();
@@ -412,6 +423,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     selectedRunId: null,
     startTarget: 'all',
     hover: null,
+    table: { columns: null, sort: null },
     actions,
   }));
   actions.loadWorkspace(start);

@@ -1,0 +1,87 @@
+import { expect, test, type Page } from '@playwright/test';
+import Papa from 'papaparse';
+import { readFileSync } from 'node:fs';
+import { openFresh, waitForContours } from './helpers';
+
+async function removeAllRuns(page: Page) {
+  for (const name of ['Remove Plain descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
+  await expect(page.locator('.run-item')).toHaveCount(0);
+}
+
+async function addRun(page: Page, label: string) {
+  await page.getByLabel('New run with').selectOption({ label });
+  await page.getByRole('button', { name: 'Add run' }).click();
+}
+
+/** The probe data fitted with standardised inputs, one L-BFGS run to the end. */
+async function fitProbeData(page: Page) {
+  await openFresh(page);
+  await page.getByLabel('Model on data').check();
+  await expect(page.getByLabel('standardise inputs (mean 0, standard deviation 1)')).toBeChecked();
+  await page.getByRole('button', { name: 'Use this data and model' }).click();
+  await expect(page.getByTestId('surface-name')).toContainText('Linear regression of signal on flow');
+  await waitForContours(page);
+  await removeAllRuns(page);
+  await addRun(page, 'L-BFGS');
+  await expect(page.locator('.run-status[data-phase="ended"]')).toHaveCount(1, { timeout: 30_000 });
+}
+
+test.describe('issue 10: what the page shows', () => {
+  test('the data view, the results table and the results CSV give a parameter the same value', async ({ page }) => {
+    await fitProbeData(page);
+    const params = page.getByTestId('param-table').locator('tbody tr');
+    const table = page.getByTestId('run-table');
+    const download = page.waitForEvent('download');
+    await page.getByRole('button', { name: 'Results CSV' }).click();
+    const parsed = Papa.parse<string[]>(readFileSync((await (await download).path())!, 'utf8').trim());
+    const [header, csvRow] = parsed.data;
+    for (const [k, name] of ['intercept', 'w_flow'].entries()) {
+      await expect(params.nth(k).locator('th')).toHaveText(name);
+      const shown = Number(await params.nth(k).locator('td[data-col="run"]').innerText());
+      const cell = table.locator(`td[data-col="param:${k}"]`);
+      const full = Number(await cell.getAttribute('data-value'));
+      expect(Math.abs(full - shown)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(shown)));
+      // Compact on the page, every digit on hover and in the CSV.
+      expect((await cell.innerText()).replace(/^-/, '').replace(/[.e].*$/, '').length).toBeLessThanOrEqual(4);
+      expect(Number(await cell.getAttribute('title'))).toBe(full);
+      expect(Number(csvRow[header.indexOf(`final_${name}`)])).toBe(full);
+    }
+    await expect(page.getByTestId('run-table').locator('thead')).toContainText('intercept');
+    // The map stays in the optimiser's coordinates and says so.
+    await expect(page.locator('.surface-canvas-box').first()).toHaveAttribute('aria-label', /intercept \(standardised\) and w_flow \(standardised\)/);
+  });
+
+  test('at 1280 x 800 the chosen results columns are all in view, compact and sortable', async ({ page }) => {
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await openFresh(page);
+    const table = page.getByTestId('run-table');
+    await expect(table.locator('td[data-col="steps"]')).toHaveCount(3);
+    await page.getByText(/^Columns \(/).click();
+    await page.getByRole('checkbox', { name: 'Rate' }).check();
+    await page.getByText(/^Columns \(/).click();
+    const headers = table.locator('thead th');
+    const names = await headers.allInnerTexts();
+    expect(names.map((n) => n.trim())).toEqual(['Run', 'Rate', 'Outcome', 'Steps', 'Final loss', 'x', 'y', 'Distance', 'Reached at', 'Evals']);
+    const scroll = page.locator('.table-scroll');
+    const box = (await scroll.boundingBox())!;
+    for (let k = 0; k < names.length; k++) {
+      const h = (await headers.nth(k).boundingBox())!;
+      expect(h.x + h.width).toBeLessThanOrEqual(box.x + box.width + 0.5);
+      expect(h.height).toBeLessThan(30); // one line
+    }
+    expect(box.x + box.width).toBeLessThanOrEqual(1280);
+    for (const text of await table.locator('td[data-col="final-loss"], td[data-col="x"], td[data-col="param:0"], td[data-col="param:1"]').allInnerTexts()) {
+      const digits = text.replace(/e.*$/, '').replace(/[^0-9]/g, '').replace(/^0+/, '');
+      expect(digits.length).toBeLessThanOrEqual(4);
+    }
+    // Sort by the rate from the keyboard: ascending puts momentum's 0.0005 first.
+    const rate = table.locator('thead th[data-col="learning-rate"]');
+    await rate.getByRole('button').focus();
+    await page.keyboard.press('Enter');
+    await expect(rate).toHaveAttribute('aria-sort', 'ascending');
+    await expect(table.locator('tbody tr').first()).toHaveAttribute('data-run-id', 'demo-momentum');
+    await page.keyboard.press('Enter');
+    await expect(rate).toHaveAttribute('aria-sort', 'descending');
+    await expect(table.locator('tbody tr').first()).toHaveAttribute('data-run-id', 'demo-adam');
+  });
+});
