@@ -85,3 +85,30 @@ test.describe('issue 10: what the page shows', () => {
     await expect(table.locator('tbody tr').first()).toHaveAttribute('data-run-id', 'demo-adam');
   });
 });
+
+test.describe('issue 10: defaults', () => {
+  test('a new plain descent run on the demo gets the rate the curvature allows, keeps it across kinds and does not diverge', async ({ page }) => {
+    await openFresh(page);
+    await addRun(page, 'Gradient descent');
+    const editor = page.getByRole('region', { name: /^Settings of/ });
+    const hint = page.getByTestId('rate-hint');
+    // Rosenbrock at (-1.2, 1): lambda_max = 1506.4, 2 / lambda_max = 0.0013277.
+    await expect(hint).toContainText('2/λmax at the start = 0.001328');
+    await expect(hint).toContainText('0.5 of it is 0.00066');
+    await expect(editor.getByLabel('learning rate', { exact: true })).toHaveValue('0.00066');
+    await expect(editor.getByLabel('max steps')).toHaveValue('3000');
+    await editor.getByLabel('Optimizer', { exact: true }).selectOption({ label: 'Nesterov momentum' });
+    await expect(editor.getByLabel('learning rate', { exact: true })).toHaveValue('0.00066');
+    const item = page.locator('.run-item').last();
+    await expect(item.locator('.run-status')).toHaveAttribute('data-phase', 'ended', { timeout: 30_000 });
+    await expect(item.locator('.run-status')).not.toHaveAttribute('data-outcome', 'diverged');
+  });
+
+  test('a network on two-class data gets a cross-entropy output', async ({ page }) => {
+    await openFresh(page);
+    await page.getByLabel('Model on data').check();
+    await page.getByLabel('Data', { exact: true }).selectOption('demo:seed-pods');
+    await page.getByLabel('Model', { exact: true }).selectOption('mlp');
+    await expect(page.getByLabel('Output', { exact: true })).toHaveValue('binary');
+  });
+});

@@ -8,7 +8,9 @@ import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
 import { LiveRuns, type RunStatus } from './live-runs';
 import { demoWorkspace } from './demo';
-import { newRunConfig, nextStyle } from './run-configs';
+import { newRunConfig, nextStyle, pageDefaultSpec } from './run-configs';
+import { curvatureAt, rateFamily, switchedOptimizer } from './suggest-rate';
+import { mainThreadSurface } from './surface-cache';
 import { slicePlane } from './slice-plane';
 import type { DisplaySettings, PanelSettings, RunConfig, SliceSettings, Workspace } from './workspace';
 
@@ -63,6 +65,12 @@ export interface AppActions {
   setDisplay(patch: Partial<DisplaySettings>): void;
   addRun(kind?: OptimizerKind): string;
   updateRun(id: string, patch: Partial<Omit<RunConfig, 'id'>>): void;
+  /**
+   * Switches a run to another optimizer: its defaults, keeping the learning rate between kinds whose
+   * rates mean the same thing; a plain-gradient kind otherwise gets the rate suggested by the curvature
+   * at the run's start. A label that named the old optimizer names the new one.
+   */
+  changeOptimizer(id: string, kind: OptimizerKind): void;
   duplicateRun(id: string): string | null;
   removeRun(id: string): void;
   selectRun(id: string | null): void;
@@ -230,11 +238,13 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     const s = get();
     const n = info.variables.length;
     const sameShape = n === s.surfaceInfo.variables.length;
-    const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, 1], at: info.view.map(([lo, hi]) => (lo + hi) / 2), plane: null };
-    const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
     // A start is kept while it lies in the new surface's box; elsewhere the run would start out of view.
     const keepStart = (start: number[]) => sameShape && (keepView || insideBox(start, info.view));
     const runs = s.runs.map((r) => (keepStart(r.settings.start) ? r : { ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
+    // The other variables are held at the selected (else the first) run's start, so the slice goes through a run.
+    const held = (runs.find((r) => r.id === s.selectedRunId) ?? runs[0])?.settings.start ?? info.view.map(([lo, hi]) => (lo + hi) / 2);
+    const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, 1], at: held.slice(), plane: null };
+    const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
     set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs, table: sameShape ? s.table : { columns: null, sort: null } });
     updateReference();
     launchAll();
@@ -308,6 +318,8 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     addRun(kind = 'adam') {
       const s = get();
       const run = newRunConfig(kind, s.runs, suggestedStartOf(s));
+      const suggested = rateFamily(kind) === 'gradient' ? suggestedRateAt(s, run.settings.start) : null;
+      if (suggested !== null) run.optimizer = { ...run.optimizer, learningRate: suggested };
       set({ runs: [...s.runs, run], selectedRunId: run.id });
       launch(run);
       return run.id;
@@ -317,6 +329,14 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       if (!run) return;
       const relaunch = patch.optimizer !== undefined || patch.settings !== undefined;
       if (relaunch) launch(run);
+    },
+    changeOptimizer(id, kind) {
+      const s = get();
+      const run = s.runs.find((r) => r.id === id);
+      if (!run || run.optimizer.kind === kind) return;
+      const optimizer = switchedOptimizer(run.optimizer, kind, pageDefaultSpec(kind), suggestedRateAt(s, run.settings.start));
+      const label = run.label === optimizerInfo(run.optimizer.kind).label ? optimizerInfo(kind).label : run.label;
+      actions.updateRun(id, { optimizer, label });
     },
     duplicateRun(id) {
       const s = get();
@@ -335,6 +355,13 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     selectRun(id) {
       set({ selectedRunId: id });
+      // A slice through two chosen variables holds the others at the selected run's current point.
+      const s = get();
+      const run = s.runs.find((r) => r.id === id);
+      if (!run || s.slice.plane || s.surfaceInfo.variables.length <= 2) return;
+      const at = runPoint(run, live);
+      if (at.length === s.slice.at.length && at.every((v, k) => v === s.slice.at[k])) return;
+      actions.setSlice({ at });
     },
     setStartTarget(startTarget) {
       set({ startTarget });
@@ -477,6 +504,22 @@ function insideBox(point: number[], box: [number, number][]): boolean {
 
 function suggestedStart(info: SurfaceInfo): number[] {
   return info.suggestedStart ?? info.view.map(([lo, hi]) => lo + 0.25 * (hi - lo));
+}
+
+/** The rate a new plain-gradient run gets at `start`: SAFE_FRACTION of 2 / lambda_max there, or null. */
+function suggestedRateAt(s: AppState, start: number[]): number | null {
+  const surface = mainThreadSurface(s.surface);
+  return surface ? curvatureAt(surface, start)?.suggestedRate ?? null : null;
+}
+
+/** A run's current point (its last recorded one), else its start. */
+function runPoint(run: RunConfig, live: LiveRuns): number[] {
+  const b = live.trajectory(run.id);
+  if (b && b.count > 0 && b.dimension === run.settings.start.length) {
+    const x = Array.from(b.point(b.count - 1));
+    if (x.every(Number.isFinite)) return x;
+  }
+  return run.settings.start.slice();
 }
 
 function suggestedStartOf(s: AppState): number[] {

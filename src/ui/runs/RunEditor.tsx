@@ -1,4 +1,3 @@
-import { pageDefaultSpec } from '../../store/run-configs';
 import { useId } from 'react';
 import {
   OPTIMIZERS,
@@ -19,6 +18,8 @@ import type { RunConfig } from '../../store/workspace';
 import { useActions, useApp } from '../app-context';
 import { NumberField } from '../fields/NumberField';
 import { useMainThreadSurface } from '../view/use-surface';
+import { RateHint } from './RateHint';
+import { reportedUnits } from '../../store/units';
 
 /** Every setting of the selected run. Edits apply (and restart the run) only when they validate. */
 export function RunEditor({ run }: { run: RunConfig }) {
@@ -69,10 +70,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
         <select
           id={kindId}
           value={opt.kind}
-          onChange={(e) => {
-            const kind = e.target.value as OptimizerKind;
-            actions.updateRun(run.id, { optimizer: pageDefaultSpec(kind), label: run.label === info.label ? optimizerInfo(kind).label : run.label });
-          }}
+          onChange={(e) => actions.changeOptimizer(run.id, e.target.value as OptimizerKind)}
         >
           {OPTIMIZERS.map((o) => (
             <option key={o.kind} value={o.kind}>
@@ -90,6 +88,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
       <fieldset>
         <legend>Step size</legend>
         <NumberField label={opt.kind === 'lbfgs' ? 'first trial step' : opt.kind === 'newton' ? 'damping factor' : 'learning rate'} value={opt.learningRate} onCommit={(v) => tryOptimizer({ ...opt, learningRate: v! }, 'learningRate')} />
+        <RateHint run={run} />
         {info.usesSchedule && (
           <>
             <div className="field">
@@ -141,7 +140,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
         )}
       </fieldset>
       <fieldset>
-        <legend>Start point</legend>
+        <legend>Start point{reportedUnits(surface).standardised ? ' (standardised coordinates)' : ''}</legend>
         {variables.map((name, i) => (
           <NumberField
             key={name}

@@ -3,7 +3,7 @@ import { DEMO_DATASETS, NIST_DATASET_IDS, buildSurface, type DataFitSpec, type D
 import { useActions } from '../../app-context';
 import { NumberField } from '../../fields/NumberField';
 import { CsvImport } from './CsvImport';
-import { datasetColumns, draftFor, specOfDraft, tableLabel, type DataFitDraft } from './draft';
+import { datasetColumns, draftFor, headFor, specOfDraft, tableLabel, type DataFitDraft } from './draft';
 
 const MODELS: { kind: ModelKind; label: string }[] = [
   { kind: 'linear', label: 'Linear regression (least squares)' },
@@ -105,7 +105,7 @@ export function DataFitEditor({ initial }: { initial: DataFitSpec | null }) {
       </fieldset>
       <div className="field">
         <label htmlFor={`${id}-target`}>Target</label>
-        <select id={`${id}-target`} value={draft.target} onChange={(e) => patch({ target: e.target.value, inputs: draft.inputs.filter((x) => x !== e.target.value) })}>
+        <select id={`${id}-target`} value={draft.target} onChange={(e) => patch({ target: e.target.value, inputs: draft.inputs.filter((x) => x !== e.target.value), head: headFor(draft.dataset, e.target.value) })}>
           {columns.map((c) => (
             <option key={c} value={c}>
               {c}
