@@ -1,7 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import Papa from 'papaparse';
 import { readFileSync } from 'node:fs';
-import { openFresh, waitForContours } from './helpers';
+import { openFresh, waitForContours, waitForRunsToEnd } from './helpers';
 
 async function removeAllRuns(page: Page) {
   for (const name of ['Remove Plain descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
@@ -110,5 +110,35 @@ test.describe('issue 10: defaults', () => {
     await page.getByLabel('Data', { exact: true }).selectOption('demo:seed-pods');
     await page.getByLabel('Model', { exact: true }).selectOption('mlp');
     await expect(page.getByLabel('Output', { exact: true })).toHaveValue('binary');
+  });
+});
+
+test.describe('issue 10: many variables', () => {
+  test('fourteen variables are listed in natural order, every held value is shown at the run start and can be edited', async ({ page }) => {
+    await openFresh(page);
+    await page.getByLabel('Your formula').check();
+    const text = Array.from({ length: 14 }, (_, k) => `(x${k + 1} - ${k % 3})^2`).join(' + ');
+    await page.getByLabel('Formula', { exact: true }).fill(text);
+    await page.getByRole('button', { name: 'Use this formula' }).click();
+    await expect(page.getByText('Slice through 14 variables')).toBeVisible();
+    await waitForContours(page);
+    const axis = page.getByLabel('Horizontal axis');
+    expect((await axis.locator('option').allInnerTexts()).map((t) => t.trim())).toEqual(Array.from({ length: 14 }, (_, k) => `x${k + 1}`));
+    const held = page.getByTestId('held-values');
+    await expect(held.getByRole('textbox')).toHaveCount(12);
+    // Held at the first run's start, then at the selected run's current point.
+    const x14 = held.getByLabel('x14 held at');
+    await x14.scrollIntoViewIfNeeded();
+    await expect(x14).toBeVisible();
+    const heldAt = Number(await x14.inputValue());
+    await page.locator('.run-item').first().locator('.run-select').click();
+    expect(Number(await page.getByRole('region', { name: /^Settings of/ }).getByLabel('x14', { exact: true }).inputValue())).toBe(heldAt);
+    await waitForRunsToEnd(page, 3);
+    await page.locator('.run-item').nth(2).locator('.run-select').click();
+    await expect.poll(async () => Number(await x14.inputValue())).toBeCloseTo(1, 2); // (x14 - 1)^2: Adam's end
+    await x14.fill('2.5');
+    await x14.press('Enter');
+    await expect(x14).toHaveValue('2.5');
+    await waitForContours(page);
   });
 });
