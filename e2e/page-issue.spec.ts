@@ -142,3 +142,55 @@ test.describe('issue 10: many variables', () => {
     await waitForContours(page);
   });
 });
+
+test.describe('issue 10: messages in the page labels', () => {
+  test('a bad learning rate is named as the field is labelled', async ({ page }) => {
+    await openFresh(page);
+    await page.locator('.run-item').nth(2).locator('.run-select').click();
+    const editor = page.getByRole('region', { name: 'Settings of Adam' });
+    const rate = editor.getByLabel('learning rate', { exact: true });
+    await rate.fill('-1');
+    await rate.press('Enter');
+    await expect(editor.getByText('Adam: learning rate must be a finite number > 0, got -1')).toBeVisible();
+    await expect(editor).not.toContainText('learningRate');
+  });
+
+  test('a network with three hidden layers is refused in the editor’s words', async ({ page }) => {
+    await openFresh(page);
+    await page.getByLabel('Model on data').check();
+    await page.getByLabel('Data', { exact: true }).selectOption('demo:seed-pods');
+    await page.getByLabel('Model', { exact: true }).selectOption('mlp');
+    await page.getByLabel('Hidden widths').fill('8, 4, 2');
+    await page.getByRole('button', { name: 'Use this data and model' }).click();
+    const alert = page.getByRole('alert').filter({ hasText: 'layer widths' });
+    await expect(alert).toContainText('Model on data: small neural network: Hidden widths must list 1 or 2 layer widths');
+    await expect(alert).not.toContainText('surface spec');
+  });
+
+  test('a model formula error is marked under its column', async ({ page }) => {
+    await openFresh(page);
+    await page.getByLabel('Model on data').check();
+    await page.getByLabel('Model', { exact: true }).selectOption('formula');
+    await page.getByLabel('Model formula').fill('b1 * (1 - exp(-b2 * flow)');
+    await page.getByRole('button', { name: 'Use this data and model' }).click();
+    const problem = page.locator('.datafit-editor .formula-problem');
+    await expect(problem).toContainText("unmatched '(' at column 6");
+    await expect(problem.locator('.formula-caret')).toHaveText('b1 * (1 - exp(-b2 * flow)\n     ^');
+  });
+
+  test('a row with too many fields is reported by row, and a failed import leaves no stale file in the menu', async ({ page }) => {
+    await openFresh(page);
+    await page.getByLabel('Model on data').check();
+    const input = page.getByLabel('Import a CSV file…');
+    await input.setInputFiles({ name: 'good.csv', mimeType: 'text/csv', buffer: Buffer.from('dose,response\n1,2\n2,4\n3,6.1\n') });
+    const data = page.getByLabel('Data', { exact: true });
+    await expect(data).toHaveValue('table');
+    await expect(data.locator('option[value="table"]')).toContainText('good.csv');
+    await input.setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from('dose,response\n1,2\n2,4,7\n') });
+    await expect(page.getByTestId('csv-problems')).toContainText('row 3: more fields than the header has ("7")');
+    await expect(page.getByTestId('csv-problems')).not.toContainText('column :');
+    await expect(page.getByTestId('csv-error')).toContainText('bad.csv: 1 value could not be read (first: row 3: more fields than the header has ("7"))');
+    await expect(data.locator('option[value="table"]')).toHaveCount(0);
+    await expect(data).not.toHaveValue('table');
+  });
+});

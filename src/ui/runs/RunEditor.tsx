@@ -19,6 +19,7 @@ import { useActions, useApp } from '../app-context';
 import { NumberField } from '../fields/NumberField';
 import { useMainThreadSurface } from '../view/use-surface';
 import { RateHint } from './RateHint';
+import { optimizerMessage, runErrorMessage, runSettingsMessage } from '../messages';
 import { reportedUnits } from '../../store/units';
 
 /** Every setting of the selected run. Edits apply (and restart the run) only when they validate. */
@@ -37,7 +38,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
   function tryOptimizer(next: OptimizerSpec, field: string): string | null {
     const problems = validateOptimizerSpec(next);
     const mine = problems.find((p) => p.field === field) ?? problems[0];
-    if (mine) return mine.message;
+    if (mine) return optimizerMessage(mine.message, next.kind);
     actions.updateRun(run.id, { optimizer: next });
     return null;
   }
@@ -46,7 +47,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
     try {
       validateRunSettings(next, variables.length, rows);
     } catch (e) {
-      if (e instanceof SettingError) return e.message;
+      if (e instanceof SettingError) return runSettingsMessage(e.message);
       throw e;
     }
     actions.updateRun(run.id, { settings: next });
@@ -82,7 +83,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
       </div>
       {runError && (
         <div className="field-error" role="alert">
-          {runError.message}
+          {runErrorMessage(runError.message, opt.kind)}
         </div>
       )}
       <fieldset>

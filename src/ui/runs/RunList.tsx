@@ -83,7 +83,7 @@ export function RunList() {
                 <RunGlyph style={r.style} />
                 <span className="run-label">{r.label}</span>
                 <span className="run-status" data-phase={st?.phase ?? 'none'} data-outcome={st?.summary.outcome?.kind} title={st?.summary.outcome ? outcomeDetail(st.summary.outcome) : undefined}>
-                  {statusText(st)}
+                  {statusText(st, r.optimizer.kind)}
                 </span>
               </button>
               <div className="run-buttons" role="group" aria-label={`Controls of ${r.label}`}>

@@ -3,6 +3,7 @@ import { FormulaSyntaxError, type FormulaError } from '../../engine';
 import { buildSurface, type FormulaSpec } from '../../problems';
 import { useActions } from '../app-context';
 import { parseConstants, formatConstants } from './constants-text';
+import { surfaceMessage } from '../messages';
 
 interface Problem {
   where: 'formula' | 'constants' | 'variables';
@@ -34,7 +35,7 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
       buildSurface(spec);
     } catch (e) {
       if (e instanceof FormulaSyntaxError) return setProblems(e.errors.map((span) => ({ where: 'formula', message: span.message, span })));
-      return setProblems([{ where: 'formula', message: e instanceof Error ? e.message : String(e) }]);
+      return setProblems([{ where: 'formula', message: surfaceMessage(e instanceof Error ? e.message : String(e)) }]);
     }
     setProblems([]);
     actions.setSurface(spec);
@@ -64,7 +65,7 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
         />
         <div id={`${id}-formula-errors`}>
           {of('formula').map((p, k) => (
-            <FormulaProblem key={k} text={text} problem={p} />
+            <FormulaProblem key={k} text={text} message={p.message} span={p.span} />
           ))}
         </div>
       </div>
@@ -95,13 +96,12 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
 }
 
 /** The message, then the formula with a row of carets under the offending columns. */
-function FormulaProblem({ text, problem }: { text: string; problem: Problem }) {
-  const span = problem.span;
+export function FormulaProblem({ text, message, span }: { text: string; message: string; span?: FormulaError }) {
   const start = span ? Math.min(span.start, text.length) : 0;
   const width = span ? Math.max(1, Math.min(span.end, text.length + 1) - start) : 0;
   return (
     <div className="field-error formula-problem" role="alert">
-      <div className="formula-problem-message">{problem.message}</div>
+      <div className="formula-problem-message">{message}</div>
       {span && (
         <pre className="mono formula-caret" aria-hidden="true">
           {text}

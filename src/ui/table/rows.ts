@@ -2,6 +2,7 @@ import { optimizerInfo, outcomeDetail, outcomeLabel } from '../../engine';
 import type { AppState } from '../../store/app-store';
 import type { ReportedUnits } from '../../store/units';
 import type { ResultRow } from './columns';
+import { runErrorMessage } from '../messages';
 
 /** One row per run from the store, every coordinate in the reported units. */
 export function resultRows(s: Pick<AppState, 'runs' | 'status' | 'surfaceInfo'>, units: ReportedUnits): ResultRow[] {
@@ -11,7 +12,7 @@ export function resultRows(s: Pick<AppState, 'runs' | 'status' | 'surfaceInfo'>,
     const st = s.status[r.id];
     const sum = st?.summary;
     const near = sum?.nearestMinimum ? minima[sum.nearestMinimum.index] : null;
-    const outcome = st?.phase === 'error' ? `error: ${st.error?.message}` : sum?.outcome ? outcomeLabel(sum.outcome) : st ? st.phase : '—';
+    const outcome = st?.phase === 'error' ? `error: ${st.error ? runErrorMessage(st.error.message, r.optimizer.kind) : 'unknown'}` : sum?.outcome ? outcomeLabel(sum.outcome) : st ? st.phase : '—';
     const point = sum?.finalPoint.length ? units.toReported(sum.finalPoint) : [];
     const nearestPoint = near ? units.toReported(near.point) : null;
     // The distance in the reported units (the summary's is in the surface's own coordinates).
