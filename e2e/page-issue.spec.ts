@@ -194,3 +194,34 @@ test.describe('issue 10: messages in the page labels', () => {
     await expect(data).not.toHaveValue('table');
   });
 });
+
+test.describe('issue 10: run cards', () => {
+  test('each card shows its progress against the step budget and stays compact', async ({ page }) => {
+    await openFresh(page);
+    await page.getByLabel('Pace').selectOption('100');
+    const card = page.locator('.run-item').first();
+    await expect(card.getByTestId('run-progress')).toContainText(/step \d+ of 3000/);
+    await page.getByRole('button', { name: 'Restart Plain descent' }).click();
+    await expect.poll(async () => Number((await card.getByTestId('run-progress').innerText()).match(/step (\d+) of 3000/)![1])).toBeGreaterThan(0);
+    await page.getByRole('button', { name: 'Pause Plain descent' }).click();
+    const text = await card.getByTestId('run-progress').innerText();
+    const steps = Number(text.match(/step (\d+) of 3000/)![1]);
+    expect(steps).toBeGreaterThan(0);
+    expect(steps).toBeLessThan(3000);
+    await expect(card.locator('progress')).toHaveAttribute('max', '3000');
+    expect(Number(await card.locator('progress').getAttribute('value'))).toBe(steps);
+    await page.getByRole('button', { name: 'Resume Plain descent' }).click();
+    await page.getByLabel('Pace').selectOption('max');
+    await expect(card.getByTestId('run-progress')).toContainText('step 3000 of 3000', { timeout: 30_000 });
+    // Every control of a run fits on the card's first line, beside its name.
+    for (const k of [0, 1, 2]) {
+      const item = page.locator('.run-item').nth(k);
+      const buttons = item.locator('.run-buttons button');
+      await expect(buttons).toHaveCount(6);
+      const tops = await buttons.evaluateAll((els) => els.map((e) => Math.round(e.getBoundingClientRect().top)));
+      expect(new Set(tops).size).toBe(1);
+      expect((await item.boundingBox())!.height).toBeLessThan(80);
+    }
+    for (const name of ['One step of Adam', 'Restart Adam', 'Hide Adam', 'Duplicate Adam', 'Remove Adam']) await expect(page.getByRole('button', { name })).toBeVisible();
+  });
+});

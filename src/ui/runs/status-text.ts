@@ -10,3 +10,8 @@ export function statusText(status: RunStatus | undefined, kind?: OptimizerKind):
   if (status.summary.outcome) return describeOutcome(status.summary.outcome);
   return `${status.phase === 'paused' ? 'paused' : 'running'}, step ${status.summary.steps}`;
 }
+
+/** How far a run got against its step budget: "step 729 of 3000". */
+export function progressText(status: RunStatus | undefined, maxSteps: number): string {
+  return `step ${status ? status.summary.steps : 0} of ${maxSteps}`;
+}
