@@ -225,3 +225,37 @@ test.describe('issue 10: run cards', () => {
     for (const name of ['One step of Adam', 'Restart Adam', 'Hide Adam', 'Duplicate Adam', 'Remove Adam']) await expect(page.getByRole('button', { name })).toBeVisible();
   });
 });
+
+test.describe('issue 10: copying the results', () => {
+  test('copying from the table and the Copy table button give every digit', async ({ page, context }) => {
+    await context.grantPermissions(['clipboard-read', 'clipboard-write']);
+    await openFresh(page);
+    await waitForRunsToEnd(page, 3);
+    const table = page.getByTestId('run-table');
+    const full = await table.locator('tr[data-run-id="demo-adam"] td[data-col="final-loss"]').getAttribute('data-value');
+    expect(full!.replace(/e.*$/, '').replace(/[^0-9]/g, '').length).toBeGreaterThan(4);
+    const copied = await table.evaluate((el) => {
+      const row = el.querySelector('tr[data-run-id="demo-adam"]')!;
+      const range = document.createRange();
+      range.selectNodeContents(row);
+      const sel = window.getSelection()!;
+      sel.removeAllRanges();
+      sel.addRange(range);
+      let text = '';
+      const read = (e: ClipboardEvent) => (text = e.clipboardData!.getData('text/plain'));
+      window.addEventListener('copy', read);
+      document.execCommand('copy');
+      window.removeEventListener('copy', read);
+      return text;
+    });
+    const [head, line] = copied.trim().split('\n');
+    expect(head.split('\t')).toContain('Final loss');
+    expect(line.split('\t')[0]).toBe('Adam');
+    expect(line.split('\t')[head.split('\t').indexOf('Final loss')]).toBe(full);
+    await page.getByRole('button', { name: 'Copy table' }).click();
+    await expect(page.getByText('copied at full precision')).toBeVisible();
+    const all = await page.evaluate(() => navigator.clipboard.readText());
+    expect(all.trim().split('\n')).toHaveLength(4);
+    expect(all).toContain(`\t${full}\t`);
+  });
+});

@@ -73,7 +73,22 @@ export function RunTable() {
         {copied && <span className="field-help" role="status">{copied}</span>}
       </div>
       <div className="table-scroll">
-        <table className="run-table" data-testid="run-table">
+        <table
+          className="run-table"
+          data-testid="run-table"
+          onCopy={(e) => {
+            // A selection in the table copies the rows it touches at full precision, not the compact text.
+            const selection = window.getSelection();
+            if (!selection || selection.isCollapsed) return;
+            const picked = rows.filter((r) => {
+              const tr = e.currentTarget.querySelector(`tr[data-run-id="${CSS.escape(r.id)}"]`);
+              return tr && selection.containsNode(tr, true);
+            });
+            if (!picked.length) return;
+            e.preventDefault();
+            e.clipboardData.setData('text/plain', tableTsv(picked, columns));
+          }}
+        >
           <thead>
             <tr>
               <th scope="col">Run</th>
