@@ -7,6 +7,7 @@ import { SurfacePanel } from './surface/SurfacePanel';
 import { RunTable } from './table/RunTable';
 import { useActions, useApp } from './app-context';
 import { PanelBoundary } from './PanelBoundary';
+import { noticeMessage } from './messages';
 import { ViewArea } from './view/ViewArea';
 
 export function App() {
@@ -25,7 +26,7 @@ export function App() {
       </header>
       {notice && (
         <div className="notice" role="alert">
-          {notice}{' '}
+          {noticeMessage(notice)}{' '}
           <button type="button" onClick={() => actions.dismissNotice()}>
             Dismiss
           </button>

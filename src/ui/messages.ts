@@ -129,3 +129,9 @@ export function runErrorMessage(message: string, kind: OptimizerKind): string {
   if (/^(stop|start|minibatch|seed|gradientNoise)\b/.test(message)) return runSettingsMessage(message);
   return surfaceMessage(message);
 }
+
+/** A notice that quotes a surface's error ("... could not be built (<message>); ...") with that message in page labels. */
+export function noticeMessage(notice: string): string {
+  const m = /^(.*? could not be built \()([\s\S]*)(\); [^;]*)$/.exec(notice);
+  return m ? `${m[1]}${surfaceMessage(m[2])}${m[3]}` : notice;
+}

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { validateOptimizerSpec, defaultOptimizerSpec, validateRunSettings, SettingError } from '../../src/engine';
 import { buildSurface, parseDatasetCsv } from '../../src/problems';
-import { csvFailureText, csvProblemText, optimizerMessage, runErrorMessage, runSettingsMessage, surfaceMessage } from '../../src/ui/messages';
+import { noticeMessage, csvFailureText, csvProblemText, optimizerMessage, runErrorMessage, runSettingsMessage, surfaceMessage } from '../../src/ui/messages';
 
 function firstProblem(spec: object): string {
   return validateOptimizerSpec(spec as never)[0].message;
@@ -46,5 +46,11 @@ describe('page messages', () => {
     expect(r.problems[0].column).toBe('');
     expect(csvProblemText(r.problems[0])).toBe('row 3: more fields than the header has ("7")');
     if (!r.ok) expect(csvFailureText(r)).toBe('1 value could not be read (first: row 3: more fields than the header has ("7")); fix them or tick "drop rows that cannot be read"');
+  });
+  it('rewrite a surface error quoted in a notice', () => {
+    expect(noticeMessage("The experiment's surface could not be built (surface spec (datafit): model (mlp): hidden must list 1 or 2 layer widths, got [1,2,3]); nothing was changed.")).toBe(
+      "The experiment's surface could not be built (Model on data: small neural network: Hidden widths must list 1 or 2 layer widths, got [1,2,3]); nothing was changed.",
+    );
+    expect(noticeMessage('Storage is full.')).toBe('Storage is full.');
   });
 });
