@@ -105,7 +105,7 @@ export function RunTable() {
           <tbody>
             {rows.map((r) => (
               <tr key={r.id} data-run-id={r.id}>
-                <th scope="row">
+                <th scope="row" title={r.label}>
                   <RunGlyph style={r.style} /> {r.label}
                 </th>
                 {columns.map((c) => {
