@@ -204,12 +204,18 @@ test.describe('issue 10: run cards', () => {
     await page.getByRole('button', { name: 'Restart Plain descent' }).click();
     await expect.poll(async () => Number((await card.getByTestId('run-progress').innerText()).match(/step (\d+) of 3000/)![1])).toBeGreaterThan(0);
     await page.getByRole('button', { name: 'Pause Plain descent' }).click();
-    const text = await card.getByTestId('run-progress').innerText();
+    await expect(card.locator('.run-status')).toHaveAttribute('data-phase', 'paused');
+    // Read the text and the bar at the same moment (a batch already on its way may still land).
+    const { text, value, max } = await card.getByTestId('run-progress').evaluate((el) => ({
+      text: el.textContent ?? '',
+      value: (el.querySelector('progress') as HTMLProgressElement).value,
+      max: (el.querySelector('progress') as HTMLProgressElement).max,
+    }));
     const steps = Number(text.match(/step (\d+) of 3000/)![1]);
     expect(steps).toBeGreaterThan(0);
     expect(steps).toBeLessThan(3000);
-    await expect(card.locator('progress')).toHaveAttribute('max', '3000');
-    expect(Number(await card.locator('progress').getAttribute('value'))).toBe(steps);
+    expect(max).toBe(3000);
+    expect(value).toBe(steps);
     await page.getByRole('button', { name: 'Resume Plain descent' }).click();
     await page.getByLabel('Pace').selectOption('max');
     await expect(card.getByTestId('run-progress')).toContainText('step 3000 of 3000', { timeout: 30_000 });
