@@ -8,7 +8,9 @@ import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
 import { LiveRuns, type RunStatus } from './live-runs';
 import { demoWorkspace } from './demo';
-import { newRunConfig, nextStyle } from './run-configs';
+import { newRunConfig, nextStyle, pageDefaultSpec } from './run-configs';
+import { curvatureAt, rateFamily, switchedOptimizer } from './suggest-rate';
+import { mainThreadSurface } from './surface-cache';
 import { slicePlane } from './slice-plane';
 import type { DisplaySettings, PanelSettings, RunConfig, SliceSettings, Workspace } from './workspace';
 
@@ -42,6 +44,8 @@ export interface AppState extends Workspace {
   startTarget: 'all' | 'selected';
   /** The slice point under the pointer, shared by every panel (linked hover). */
   hover: { a: number; b: number } | null;
+  /** The results table's chosen columns (null: the defaults for the surface) and sort; not saved. */
+  table: { columns: string[] | null; sort: { column: string; direction: 'ascending' | 'descending' } | null };
   actions: AppActions;
 }
 
@@ -61,6 +65,12 @@ export interface AppActions {
   setDisplay(patch: Partial<DisplaySettings>): void;
   addRun(kind?: OptimizerKind): string;
   updateRun(id: string, patch: Partial<Omit<RunConfig, 'id'>>): void;
+  /**
+   * Switches a run to another optimizer: its defaults, keeping the learning rate between kinds whose
+   * rates mean the same thing; a plain-gradient kind otherwise gets the rate suggested by the curvature
+   * at the run's start. A label that named the old optimizer names the new one.
+   */
+  changeOptimizer(id: string, kind: OptimizerKind): void;
   duplicateRun(id: string): string | null;
   removeRun(id: string): void;
   selectRun(id: string | null): void;
@@ -77,6 +87,9 @@ export interface AppActions {
   /** Replaces the table runs with one run per optimizer x learning rate cell. */
   buildTableRuns(): void;
   dismissNotice(): void;
+  /** Shows or hides a results-table column (ids from ui/table/columns.ts); `shown` is the current list. */
+  setTableColumns(columns: string[] | null): void;
+  setTableSort(sort: AppState['table']['sort']): void;
   /** Loads a whole workspace (from storage or an experiment file) and launches its runs. */
   loadWorkspace(workspace: Workspace): void;
 }
@@ -225,12 +238,14 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     const s = get();
     const n = info.variables.length;
     const sameShape = n === s.surfaceInfo.variables.length;
-    const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, 1], at: info.view.map(([lo, hi]) => (lo + hi) / 2), plane: null };
-    const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
     // A start is kept while it lies in the new surface's box; elsewhere the run would start out of view.
     const keepStart = (start: number[]) => sameShape && (keepView || insideBox(start, info.view));
     const runs = s.runs.map((r) => (keepStart(r.settings.start) ? r : { ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
-    set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs });
+    // The other variables are held at the selected (else the first) run's start, so the slice goes through a run.
+    const held = (runs.find((r) => r.id === s.selectedRunId) ?? runs[0])?.settings.start ?? info.view.map(([lo, hi]) => (lo + hi) / 2);
+    const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, 1], at: held.slice(), plane: null };
+    const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
+    set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs, table: sameShape ? s.table : { columns: null, sort: null } });
     updateReference();
     launchAll();
     requestGrid();
@@ -303,6 +318,8 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     addRun(kind = 'adam') {
       const s = get();
       const run = newRunConfig(kind, s.runs, suggestedStartOf(s));
+      const suggested = rateFamily(kind) === 'gradient' ? suggestedRateAt(s, run.settings.start) : null;
+      if (suggested !== null) run.optimizer = { ...run.optimizer, learningRate: suggested };
       set({ runs: [...s.runs, run], selectedRunId: run.id });
       launch(run);
       return run.id;
@@ -312,6 +329,14 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       if (!run) return;
       const relaunch = patch.optimizer !== undefined || patch.settings !== undefined;
       if (relaunch) launch(run);
+    },
+    changeOptimizer(id, kind) {
+      const s = get();
+      const run = s.runs.find((r) => r.id === id);
+      if (!run || run.optimizer.kind === kind) return;
+      const optimizer = switchedOptimizer(run.optimizer, kind, pageDefaultSpec(kind), suggestedRateAt(s, run.settings.start));
+      const label = run.label === optimizerLabel(run.optimizer) ? optimizerLabel(optimizer) : run.label;
+      actions.updateRun(id, { optimizer, label });
     },
     duplicateRun(id) {
       const s = get();
@@ -330,6 +355,13 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     selectRun(id) {
       set({ selectedRunId: id });
+      // A slice through two chosen variables holds the others at the selected run's current point.
+      const s = get();
+      const run = s.runs.find((r) => r.id === id);
+      if (!run || s.slice.plane || s.surfaceInfo.variables.length <= 2) return;
+      const at = runPoint(run, live);
+      if (at.length === s.slice.at.length && at.every((v, k) => v === s.slice.at[k])) return;
+      actions.setSlice({ at });
     },
     setStartTarget(startTarget) {
       set({ startTarget });
@@ -388,6 +420,12 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     dismissNotice() {
       set({ notice: null });
     },
+    setTableColumns(columns) {
+      set({ table: { ...get().table, columns: columns ? [...columns] : null } });
+    },
+    setTableSort(sort) {
+      set({ table: { ...get().table, sort } });
+    },
     loadWorkspace(workspace) {
       let info: SurfaceInfo;
       try {
@@ -397,7 +435,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
         return;
       }
       for (const r of get().runs) live.forget(r.id);
-      set({ ...workspace, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null });
+      set({ ...workspace, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null, table: { columns: null, sort: null } });
       link.send({ type: 'run/pace', pace: workspace.pace });
       updateReference();
       launchAll();
@@ -415,6 +453,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     selectedRunId: null,
     startTarget: 'all',
     hover: null,
+    table: { columns: null, sort: null },
     actions,
   }));
   actions.loadWorkspace(start);
@@ -468,6 +507,22 @@ function insideBox(point: number[], box: [number, number][]): boolean {
 
 function suggestedStart(info: SurfaceInfo): number[] {
   return info.suggestedStart ?? info.view.map(([lo, hi]) => lo + 0.25 * (hi - lo));
+}
+
+/** The rate a new plain-gradient run gets at `start`: SAFE_FRACTION of 2 / lambda_max there, or null. */
+function suggestedRateAt(s: AppState, start: number[]): number | null {
+  const surface = mainThreadSurface(s.surface);
+  return surface ? curvatureAt(surface, start)?.suggestedRate ?? null : null;
+}
+
+/** A run's current point (its last recorded one), else its start. */
+function runPoint(run: RunConfig, live: LiveRuns): number[] {
+  const b = live.trajectory(run.id);
+  if (b && b.count > 0 && b.dimension === run.settings.start.length) {
+    const x = Array.from(b.point(b.count - 1));
+    if (x.every(Number.isFinite)) return x;
+  }
+  return run.settings.start.slice();
 }
 
 function suggestedStartOf(s: AppState): number[] {

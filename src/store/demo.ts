@@ -15,7 +15,7 @@ export function demoWorkspace(): Workspace {
     label,
     style,
     optimizer,
-    settings: { start: start.slice(), seed: 1, stop: { ...DEFAULT_STOP, maxSteps: 3000 } },
+    settings: { start: start.slice(), seed: 1, stop: { ...DEFAULT_STOP } },
   });
   return {
     version: 1,

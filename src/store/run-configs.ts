@@ -3,7 +3,7 @@ import { freshId } from './ids';
 import type { RunConfig } from './workspace';
 
 /** Stop rules a new run gets: generous enough to watch, tight enough to end. */
-export const DEFAULT_STOP = { maxSteps: 2000, lossChangeTolerance: 1e-12, gradientNormTolerance: 1e-8 };
+export const DEFAULT_STOP = { maxSteps: 3000, lossChangeTolerance: 1e-12, gradientNormTolerance: 1e-8 };
 
 /** The lowest style index no other run uses, so each run keeps a distinct colour and marker. */
 export function nextStyle(runs: readonly RunConfig[]): number {

@@ -8,6 +8,7 @@ import { RunTable } from './table/RunTable';
 import { StudyArea } from './study/StudyArea';
 import { useActions, useApp } from './app-context';
 import { PanelBoundary } from './PanelBoundary';
+import { noticeMessage } from './messages';
 import { ViewArea } from './view/ViewArea';
 
 export function App() {
@@ -26,7 +27,7 @@ export function App() {
       </header>
       {notice && (
         <div className="notice" role="alert">
-          {notice}{' '}
+          {noticeMessage(notice)}{' '}
           <button type="button" onClick={() => actions.dismissNotice()}>
             Dismiss
           </button>

@@ -4,7 +4,7 @@ export { sameTree } from './ast';
 export { FormulaSyntaxError, type FormulaError } from './errors';
 export { parseFormula, type ParseOptions } from './parser';
 export { printFormula, prettyFormula } from './printer';
-export { freeNames } from './names';
+export { freeNames, naturalNameOrder } from './names';
 export { evaluateFormula, type Environment } from './evaluate';
 export { FUNCTIONS, BUILTIN_CONSTANTS, type Arity, type FunctionInfo } from './functions';
 export {

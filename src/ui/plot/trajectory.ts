@@ -55,6 +55,8 @@ export interface TrajectoryOptions {
   markerSize?: number;
   lineWidth?: number;
   layout?: Partial<PointLayout>;
+  /** What drawTrajectory paints: the line, the markers, or both (default), so several runs' markers can go over all lines. */
+  parts?: 'lines' | 'markers' | 'all';
 }
 
 export const TRAJECTORY_DEFAULTS = { minPixelStep: 0.75, clipMarginPx: 32, markerSize: 8, lineWidth: 1.75 } as const;
@@ -251,7 +253,8 @@ export function drawTrajectory(
   ctx.save();
   ctx.lineJoin = 'round';
   ctx.lineCap = 'round';
-  if (path.polylines.length) {
+  const parts = options.parts ?? 'all';
+  if (parts !== 'markers' && path.polylines.length) {
     ctx.beginPath();
     for (const { pxpy } of path.polylines) {
       ctx.moveTo(pxpy[0], pxpy[1]);
@@ -264,7 +267,7 @@ export function drawTrajectory(
     ctx.lineWidth = width;
     ctx.stroke();
   }
-  for (const m of path.markers) {
+  if (parts !== 'lines') for (const m of path.markers) {
     const paint = markerPaint(m.kind, style, markerSize);
     drawMarker(ctx, style.marker, m.at, paint.size, paint);
   }

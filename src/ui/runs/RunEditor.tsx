@@ -1,4 +1,3 @@
-import { pageDefaultSpec } from '../../store/run-configs';
 import { useId } from 'react';
 import {
   OPTIMIZERS,
@@ -22,6 +21,9 @@ import { useActions, useApp } from '../app-context';
 import { NumberField } from '../fields/NumberField';
 import { RuleEditor } from './RuleEditor';
 import { useMainThreadSurface } from '../view/use-surface';
+import { RateHint } from './RateHint';
+import { optimizerMessage, runErrorMessage, runSettingsMessage } from '../messages';
+import { reportedUnits } from '../../store/units';
 
 /** Every setting of the selected run. Edits apply (and restart the run) only when they validate. */
 export function RunEditor({ run }: { run: RunConfig }) {
@@ -39,7 +41,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
   function tryOptimizer(next: OptimizerSpec, field: string): string | null {
     const problems = validateOptimizerSpec(next);
     const mine = problems.find((p) => p.field === field) ?? problems[0];
-    if (mine) return mine.message;
+    if (mine) return optimizerMessage(mine.message, next.kind);
     actions.updateRun(run.id, { optimizer: next });
     return null;
   }
@@ -48,7 +50,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
     try {
       validateRunSettings(next, variables.length, rows);
     } catch (e) {
-      if (e instanceof SettingError) return e.message;
+      if (e instanceof SettingError) return runSettingsMessage(e.message);
       throw e;
     }
     actions.updateRun(run.id, { settings: next });
@@ -73,11 +75,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
         <select
           id={kindId}
           value={opt.kind}
-          onChange={(e) => {
-            const kind = e.target.value as OptimizerKind;
-            const next = pageDefaultSpec(kind);
-            actions.updateRun(run.id, { optimizer: next, label: run.label === optimizerLabel(opt) ? optimizerLabel(next) : run.label });
-          }}
+          onChange={(e) => actions.changeOptimizer(run.id, e.target.value as OptimizerKind)}
         >
           {OPTIMIZERS.map((o) => (
             <option key={o.kind} value={o.kind}>
@@ -90,12 +88,13 @@ export function RunEditor({ run }: { run: RunConfig }) {
       {opt.kind === 'rule' && <RuleEditor key={run.id} run={run} />}
       {runError && (
         <div className="field-error" role="alert">
-          {runError.message}
+          {runErrorMessage(runError.message, opt.kind)}
         </div>
       )}
       <fieldset>
         <legend>Step size</legend>
         <NumberField label={opt.kind === 'lbfgs' ? 'first trial step' : opt.kind === 'newton' ? 'damping factor' : 'learning rate'} value={opt.learningRate} onCommit={(v) => tryOptimizer({ ...opt, learningRate: v! }, 'learningRate')} />
+        <RateHint run={run} />
         {info.usesSchedule && (
           <>
             <div className="field">
@@ -147,7 +146,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
         )}
       </fieldset>
       <fieldset>
-        <legend>Start point</legend>
+        <legend>Start point{reportedUnits(surface).standardised ? ' (standardised coordinates)' : ''}</legend>
         {variables.map((name, i) => (
           <NumberField
             key={name}

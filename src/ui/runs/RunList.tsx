@@ -4,7 +4,7 @@ import { PACES } from '../../store/pace';
 import { useActions, useApp } from '../app-context';
 import { RunEditor } from './RunEditor';
 import { RunGlyph } from './RunGlyph';
-import { statusText } from './status-text';
+import { progressText, statusText } from './status-text';
 import { outcomeDetail } from '../../engine';
 
 /** The runs: add, select, control, duplicate, remove; the selected run's settings below. */
@@ -79,32 +79,26 @@ export function RunList() {
           const running = st?.phase === 'running';
           return (
             <li key={r.id} className={isSelected ? 'run-item selected' : 'run-item'} data-run-id={r.id}>
-              <button type="button" className="run-select" aria-pressed={isSelected} onClick={() => actions.selectRun(isSelected ? null : r.id)}>
-                <RunGlyph style={r.style} />
-                <span className="run-label">{r.label}</span>
-                <span className="run-status" data-phase={st?.phase ?? 'none'} data-outcome={st?.summary.outcome?.kind} title={st?.summary.outcome ? outcomeDetail(st.summary.outcome) : undefined}>
-                  {statusText(st)}
-                </span>
-              </button>
-              <div className="run-buttons" role="group" aria-label={`Controls of ${r.label}`}>
-                <button type="button" onClick={() => actions.control(r.id, running ? 'pause' : 'resume')} aria-label={`${running ? 'Pause' : 'Resume'} ${r.label}`}>
-                  {running ? 'Pause' : 'Play'}
+              <div className="run-head">
+                <button type="button" className="run-select" aria-pressed={isSelected} onClick={() => actions.selectRun(isSelected ? null : r.id)}>
+                  <RunGlyph style={r.style} />
+                  <span className="run-label">{r.label}</span>
                 </button>
-                <button type="button" onClick={() => actions.control(r.id, 'step')} aria-label={`One step of ${r.label}`}>
-                  Step
-                </button>
-                <button type="button" onClick={() => actions.restart(r.id)} aria-label={`Restart ${r.label}`}>
-                  Restart
-                </button>
-                <button type="button" onClick={() => actions.updateRun(r.id, { hidden: !r.hidden })} aria-label={`${r.hidden ? 'Show' : 'Hide'} ${r.label}`} aria-pressed={r.hidden === true}>
-                  {r.hidden ? 'Show' : 'Hide'}
-                </button>
-                <button type="button" onClick={() => actions.duplicateRun(r.id)} aria-label={`Duplicate ${r.label}`}>
-                  Duplicate
-                </button>
-                <button type="button" onClick={() => actions.removeRun(r.id)} aria-label={`Remove ${r.label}`}>
-                  Remove
-                </button>
+                <div className="run-buttons" role="group" aria-label={`Controls of ${r.label}`}>
+                  <IconButton label={`${running ? 'Pause' : 'Resume'} ${r.label}`} symbol={running ? '❚❚' : '▶'} onClick={() => actions.control(r.id, running ? 'pause' : 'resume')} />
+                  <IconButton label={`One step of ${r.label}`} symbol="+1" onClick={() => actions.control(r.id, 'step')} />
+                  <IconButton label={`Restart ${r.label}`} symbol="↺" onClick={() => actions.restart(r.id)} />
+                  <IconButton label={`${r.hidden ? 'Show' : 'Hide'} ${r.label}`} symbol={r.hidden ? '○' : '◉'} pressed={r.hidden === true} onClick={() => actions.updateRun(r.id, { hidden: !r.hidden })} />
+                  <IconButton label={`Duplicate ${r.label}`} symbol="⊞" onClick={() => actions.duplicateRun(r.id)} />
+                  <IconButton label={`Remove ${r.label}`} symbol="✕" onClick={() => actions.removeRun(r.id)} />
+                </div>
+              </div>
+              <div className="run-status" data-phase={st?.phase ?? 'none'} data-outcome={st?.summary.outcome?.kind} title={st?.summary.outcome ? outcomeDetail(st.summary.outcome) : undefined}>
+                {statusText(st, r.optimizer.kind)}
+              </div>
+              <div className="run-progress" data-testid="run-progress">
+                <progress max={r.settings.stop.maxSteps} value={st ? st.summary.steps : 0} aria-label={`Progress of ${r.label}`} />
+                <span>{progressText(st, r.settings.stop.maxSteps)}</span>
               </div>
             </li>
           );
@@ -112,5 +106,14 @@ export function RunList() {
       </ul>
       {selectedRun ? <RunEditor run={selectedRun} /> : <p className="hint">Select a run to edit its settings.</p>}
     </section>
+  );
+}
+
+/** A small button showing a symbol; its accessible name (and tooltip) says what it does to which run. */
+function IconButton({ label, symbol, onClick, pressed }: { label: string; symbol: string; onClick(): void; pressed?: boolean }) {
+  return (
+    <button type="button" className="icon-button" onClick={onClick} aria-label={label} title={label} aria-pressed={pressed}>
+      <span aria-hidden="true">{symbol}</span>
+    </button>
   );
 }

@@ -4,6 +4,7 @@ import { buildSurface, type FormulaSpec } from '../../problems';
 import { useActions } from '../app-context';
 import { CaretProblem } from '../fields/CaretProblem';
 import { parseConstants, formatConstants } from './constants-text';
+import { surfaceMessage } from '../messages';
 
 interface Problem {
   where: 'formula' | 'constants' | 'variables';
@@ -35,7 +36,7 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
       buildSurface(spec);
     } catch (e) {
       if (e instanceof FormulaSyntaxError) return setProblems(e.errors.map((span) => ({ where: 'formula', message: span.message, span })));
-      return setProblems([{ where: 'formula', message: e instanceof Error ? e.message : String(e) }]);
+      return setProblems([{ where: 'formula', message: surfaceMessage(e instanceof Error ? e.message : String(e)) }]);
     }
     setProblems([]);
     actions.setSurface(spec);
@@ -65,7 +66,7 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
         />
         <div id={`${id}-formula-errors`}>
           {of('formula').map((p, k) => (
-            <FormulaProblem key={k} text={text} problem={p} />
+            <FormulaProblem key={k} text={text} message={p.message} span={p.span} />
           ))}
         </div>
       </div>
@@ -96,7 +97,6 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
 }
 
 /** The message, then the formula with a row of carets under the offending columns. */
-function FormulaProblem({ text, problem }: { text: string; problem: Problem }) {
-  const span = problem.span;
-  return <CaretProblem message={problem.message} line={span ? text : undefined} start={span?.start} end={span?.end} />;
+export function FormulaProblem({ text, message, span }: { text: string; message: string; span?: FormulaError }) {
+  return <CaretProblem message={message} line={span ? text : undefined} start={span?.start} end={span?.end} />;
 }

@@ -121,12 +121,13 @@ export function SliceControls() {
               </button>
             )}
           </div>
-          {variables.length <= 12 &&
-            variables.map((v, k) =>
+          <div className="held-values" role="group" aria-label={`Held values of the other ${variables.length - 2} variables`} data-testid="held-values">
+            {variables.map((v, k) =>
               k === i || k === j ? null : (
                 <NumberField key={v} compact label={`${v} held at`} value={slice.at[k]} onCommit={(x) => (actions.setSlice({ at: slice.at.map((old, m) => (m === k ? x! : old)) }), null)} />
               ),
             )}
+          </div>
         </>
       )}
       <div className="field field-compact">

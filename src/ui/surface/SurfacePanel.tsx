@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
 import { CATALOGUE, catalogueEntry, type SurfaceSpec } from '../../problems';
+import { surfaceMessage } from '../messages';
 import { DataFitEditor } from './datafit/DataFitEditor';
 import { useActions, useApp } from '../app-context';
 import { ConstantSliders } from './ConstantSliders';
@@ -55,7 +56,7 @@ export function SurfacePanel() {
       )}
       {surfaceError && (
         <div className="field-error" role="alert">
-          {surfaceError}
+          {surfaceMessage(surfaceError)}
         </div>
       )}
       <ConstantSliders />

@@ -1,23 +1,46 @@
-import { outcomeDetail, outcomeLabel } from '../../engine';
-import { formatValue } from '../plot';
+import { useMemo, useState } from 'react';
+import { reportedUnits } from '../../store/units';
 import { useActions, useApp } from '../app-context';
 import { NumberField } from '../fields/NumberField';
 import { RunGlyph } from '../runs/RunGlyph';
+import { useMainThreadSurface } from '../view/use-surface';
+import { defaultColumnIds, fullNumber, nextSort, resultColumns, sortRows, tableTsv, type ResultColumn } from './columns';
+import { resultRows } from './rows';
 
-/** One row per run: how it ended, how far it got, and how close to a known minimum. */
+/** One row per run: how it ended, how far it got, and how close to a known minimum (original units). */
 export function RunTable() {
   const actions = useActions();
   const runs = useApp((s) => s.runs);
   const status = useApp((s) => s.status);
   const info = useApp((s) => s.surfaceInfo);
   const tolerance = useApp((s) => s.tolerance);
-  const minima = info.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min');
+  const table = useApp((s) => s.table);
+  const spec = useApp((s) => s.surface);
+  const surface = useMainThreadSurface(spec);
+  const units = useMemo(() => reportedUnits(surface), [surface]);
   const hasGlobal = info.knownPoints.some((p) => p.kind === 'global-min');
+  const all = useMemo(() => resultColumns(info.variables), [info.variables]);
+  const chosen = table.columns ?? defaultColumnIds(info.variables, hasGlobal);
+  const columns = all.filter((c) => chosen.includes(c.id));
+  const rows = sortRows(resultRows({ runs, status, surfaceInfo: info }, units), all, table.sort);
+  const [copied, setCopied] = useState<string | null>(null);
+
+  const toggle = (id: string) => actions.setTableColumns(chosen.includes(id) ? chosen.filter((c) => c !== id) : all.filter((c) => c.id === id || chosen.includes(c.id)).map((c) => c.id));
+  const sortOf = (c: ResultColumn) => (table.sort?.column === c.id ? table.sort.direction : 'none');
+  async function copy() {
+    try {
+      await navigator.clipboard.writeText(tableTsv(rows, columns));
+      setCopied('copied at full precision');
+    } catch {
+      setCopied('the browser did not allow copying');
+    }
+  }
 
   return (
     <section className="panel table-panel" aria-label="Results">
       <div className="panel-head">
         <h2>Results</h2>
+        {units.standardised && <span className="field-help">in the data's original units</span>}
         {hasGlobal && (
           <NumberField
             compact
@@ -30,55 +53,83 @@ export function RunTable() {
             }}
           />
         )}
+        <details className="column-chooser">
+          <summary>Columns ({columns.length} of {all.length})</summary>
+          <fieldset>
+            <legend>Show columns</legend>
+            {all.map((c) => (
+              <label key={c.id} className="chip">
+                <input type="checkbox" checked={chosen.includes(c.id)} onChange={() => toggle(c.id)} /> {c.label}
+              </label>
+            ))}
+            <button type="button" onClick={() => actions.setTableColumns(null)}>
+              Default columns
+            </button>
+          </fieldset>
+        </details>
+        <button type="button" onClick={copy} title="Copy the shown columns as tab-separated text with every digit">
+          Copy table
+        </button>
+        {copied && <span className="field-help" role="status">{copied}</span>}
       </div>
       <div className="table-scroll">
-        <table className="run-table" data-testid="run-table">
+        <table
+          className="run-table"
+          data-testid="run-table"
+          onCopy={(e) => {
+            // A selection in the table copies the rows it touches at full precision, not the compact text.
+            const selection = window.getSelection();
+            if (!selection || selection.isCollapsed) return;
+            const picked = rows.filter((r) => {
+              const tr = e.currentTarget.querySelector(`tr[data-run-id="${CSS.escape(r.id)}"]`);
+              return tr && selection.containsNode(tr, true);
+            });
+            if (!picked.length) return;
+            e.preventDefault();
+            e.clipboardData.setData('text/plain', tableTsv(picked, columns));
+          }}
+        >
           <thead>
             <tr>
               <th scope="col">Run</th>
-              <th scope="col">Outcome</th>
-              <th scope="col">Steps</th>
-              <th scope="col">Final loss</th>
-              <th scope="col">Final point</th>
-              <th scope="col">Nearest known min.</th>
-              <th scope="col" title="First step whose loss came within the tolerance of the lowest known minimum">Steps to min. ± tol.</th>
-              <th scope="col" title="Surface evaluations, line searches included">Evals</th>
+              {columns.map((c) => (
+                <th key={c.id} scope="col" aria-sort={sortOf(c)} data-col={c.id} title={c.title}>
+                  <button type="button" className="sort-button" onClick={() => actions.setTableSort(nextSort(table.sort, c.id))}>
+                    {c.label}
+                    <span aria-hidden="true">{sortOf(c) === 'ascending' ? ' ▲' : sortOf(c) === 'descending' ? ' ▼' : ''}</span>
+                  </button>
+                </th>
+              ))}
             </tr>
           </thead>
           <tbody>
-            {runs.map((r) => {
-              const st = status[r.id];
-              const s = st?.summary;
-              const near = s?.nearestMinimum ? minima[s.nearestMinimum.index] : null;
-              return (
-                <tr key={r.id} data-run-id={r.id}>
-                  <th scope="row">
-                    <RunGlyph style={r.style} /> {r.label}
-                  </th>
-                  <td data-col="outcome" data-outcome={s?.outcome?.kind} title={s?.outcome ? outcomeDetail(s.outcome) : undefined}>{st?.phase === 'error' ? `error: ${st.error?.message}` : s?.outcome ? outcomeLabel(s.outcome) : st ? st.phase : '—'}</td>
-                  <td data-col="steps">{s ? s.steps : '—'}</td>
-                  <td data-col="final-loss" data-value={s ? String(s.finalLoss) : ''}>
-                    {s && Number.isFinite(s.finalLoss) ? formatValue(s.finalLoss) : '—'}
-                  </td>
-                  <td data-col="final-point" className="mono">
-                    {s?.finalPoint.length ? pointText(s.finalPoint) : '—'}
-                  </td>
-                  <td data-col="nearest">
-                    {near && s?.nearestMinimum ? `${formatValue(s.nearestMinimum.distance)} from (${near.point.map(formatValue).join(', ')})` : '—'}
-                  </td>
-                  <td data-col="steps-to-tolerance">{!hasGlobal ? 'no known minimum' : s?.stepsToTolerance ?? 'not yet'}</td>
-                  <td data-col="evaluations">{st?.evaluations ?? '—'}</td>
-                </tr>
-              );
-            })}
+            {rows.map((r) => (
+              <tr key={r.id} data-run-id={r.id}>
+                <th scope="row" title={r.label}>
+                  <RunGlyph style={r.style} /> {r.label}
+                </th>
+                {columns.map((c) => {
+                  const v = c.value(r);
+                  const full = v === null ? undefined : typeof v === 'number' ? fullNumber(v) : v;
+                  const title = c.id === 'outcome' ? r.outcomeTitle : full;
+                  return (
+                    <td
+                      key={c.id}
+                      data-col={c.id}
+                      data-value={full ?? ''}
+                      data-outcome={c.id === 'outcome' ? r.outcomeKind : undefined}
+                      className={c.numeric || c.id === 'final-point' || c.id === 'nearest' ? 'mono num' : undefined}
+                      title={title}
+                    >
+                      {c.text(r)}
+                    </td>
+                  );
+                })}
+              </tr>
+            ))}
           </tbody>
         </table>
       </div>
     </section>
   );
-}
-
-/** A point as text; long parameter vectors are shortened (the CSV export has every coordinate). */
-function pointText(x: number[]): string {
-  return x.length <= 4 ? `(${x.map(formatValue).join(', ')})` : `(${x.slice(0, 3).map(formatValue).join(', ')}, … ${x.length} values)`;
 }

@@ -1,5 +1,7 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from 'react';
-import { slicePlane, slicePoint, sliceTitles } from '../../store/slice-plane';
+import { slicePlane, slicePoint } from '../../store/slice-plane';
+import { reportedUnits } from '../../store/units';
+import { axisTitles } from './axis-titles';
 import { gradientArrows, panBy, zoomAt, type Arrow } from '../plot';
 import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
 import { canvasToFrame, frameLayout, frameTransform, insideFrame, roundToView } from './frame';
@@ -52,7 +54,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const layout = useMemo(() => (size ? frameLayout(size, !compact) : null), [size, compact]);
   const picture = useSurfacePicture(grid, display, info.logScaleOffset);
   const n = info.variables.length;
-  const titles = sliceTitles(slice, info.variables);
+  const titles = axisTitles(slice, info.variables, reportedUnits(surface));
   const knownPoints = useMemo(() => knownPointsOnSlice({ slice, surfaceInfo: info, display, runs, selectedRunId: selected }), [slice, info, display, runs, selected]);
 
   const arrows: Arrow[] = useMemo(() => {

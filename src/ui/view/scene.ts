@@ -92,13 +92,16 @@ export function drawOverlay(ctx: DrawingContext, overlay: OverlayLayer): void {
   ctx.beginPath();
   ctx.rect(0, 0, layout.frame.width, layout.frame.height);
   ctx.clip();
-  for (const tr of overlay.trajectories) {
-    drawTrajectory(ctx, tr.points, tr.count, t, tr.style, {
-      layout: tr.layout,
-      markerEvery: markerInterval(tr.count),
-      lineWidth: tr.selected ? 2.75 : 1.75,
-    });
-  }
+  // Every line first, then every run's markers, so no run's start, steps or end hide under another's line.
+  for (const parts of ['lines', 'markers'] as const)
+    for (const tr of overlay.trajectories) {
+      drawTrajectory(ctx, tr.points, tr.count, t, tr.style, {
+        layout: tr.layout,
+        markerEvery: markerInterval(tr.count),
+        lineWidth: tr.selected ? 2.75 : 1.75,
+        parts,
+      });
+    }
   if (overlay.hover) {
     const p = t.toPixel(overlay.hover);
     ctx.strokeStyle = 'rgba(255,255,255,0.8)';

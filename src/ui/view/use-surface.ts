@@ -1,26 +1,9 @@
 import { useMemo } from 'react';
 import type { Surface } from '../../engine';
-import { buildSurface, type SurfaceSpec } from '../../problems';
+import type { SurfaceSpec } from '../../problems';
+import { mainThreadSurface } from '../../store/surface-cache';
 
-const built = new WeakMap<SurfaceSpec, Surface | null>();
-
-/**
- * The surface of a spec built on the page, once per spec object (the store replaces a spec, never
- * changes it in place, so identity is enough; comparing text would stringify a data-fit spec's whole
- * table on every render). Null when it does not build.
- */
-export function mainThreadSurface(spec: SurfaceSpec): Surface | null {
-  if (!built.has(spec)) {
-    let surface: Surface | null = null;
-    try {
-      surface = buildSurface(spec);
-    } catch {
-      // The store only holds specs that build; a spec that does not simply has no surface here.
-    }
-    built.set(spec, surface);
-  }
-  return built.get(spec)!;
-}
+export { mainThreadSurface };
 
 /**
  * The current surface for single-point work only (the hover readout, the arrow lattice, the data view);

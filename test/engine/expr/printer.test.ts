@@ -106,3 +106,14 @@ describe('freeNames', () => {
     expect(freeNames(reparse('2 + pi'))).toEqual([]);
   });
 });
+
+describe('naturalNameOrder', () => {
+  it('orders digit runs by value: x1, x2, ..., x10, x11', async () => {
+    const { naturalNameOrder } = await import('../../../src/engine/expr');
+    const names = Array.from({ length: 12 }, (_, k) => `x${k + 1}`);
+    expect([...names].sort()).not.toEqual(names);
+    expect([...names].reverse().sort(naturalNameOrder)).toEqual(names);
+    expect(['w_10', 'w_9', 'B', 'a', 'x01', 'x1', 'x'].sort(naturalNameOrder)).toEqual(['B', 'a', 'w_9', 'w_10', 'x', 'x1', 'x01']);
+    expect(freeNames(reparse('x10 + x2 + x1'))).toEqual(['x1', 'x2', 'x10']);
+  });
+});

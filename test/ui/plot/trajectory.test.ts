@@ -123,4 +123,15 @@ describe('drawTrajectory', () => {
     expect(fills).toEqual(['#ffffff', style.colour]); // hollow start, filled end
     expect(ctx.depth).toBe(0);
   });
+  it('paints only the line or only the markers when asked', () => {
+    const style = runStyle(0);
+    const pts = Float64Array.from([-0.5, -0.5, 0, 0, 0.5, 0.2]);
+    const lines = new RecordingContext();
+    drawTrajectory(lines, pts, 3, t, style, { parts: 'lines' });
+    expect(lines.paints.map((p) => p.op)).toEqual(['stroke', 'stroke']);
+    const markers = new RecordingContext();
+    drawTrajectory(markers, pts, 3, t, style, { parts: 'markers' });
+    expect(markers.paints.filter((p) => p.op === 'fill').map((p) => p.colour)).toEqual(['#ffffff', style.colour]);
+    expect(markers.paints.filter((p) => p.op === 'stroke' && p.lineWidth > 3)).toEqual([]);
+  });
 });

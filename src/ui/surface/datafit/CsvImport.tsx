@@ -1,12 +1,13 @@
 import { useId, useState } from 'react';
 import type { CsvImport as CsvImportResult, TableDatasetSpec } from '../../../problems';
 import { useActions } from '../../app-context';
+import { csvFailureText, csvProblemText } from '../../messages';
 
 /**
  * Import a CSV file: parsed in the worker with a progress bar; rows that cannot be read are listed by
  * row number (the header is row 1) and can be dropped, after which the table is offered for fitting.
  */
-export function CsvImport({ onTable }: { onTable(table: TableDatasetSpec): void }) {
+export function CsvImport({ onTable, onFailed }: { onTable(table: TableDatasetSpec): void; /** The file could not be imported (nothing usable to offer). */ onFailed(): void }) {
   const actions = useActions();
   const id = useId();
   const [file, setFile] = useState<{ name: string; text: string } | null>(null);
@@ -21,6 +22,7 @@ export function CsvImport({ onTable }: { onTable(table: TableDatasetSpec): void 
     setProgress(null);
     setResult(r);
     if (r.ok && (r.problems.length === 0 || dropBadRows)) onTable(r.dataset);
+    else onFailed();
   }
 
   return (
@@ -60,7 +62,7 @@ export function CsvImport({ onTable }: { onTable(table: TableDatasetSpec): void 
       )}
       {result && !result.ok && (
         <div className="field-error" role="alert" data-testid="csv-error">
-          {file?.name}: {result.message}
+          {file?.name}: {csvFailureText(result)}
         </div>
       )}
       {result && result.problems.length > 0 && (
@@ -70,10 +72,7 @@ export function CsvImport({ onTable }: { onTable(table: TableDatasetSpec): void 
             : `${result.problems.length + result.moreProblems} value${result.problems.length + result.moreProblems === 1 ? '' : 's'} could not be read (tick "drop rows" to leave those rows out):`}
           <ul>
             {result.problems.slice(0, 8).map((p, k) => (
-              <li key={k}>
-                row {p.row}, column {p.column}: {p.reason}
-                {p.value ? ` ("${p.value}")` : ''}
-              </li>
+              <li key={k}>{csvProblemText(p)}</li>
             ))}
             {result.problems.length + result.moreProblems > 8 && <li>and {result.problems.length + result.moreProblems - 8} more</li>}
           </ul>

@@ -3,7 +3,10 @@ import { DEMO_DATASETS, NIST_DATASET_IDS, buildSurface, type DataFitSpec, type D
 import { useActions } from '../../app-context';
 import { NumberField } from '../../fields/NumberField';
 import { CsvImport } from './CsvImport';
-import { datasetColumns, draftFor, specOfDraft, tableLabel, type DataFitDraft } from './draft';
+import { FormulaSyntaxError, type FormulaError } from '../../../engine';
+import { surfaceMessage } from '../../messages';
+import { FormulaProblem } from '../FormulaEditor';
+import { datasetColumns, draftFor, headFor, specOfDraft, tableLabel, type DataFitDraft } from './draft';
 
 const MODELS: { kind: ModelKind; label: string }[] = [
   { kind: 'linear', label: 'Linear regression (least squares)' },
@@ -23,7 +26,7 @@ export function DataFitEditor({ initial }: { initial: DataFitSpec | null }) {
   const id = useId();
   const [draft, setDraft] = useState<DataFitDraft>(() => (initial ? fromSpec(initial) : draftFor({ kind: 'demo', id: 'probe-calibration' })));
   const [imported, setImported] = useState<TableDatasetSpec | null>(initial?.dataset.kind === 'table' ? initial.dataset : null);
-  const [problem, setProblem] = useState<{ field: string; message: string } | null>(null);
+  const [problem, setProblem] = useState<{ field: string; message: string; spans?: FormulaError[] } | null>(null);
   const { columns } = datasetColumns(draft.dataset);
   const patch = (p: Partial<DataFitDraft>) => setDraft((d) => ({ ...d, ...p }));
 
@@ -43,7 +46,8 @@ export function DataFitEditor({ initial }: { initial: DataFitSpec | null }) {
     try {
       buildSurface(result.spec);
     } catch (e) {
-      return setProblem({ field: 'model', message: e instanceof Error ? e.message : String(e) });
+      if (e instanceof FormulaSyntaxError && draft.model === 'formula') return setProblem({ field: 'formula', message: e.message, spans: e.errors });
+      return setProblem({ field: 'model', message: surfaceMessage(e instanceof Error ? e.message : String(e)) });
     }
     setProblem(null);
     actions.setSurface(result.spec);
@@ -91,6 +95,11 @@ export function DataFitEditor({ initial }: { initial: DataFitSpec | null }) {
           setImported(t);
           setDraft(draftFor(t));
         }}
+        onFailed={() => {
+          // The menu offers only what the last import produced: a failed one leaves no file to choose.
+          setImported(null);
+          if (draft.dataset.kind === 'table') setDraft(draftFor({ kind: 'demo', id: 'probe-calibration' }));
+        }}
       />
       <fieldset>
         <legend>Inputs</legend>
@@ -105,7 +114,7 @@ export function DataFitEditor({ initial }: { initial: DataFitSpec | null }) {
       </fieldset>
       <div className="field">
         <label htmlFor={`${id}-target`}>Target</label>
-        <select id={`${id}-target`} value={draft.target} onChange={(e) => patch({ target: e.target.value, inputs: draft.inputs.filter((x) => x !== e.target.value) })}>
+        <select id={`${id}-target`} value={draft.target} onChange={(e) => patch({ target: e.target.value, inputs: draft.inputs.filter((x) => x !== e.target.value), head: headFor(draft.dataset, e.target.value) })}>
           {columns.map((c) => (
             <option key={c} value={c}>
               {c}
@@ -161,7 +170,16 @@ export function DataFitEditor({ initial }: { initial: DataFitSpec | null }) {
         <>
           <div className="field">
             <label htmlFor={`${id}-formula`}>Model formula</label>
-            <input id={`${id}-formula`} className="mono" type="text" spellCheck={false} value={draft.formula} onChange={(e) => patch({ formula: e.target.value })} />
+            <input
+              id={`${id}-formula`}
+              className="mono"
+              type="text"
+              spellCheck={false}
+              value={draft.formula}
+              aria-invalid={problem?.field === 'formula' || undefined}
+              onChange={(e) => patch({ formula: e.target.value })}
+            />
+            {problem?.field === 'formula' && (problem.spans ?? [null]).map((span, k) => <FormulaProblem key={k} text={draft.formula} message={span?.message ?? problem.message} span={span ?? undefined} />)}
           </div>
           <div className="field field-compact">
             <label htmlFor={`${id}-params`}>Parameters</label>

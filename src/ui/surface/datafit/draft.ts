@@ -41,6 +41,20 @@ export function datasetColumns(dataset: DatasetSpec): { columns: string[]; input
   return { columns: [...dataset.columns], inputs: dataset.columns.slice(0, -1), target: dataset.columns[dataset.columns.length - 1] };
 }
 
+/** Classes of a dataset's column: the count of its category labels, 0 for a numeric column. */
+export function classCount(dataset: DatasetSpec, column: string): number {
+  if (dataset.kind === 'demo') return DEMO_DATASETS[dataset.id].categories?.[column]?.length ?? 0;
+  if (dataset.kind === 'iris') return column === 'species' ? 3 : 0;
+  if (dataset.kind === 'table') return dataset.categories?.[column]?.length ?? 0;
+  return 0;
+}
+
+/** A network's output for a target: two classes a logistic (cross-entropy) head, more a softmax one, numbers a regression. */
+export function headFor(dataset: DatasetSpec, target: string): DataFitDraft['head'] {
+  const k = classCount(dataset, target);
+  return k === 0 ? 'regression' : k === 2 ? 'binary' : 'softmax';
+}
+
 export function draftFor(dataset: DatasetSpec): DataFitDraft {
   const { inputs, target } = datasetColumns(dataset);
   const base: DataFitDraft = {
@@ -51,7 +65,7 @@ export function draftFor(dataset: DatasetSpec): DataFitDraft {
     loss: 'mse',
     hidden: '6',
     activation: 'tanh',
-    head: 'regression',
+    head: headFor(dataset, target),
     formula: `b1 * (1 - exp(-b2 * ${formulaName(inputs[0])}))`,
     parameters: 'b1, b2',
     start: '',
