@@ -1,4 +1,4 @@
-import { optimizerInfo, outcomeDetail, outcomeLabel } from '../../engine';
+import { optimizerLabel, outcomeDetail, outcomeLabel } from '../../engine';
 import type { AppState } from '../../store/app-store';
 import type { ReportedUnits } from '../../store/units';
 import type { ResultRow } from './columns';
@@ -21,7 +21,7 @@ export function resultRows(s: Pick<AppState, 'runs' | 'status' | 'surfaceInfo'>,
       id: r.id,
       label: r.label,
       style: r.style,
-      optimizer: optimizerInfo(r.optimizer.kind).label,
+      optimizer: optimizerLabel(r.optimizer),
       learningRate: r.optimizer.learningRate,
       outcome,
       outcomeKind: sum?.outcome?.kind,
