@@ -9,7 +9,7 @@ import { formulaGradRatios, formulaVsMathjs } from './formula';
 import { gridVsHandwritten } from './grid';
 import { datafitGridVsHandwritten, datafitSlice } from './datafit';
 import { poolSpeedup } from './pool';
-import { sweepBench } from './sweep';
+import { bundledSweepBench } from './sweep-bundle';
 
 const TARGETS = {
   formula_grad_vs_handwritten: 0.5,
@@ -32,7 +32,7 @@ const grid = gridVsHandwritten();
 const datafit = datafitGridVsHandwritten();
 const slice = datafitSlice();
 const pool = await poolSpeedup(slice.spec, slice.grid);
-const sweep = sweepBench();
+const sweep = await bundledSweepBench();
 
 const ratios = {
   // The worst case over the functions measured, so a target met here is met for each.

@@ -4,7 +4,7 @@ import type { Optimizer, Oracle, StepContext, StepReport } from '../optim/types'
 import { createRng, type RngState } from '../rng';
 import { nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrigger, startOutcome, type PointFinding } from '../run/checks';
 import { judgeEnd, type EndFacts, type EndTrigger } from '../run/end-state';
-import { addNoise, countingSurface, noisyOracle } from '../run/oracle';
+import { addNoise, addNoiseAt, countingSurface, noisyOracle } from '../run/oracle';
 import type { RunOutcome } from '../run/outcome';
 import { MILESTONES, RECENT_POINTS, recordRecent, recordRecentAt, type RecentPath } from '../run/recent';
 import type { StopRules } from '../run/settings';
@@ -135,53 +135,65 @@ export class Sweep {
     // One optimizer per distinct learning rate: an Optimizer keeps its run's state in `state`, its
     // closures only scratch buffers that each step fills before reading, so runs can share it.
     const byRate = new Map<number, Optimizer>();
-    const optimizerFor = (lr: number) => {
+    for (let r = 0; r < count; r++) {
+      const lr = plan.learningRates ? plan.learningRates[r] : plan.optimizer.learningRate;
       let o = byRate.get(lr);
       if (!o) byRate.set(lr, (o = buildOptimizer({ ...plan.optimizer, learningRate: lr })));
-      return o;
-    };
+      this.optimizers.push(o);
+    }
+    const shared = byRate.size === 1 ? [...byRate.values()][0] : null;
+    const blockPath = shared !== null && isChainOptimizer(shared) && shared.transforms.every((tr) => tr.elementwise);
+    // Each run's generator, seeded as RunCursor seeds it (drawn from only for gradient noise).
+    if (!blockPath || this.noise > 0) for (let r = 0; r < count; r++) this.rngs.push(createRng(plan.seeds ? plan.seeds[r] : (plan.seed ?? 0)));
+    // Run by run, each run gets its views, step context and oracle now; on the block path only runs
+    // that end get views, when they end (facts), so thousands of runs make no objects up front.
+    if (!blockPath)
+      for (let r = 0; r < count; r++) {
+        this.views(r);
+        this.contexts.push({ t: 0, loss: 0, oracle: noisyOracle(surface, this.noise, { rng: this.rngs[r] }) });
+      }
+    const sx = this.scratchX;
+    const sg = this.scratchGrad;
     for (let r = 0; r < count; r++) {
-      const lo = r * n;
-      const hi = lo + n;
-      const x = this.x.subarray(lo, hi);
-      const grad = this.grad.subarray(lo, hi);
-      const x0 = this.x0.subarray(lo, hi);
-      const recent: RecentPath = {
-        points: this.ringPoints.subarray(r * RECENT_POINTS * n, (r + 1) * RECENT_POINTS * n),
-        loss: this.ringLoss.subarray(r * RECENT_POINTS, (r + 1) * RECENT_POINTS),
-        filled: 0,
-        distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES),
-      };
-      const optimizer = optimizerFor(plan.learningRates ? plan.learningRates[r] : plan.optimizer.learningRate);
-      const rng = createRng(plan.seeds ? plan.seeds[r] : (plan.seed ?? 0));
-      this.xs.push(x);
-      this.grads.push(grad);
-      this.works.push(this.work.subarray(lo, hi));
-      this.x0s.push(x0);
-      this.recents.push(recent);
-      this.optimizers.push(optimizer);
-      this.rngs.push(rng);
-      // The start, as RunCursor's constructor evaluates and checks it.
-      const loss = surface.valueGradient(x, grad);
+      // The start, as RunCursor's constructor evaluates and checks it (through a scratch copy).
+      const o = r * n;
+      for (let i = 0; i < n; i++) sx[i] = this.x[o + i];
+      const loss = surface.valueGradient(sx, sg);
+      for (let i = 0; i < n; i++) this.grad[o + i] = sg[i];
       this.loss[r] = loss;
       this.initialLoss[r] = loss;
-      this.initialGradNorm[r] = norm2(grad);
+      this.initialGradNorm[r] = norm2(sg);
       this.evaluations[r] = 1;
-      recordRecent(recent, 0, x, loss, x0);
-      this.states.push(null);
-      this.contexts.push({ t: 0, loss, oracle: noisyOracle(surface, this.noise, { rng }) });
+      recordRecentAt(this.ringPoints, o * RECENT_POINTS, this.ringLoss, r * RECENT_POINTS, this.milestones, r * MILESTONES, 0, this.x, o, n, loss, this.x0, o);
       if (loss <= this.lossTolerance) this.stepsToTolerance[r] = 0;
-      let outcome = startOutcome(surface, x, loss, grad);
+      let outcome = startOutcome(surface, sx, loss, sg);
       if (!outcome) {
-        const finding = pointFinding(x, grad, loss, loss, this.stop);
+        const finding = pointFindingAt(this.x, this.grad, o, n, loss, loss, this.stop);
         if (finding !== 'ok') outcome = this.pointEnd(r, finding);
       }
       this.outcomes[r] = outcome;
       if (!outcome) this.live[this.liveCount++] = r;
     }
-    const shared = byRate.size === 1 ? [...byRate.values()][0] : null;
-    this.blocks = shared && isChainOptimizer(shared) && shared.transforms.every((tr) => tr.elementwise) ? this.makeBlocks(shared) : null;
-    if (!this.blocks) for (let r = 0; r < count; r++) this.states[r] = this.optimizers[r].init(Float64Array.from(this.xs[r]));
+    this.blocks = blockPath ? this.makeBlocks(shared as ChainOptimizer) : null;
+    if (!this.blocks) for (let r = 0; r < count; r++) this.states.push(this.optimizers[r].init(Float64Array.from(this.xs[r])));
+  }
+
+  /** Run r's subarray views and recent-path record over the flat arrays, made on first use. */
+  private views(r: number): void {
+    if (this.xs[r]) return;
+    const n = this.dimension;
+    const lo = r * n;
+    const hi = lo + n;
+    this.xs[r] = this.x.subarray(lo, hi);
+    this.grads[r] = this.grad.subarray(lo, hi);
+    this.works[r] = this.work.subarray(lo, hi);
+    this.x0s[r] = this.x0.subarray(lo, hi);
+    this.recents[r] = {
+      points: this.ringPoints.subarray(r * RECENT_POINTS * n, (r + 1) * RECENT_POINTS * n),
+      loss: this.ringLoss.subarray(r * RECENT_POINTS, (r + 1) * RECENT_POINTS),
+      filled: 0,
+      distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES),
+    };
   }
 
   private makeBlocks(o: ChainOptimizer): Blocks {
@@ -272,6 +284,7 @@ export class Sweep {
     const live = this.live;
     const liveCount = this.liveCount;
     const noise = this.noise;
+    const n = this.dimension;
     const t = this.rounds + 1;
     const learningRate = b.rate.learningRate(t);
     let kept = 0;
@@ -283,7 +296,7 @@ export class Sweep {
       while (stop < liveCount && live[stop] < end) stop++;
       const work = b.work[block];
       work.set(b.grad[block]);
-      if (noise > 0) for (let j = k; j < stop; j++) addNoise(this.works[live[j]], noise, this.rngs[live[j]]);
+      if (noise > 0) for (let j = k; j < stop; j++) addNoiseAt(work, (live[j] - block * BLOCK) * n, n, noise, this.rngs[live[j]]);
       applyTransforms(b.transforms, b.states[block], work, b.x[block], t);
       kept = this.blockSteps(k, stop, kept, t, learningRate);
       k = stop;
@@ -393,6 +406,7 @@ export class Sweep {
   private facts(r: number): EndFacts {
     // Every run is recorded at each step from 0, so its ring holds min(RECENT_POINTS, t + 1) points
     // (the block path records through recordRecentAt and leaves the count to here).
+    this.views(r);
     this.recents[r].filled = Math.min(RECENT_POINTS, this.steps[r] + 1);
     return {
       t: this.steps[r],
