@@ -6,7 +6,7 @@ import { nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrig
 import { judgeEnd, type EndFacts, type EndTrigger } from '../run/end-state';
 import { addNoise, addNoiseAt, countingSurface, noisyOracle } from '../run/oracle';
 import type { RunOutcome } from '../run/outcome';
-import { MILESTONES, RECENT_POINTS, recordRecent, recordRecentAt, type RecentPath } from '../run/recent';
+import { MILESTONES, RECENT_POINTS, recordRecentAt, type RecentPath } from '../run/recent';
 import type { StopRules } from '../run/settings';
 import type { Surface } from '../surface';
 import { norm2 } from '../vector';
@@ -93,7 +93,6 @@ export class Sweep {
   private readonly grads: Float64Array[] = [];
   private readonly works: Float64Array[] = [];
   private readonly x0s: Float64Array[] = [];
-  private readonly recents: RecentPath[] = [];
   private readonly optimizers: Optimizer[] = [];
   private readonly states: unknown[] = [];
   private readonly rngs: RngState[] = [];
@@ -164,7 +163,7 @@ export class Sweep {
       this.initialLoss[r] = loss;
       this.initialGradNorm[r] = norm2(sg);
       this.evaluations[r] = 1;
-      recordRecentAt(this.ringPoints, o * RECENT_POINTS, this.ringLoss, r * RECENT_POINTS, this.milestones, r * MILESTONES, 0, this.x, o, n, loss, this.x0, o);
+      recordRecentAt(this.ringPoints, o, count * n, this.ringLoss, r, count, this.milestones, r * MILESTONES, 0, this.x, o, n, loss, this.x0, o);
       if (loss <= this.lossTolerance) this.stepsToTolerance[r] = 0;
       let outcome = startOutcome(surface, sx, loss, sg);
       if (!outcome) {
@@ -188,12 +187,6 @@ export class Sweep {
     this.grads[r] = this.grad.subarray(lo, hi);
     this.works[r] = this.work.subarray(lo, hi);
     this.x0s[r] = this.x0.subarray(lo, hi);
-    this.recents[r] = {
-      points: this.ringPoints.subarray(r * RECENT_POINTS * n, (r + 1) * RECENT_POINTS * n),
-      loss: this.ringLoss.subarray(r * RECENT_POINTS, (r + 1) * RECENT_POINTS),
-      filled: 0,
-      distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES),
-    };
   }
 
   private makeBlocks(o: ChainOptimizer): Blocks {
@@ -326,6 +319,7 @@ export class Sweep {
     const stopRules = this.stop;
     const calmRule = stopRules.lossChangeTolerance !== undefined;
     const tol = this.lossTolerance;
+    const ringStride = this.count * n;
     for (let j = from; j < to; j++) {
       const r = live[j];
       const o = r * n;
@@ -337,7 +331,7 @@ export class Sweep {
       this.evaluations[r] += 1;
       this.steps[r] = t;
       if (loss <= tol && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
-      recordRecentAt(this.ringPoints, r * RECENT_POINTS * n, this.ringLoss, r * RECENT_POINTS, this.milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
+      recordRecentAt(this.ringPoints, o, ringStride, this.ringLoss, r, this.count, this.milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
       const finding = pointFindingAt(X, G, o, n, loss, this.initialLoss[r], stopRules);
       if (finding !== 'ok') {
         this.endFlat(r, finding, null);
@@ -386,7 +380,7 @@ export class Sweep {
     }
     this.loss[r] = loss;
     if (loss <= this.lossTolerance && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
-    recordRecent(this.recents[r], t, x, loss, this.x0s[r]);
+    recordRecentAt(this.ringPoints, r * n, this.count * n, this.ringLoss, r, this.count, this.milestones, r * MILESTONES, t, x, 0, n, loss, this.x0, r * n);
     const finding = pointFinding(x, grad, loss, this.initialLoss[r], this.stop);
     if (finding !== 'ok') return this.end(r, this.pointEnd(r, finding));
     if (report.noDescent) return this.end(r, this.judge(r, { rule: 'no-step' }));
@@ -404,10 +398,7 @@ export class Sweep {
 
   /** The facts the end judgement reads, for run r (made only when the run ends). */
   private facts(r: number): EndFacts {
-    // Every run is recorded at each step from 0, so its ring holds min(RECENT_POINTS, t + 1) points
-    // (the block path records through recordRecentAt and leaves the count to here).
     this.views(r);
-    this.recents[r].filled = Math.min(RECENT_POINTS, this.steps[r] + 1);
     return {
       t: this.steps[r],
       x: this.xs[r],
@@ -416,9 +407,26 @@ export class Sweep {
       loss: this.loss[r],
       initialLoss: this.initialLoss[r],
       initialGradNorm: this.initialGradNorm[r],
-      recent: this.recents[r],
+      recent: this.recentPath(r),
       stationarityTolerance: this.stationarityTolerance,
     };
+  }
+
+  /**
+   * Run r's recent path as the end judgement reads it (one run's ring, RecentPath layout), gathered
+   * from the slot-major rings; made only when the run ends. Every run is recorded at each step from
+   * 0, so the ring holds min(RECENT_POINTS, t + 1) points.
+   */
+  private recentPath(r: number): RecentPath {
+    const n = this.dimension;
+    const points = new Float64Array(RECENT_POINTS * n);
+    const loss = new Float64Array(RECENT_POINTS);
+    for (let slot = 0; slot < RECENT_POINTS; slot++) {
+      const from = (slot * this.count + r) * n;
+      for (let i = 0; i < n; i++) points[slot * n + i] = this.ringPoints[from + i];
+      loss[slot] = this.ringLoss[slot * this.count + r];
+    }
+    return { points, loss, filled: Math.min(RECENT_POINTS, this.steps[r] + 1), distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES) };
   }
 
   /** Runs `f` on the surface counting into run r's evaluations, as the cursor's judgement counts. */
