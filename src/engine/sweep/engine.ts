@@ -37,8 +37,8 @@ interface RunContext {
 }
 
 /**
- * Runs one configuration from many starts in lockstep: every live run takes one step per round, in
- * plan order. State is structure-of-arrays: all points in one Float64Array (count x n), all exact
+ * Runs one configuration from many starts in lockstep: after each `advance(k)` every live run has
+ * taken k more steps (one per round), so all live runs stand at the same step. State is structure-of-arrays: all points in one Float64Array (count x n), all exact
  * gradients in another, the optimizer's work buffers, start points, losses, step and calm counters,
  * evaluation counts, recent-point rings and distance milestones each in one typed array; per-run
  * subarray views, optimizer states, seeded noise generators and oracles are made once in the
@@ -51,8 +51,9 @@ interface RunContext {
  * The block path: when every run shares one optimizer that is a chain of elementwise transforms
  * (transform.ts; every first-order kind without gradient clipping), the transforms run once per round
  * over each block of BLOCK consecutive runs, on one chain state for the block, instead of once per
- * run. An elementwise transform gives every entry the numbers it would get alone, so the results are
- * the same bits; a block whose runs have all ended is skipped (an ended run's entries in a block still
+ * run, and each block takes all the rounds of a call before the next block starts (it stays in
+ * cache; runs are independent, so no number changes). An elementwise transform gives every entry the
+ * numbers it would get alone, so the results are the same bits; a block whose runs have all ended is skipped (an ended run's entries in a block still
  * in use are transformed and ignored; its point no longer moves). Other optimizers (L-BFGS, Newton,
  * the Sutskever form of Nesterov momentum, clipped chains, several learning rates) step run by run
  * with a state per run.
@@ -214,7 +215,9 @@ export class Sweep {
 
   /** Takes up to `maxRounds` lockstep rounds (one step of every live run each) and reports progress. */
   advance(maxRounds: number): SweepProgress {
-    for (let k = 0; k < maxRounds && this.liveCount > 0; k++) this.round();
+    const rounds = Math.max(0, Math.floor(maxRounds));
+    if (this.blocks && this.liveCount > 0 && rounds > 0) this.blockRounds(this.blocks, rounds);
+    else for (let k = 0; k < rounds && this.liveCount > 0; k++) this.round();
     return this.progress;
   }
 
@@ -224,8 +227,17 @@ export class Sweep {
    */
   advanceFor(ms: number, clock: () => number): SweepProgress {
     const t0 = clock();
-    do this.round();
-    while (this.liveCount > 0 && clock() - t0 < ms);
+    // Rounds go in batches (the block path then keeps each block in cache for the whole batch); a
+    // batch doubles while four of it still fit in the time left.
+    let batch = 1;
+    for (;;) {
+      const s = clock();
+      this.advance(batch);
+      const now = clock();
+      if (this.liveCount === 0 || now - t0 >= ms) break;
+      if (4 * (now - s) < ms - (now - t0)) batch *= 2;
+      else batch = Math.max(1, batch >> 1);
+    }
     return this.progress;
   }
 
@@ -255,7 +267,6 @@ export class Sweep {
 
   /** One step of every live run, in plan order; runs that end leave the live list. */
   private round(): void {
-    if (this.blocks) return this.blockRound(this.blocks);
     const live = this.live;
     const liveCount = this.liveCount;
     let kept = 0;
@@ -269,34 +280,48 @@ export class Sweep {
   }
 
   /**
-   * One round on the block path: for each block holding live runs, the work buffer gets the exact
-   * gradients (plus each live run's noise, drawn from its own generator), the transforms run over the
-   * block, then each live run moves by its entries of the update and is evaluated and checked.
+   * `rounds` rounds on the block path, block by block: each block of runs takes all its rounds before
+   * the next block starts (runs are independent, so the order across runs changes no number, and a
+   * block's state stays in cache). In each round the block's work buffer gets the exact gradients
+   * (plus each live run's noise, from its own generator), the transforms run over the block, then each
+   * live run moves by its entries of the update and is evaluated and checked. Afterwards every live
+   * run has taken the same number of steps again.
    */
-  private blockRound(b: Blocks): void {
+  private blockRounds(b: Blocks, rounds: number): void {
     const live = this.live;
     const liveCount = this.liveCount;
     const noise = this.noise;
     const n = this.dimension;
-    const t = this.rounds + 1;
-    const learningRate = b.rate.learningRate(t);
+    const t0 = this.rounds;
     let kept = 0;
+    let used = 0;
     let k = 0;
     while (k < liveCount) {
       const block = (live[k] / BLOCK) | 0;
-      const end = Math.min(this.count, (block + 1) * BLOCK);
-      let stop = k;
-      while (stop < liveCount && live[stop] < end) stop++;
+      const end = (block + 1) * BLOCK;
+      let segmentEnd = k;
+      while (segmentEnd < liveCount && live[segmentEnd] < end) segmentEnd++;
       const work = b.work[block];
-      work.set(b.grad[block]);
-      if (noise > 0) for (let j = k; j < stop; j++) addNoiseAt(work, (live[j] - block * BLOCK) * n, n, noise, this.rngs[live[j]]);
-      applyTransforms(b.transforms, b.states[block], work, b.x[block], t);
-      kept = this.blockSteps(k, stop, kept, t, learningRate);
-      k = stop;
+      const grad = b.grad[block];
+      const x = b.x[block];
+      const state = b.states[block];
+      // The block's live runs stay in live[k..alive), compacted as they end.
+      let alive = segmentEnd;
+      let q = 0;
+      for (; q < rounds && alive > k; q++) {
+        const t = t0 + q + 1;
+        work.set(grad);
+        if (noise > 0) for (let j = k; j < alive; j++) addNoiseAt(work, (live[j] - block * BLOCK) * n, n, noise, this.rngs[live[j]]);
+        applyTransforms(b.transforms, state, work, x, t);
+        this.totalSteps += alive - k;
+        alive = this.blockSteps(k, alive, k, t, b.rate.learningRate(t));
+      }
+      used = Math.max(used, q);
+      for (let j = k; j < alive; j++) live[kept++] = live[j];
+      k = segmentEnd;
     }
-    this.totalSteps += liveCount;
     this.liveCount = kept;
-    this.rounds += 1;
+    this.rounds += used;
   }
 
   /**

@@ -102,11 +102,17 @@ describe('Sweep: every run equals the same run done alone by RunCursor', () => {
     const sweep = new Sweep({ surface: bowl, optimizer: spec('gd', 0.01), stop: { maxSteps: 100 }, starts: gridStarts(-1, 1, -1, 1, 4) });
     let now = 0;
     const clock = () => (now += 1);
+    // Reads: start 1; batch of 1 round between 2 and 3, 4 and 5, 6 and 7; 7 - 1 >= 5 ends it. The
+    // batch never doubles: four times a 1-tick batch does not fit in the ticks left.
     const p = sweep.advanceFor(5, clock);
-    expect(p.rounds).toBe(5);
-    expect(p.steps).toBe(5 * 16);
-    expect(sweep.advanceFor(0, clock).rounds).toBe(6);
+    expect(p.rounds).toBe(3);
+    expect(p.steps).toBe(3 * 16);
+    expect(sweep.advanceFor(0, clock).rounds).toBe(4);
+    // A generous budget on a fast clock: batches double, and the sweep runs to its end.
+    let slow = 0;
+    expect(sweep.advanceFor(1e9, () => (slow += 1e-3)).rounds).toBe(100);
     expect(sweep.advance(1000)).toEqual({ done: 16, total: 16, steps: 1600, rounds: 100 });
+    expect(sweep.finished).toBe(true);
   });
 
   it('refuses a minibatch plan and bad per-run arrays with the field named', () => {
