@@ -345,6 +345,15 @@ export class Sweep {
     const calmRule = stopRules.lossChangeTolerance !== undefined;
     const tol = this.lossTolerance;
     const ringStride = this.count * n;
+    const count = this.count;
+    const evaluations = this.evaluations;
+    const steps = this.steps;
+    const toTolerance = this.stepsToTolerance;
+    const ringPoints = this.ringPoints;
+    const ringLoss = this.ringLoss;
+    const milestones = this.milestones;
+    const initialLoss = this.initialLoss;
+    const calm = this.calm;
     for (let j = from; j < to; j++) {
       const r = live[j];
       const o = r * n;
@@ -353,18 +362,18 @@ export class Sweep {
       for (let i = 0; i < n; i++) G[o + i] = sg[i];
       const previousLoss = losses[r];
       losses[r] = loss;
-      this.evaluations[r] += 1;
-      this.steps[r] = t;
-      if (loss <= tol && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
-      recordRecentAt(this.ringPoints, o, ringStride, this.ringLoss, r, this.count, this.milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
-      const finding = pointFindingAt(X, G, o, n, loss, this.initialLoss[r], stopRules);
+      evaluations[r] += 1;
+      steps[r] = t;
+      if (loss <= tol && toTolerance[r] < 0) toTolerance[r] = t;
+      recordRecentAt(ringPoints, o, ringStride, ringLoss, r, count, milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
+      const finding = pointFindingAt(X, G, o, n, loss, initialLoss[r], stopRules);
       if (finding !== 'ok') {
         this.endFlat(r, finding, null);
         continue;
       }
       // Without the loss-change rule the counter never moves (checks.ts), so it is not updated.
-      if (calmRule) this.calm[r] = nextCalmSteps(stopRules, this.calm[r], loss, previousLoss, learningRate);
-      const trigger = progressTrigger(stopRules, this.calm[r], t);
+      if (calmRule) calm[r] = nextCalmSteps(stopRules, calm[r], loss, previousLoss, learningRate);
+      const trigger = progressTrigger(stopRules, calm[r], t);
       if (trigger) {
         this.endFlat(r, null, trigger);
         continue;
