@@ -122,6 +122,28 @@ describe('Sweep: every run equals the same run done alone by RunCursor', () => {
     expect(() => new Sweep({ ...base, starts: Float64Array.of(0, NaN) })).toThrow('start of run 0, coordinate 2');
   });
 
+  it('every other first-order kind, with a schedule, weight decay, L2 and clipping', () => {
+    const starts = gridStarts(-5, 5, -5, 5, 12);
+    const stop: StopRules = { maxSteps: 200, lossChangeTolerance: 1e-12 };
+    const specs: OptimizerSpec[] = [
+      spec('nesterov', 0.005),
+      spec('nesterov', 0.005, { form: 'sutskever' }),
+      spec('adagrad', 0.5),
+      spec('rmsprop', 0.01),
+      spec('adamw', 0.05),
+      spec('amsgrad', 0.05),
+      spec('nadam', 0.05),
+      { ...spec('adam', 0.1), schedule: { kind: 'step', decayRate: 0.5, decaySteps: 50, warmupSteps: 10 } },
+      { ...spec('momentum', 0.005), l2Penalty: 0.01, weightDecay: 0.001 },
+      { ...spec('adam', 0.1), clipNorm: 1 },
+    ];
+    for (const optimizer of specs) {
+      const sweep = new Sweep({ surface: himmelblau, optimizer, stop, starts });
+      while (!sweep.finished) sweep.advance(23);
+      expectSameAsAlone(sweep, runAlone(himmelblau, optimizer, stop, starts));
+    }
+  });
+
   it('with a learning rate per run', () => {
     const starts = new Float64Array(24).fill(1);
     const learningRates = Float64Array.from({ length: 12 }, (_, i) => 0.02 * (i + 1));
