@@ -9,7 +9,7 @@ import { formulaGradRatios, formulaVsMathjs } from './formula';
 import { gridVsHandwritten } from './grid';
 import { datafitGridVsHandwritten, datafitSlice } from './datafit';
 import { poolSpeedup } from './pool';
-import { sweepBench } from './sweep';
+import { bundledSweepBench } from './sweep-bundle';
 import { ruleVsBuiltin } from './rule';
 
 const TARGETS = {
@@ -35,7 +35,7 @@ const grid = gridVsHandwritten();
 const datafit = datafitGridVsHandwritten();
 const slice = datafitSlice();
 const pool = await poolSpeedup(slice.spec, slice.grid);
-const sweep = sweepBench();
+const sweep = await bundledSweepBench();
 
 const ratios = {
   // The worst case over the functions measured, so a target met here is met for each.

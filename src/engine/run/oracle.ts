@@ -10,7 +10,12 @@ import { nextGaussian, type RngState } from '../rng';
 
 /** Adds i.i.d. N(0, std^2) noise to every entry of g, drawing from `rng` in index order. */
 export function addNoise(g: Float64Array, std: number, rng: RngState): void {
-  for (let i = 0; i < g.length; i++) g[i] += std * nextGaussian(rng);
+  addNoiseAt(g, 0, g.length, std, rng);
+}
+
+/** addNoise on the n entries g[at..at+n) (a vector inside flat storage), in the same order. */
+export function addNoiseAt(g: Float64Array, at: number, n: number, std: number, rng: RngState): void {
+  for (let i = at; i < at + n; i++) g[i] += std * nextGaussian(rng);
 }
 
 /** The surface with every evaluation added to the run's count (explanations of undefined points pass through uncounted). */

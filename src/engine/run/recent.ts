@@ -29,21 +29,26 @@ export function createRecentPath(x0: Float64Array, loss0: number): RecentPath {
 }
 
 export function recordRecent(path: RecentPath, t: number, x: Float64Array, loss: number, x0: Float64Array): void {
-  recordRecentAt(path.points, 0, path.loss, 0, path.distanceAt, 0, t, x, 0, x.length, loss, x0, 0);
+  recordRecentAt(path.points, 0, x.length, path.loss, 0, 1, path.distanceAt, 0, t, x, 0, x.length, loss, x0, 0);
   if (path.filled < RECENT_POINTS) path.filled += 1;
 }
 
 /**
- * recordRecent on flat storage, for a sweep's structure-of-arrays state: the ring starts at
- * points[pointsAt] (RECENT_POINTS x n) and loss[lossAt], the milestones at distanceAt[milestonesAt]
- * (MILESTONES of them), the point at x[xAt], the start at x0[x0At]. The caller keeps `filled`
- * (min(RECENT_POINTS, t + 1) for a run recorded at every step from 0).
+ * recordRecent on flat storage, for a sweep's structure-of-arrays state: slot s (= t mod
+ * RECENT_POINTS) of the ring is points[pointsAt + s * pointStride ...] (n values) and
+ * loss[lossAt + s * lossStride], the milestones start at distanceAt[milestonesAt] (MILESTONES of
+ * them), the point is x[xAt..xAt+n), the start x0[x0At..x0At+n). With strides n and 1 this is one
+ * run's RecentPath; a sweep stores slot by slot across runs (stride count x n and count), so a round
+ * writes each slot plane in order. The caller keeps `filled` (min(RECENT_POINTS, t + 1) for a run
+ * recorded at every step from 0).
  */
 export function recordRecentAt(
   points: Float64Array,
   pointsAt: number,
+  pointStride: number,
   loss: Float64Array,
   lossAt: number,
+  lossStride: number,
   distanceAt: Float64Array,
   milestonesAt: number,
   t: number,
@@ -56,9 +61,9 @@ export function recordRecentAt(
 ): void {
   const slot = t % RECENT_POINTS;
   // A plain loop: for the few coordinates of a typical surface it is much cheaper than TypedArray#set.
-  const base = pointsAt + slot * n;
+  const base = pointsAt + slot * pointStride;
   for (let i = 0; i < n; i++) points[base + i] = x[xAt + i];
-  loss[lossAt + slot] = lossValue;
+  loss[lossAt + slot * lossStride] = lossValue;
   if (t > 0 && (t & (t - 1)) === 0) {
     const k = Math.log2(t);
     if (k < MILESTONES) {

@@ -4,9 +4,9 @@ import type { Optimizer, Oracle, StepContext, StepReport } from '../optim/types'
 import { createRng, type RngState } from '../rng';
 import { nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrigger, startOutcome, type PointFinding } from '../run/checks';
 import { judgeEnd, type EndFacts, type EndTrigger } from '../run/end-state';
-import { addNoise, countingSurface, noisyOracle } from '../run/oracle';
+import { addNoise, addNoiseAt, countingSurface, noisyOracle } from '../run/oracle';
 import type { RunOutcome } from '../run/outcome';
-import { MILESTONES, RECENT_POINTS, recordRecent, recordRecentAt, type RecentPath } from '../run/recent';
+import { MILESTONES, RECENT_POINTS, recordRecentAt, type RecentPath } from '../run/recent';
 import type { StopRules } from '../run/settings';
 import type { Surface } from '../surface';
 import { norm2 } from '../vector';
@@ -37,8 +37,8 @@ interface RunContext {
 }
 
 /**
- * Runs one configuration from many starts in lockstep: every live run takes one step per round, in
- * plan order. State is structure-of-arrays: all points in one Float64Array (count x n), all exact
+ * Runs one configuration from many starts in lockstep: after each `advance(k)` every live run has
+ * taken k more steps (one per round), so all live runs stand at the same step. State is structure-of-arrays: all points in one Float64Array (count x n), all exact
  * gradients in another, the optimizer's work buffers, start points, losses, step and calm counters,
  * evaluation counts, recent-point rings and distance milestones each in one typed array; per-run
  * subarray views, optimizer states, seeded noise generators and oracles are made once in the
@@ -51,8 +51,9 @@ interface RunContext {
  * The block path: when every run shares one optimizer that is a chain of elementwise transforms
  * (transform.ts; every first-order kind without gradient clipping), the transforms run once per round
  * over each block of BLOCK consecutive runs, on one chain state for the block, instead of once per
- * run. An elementwise transform gives every entry the numbers it would get alone, so the results are
- * the same bits; a block whose runs have all ended is skipped (an ended run's entries in a block still
+ * run, and each block takes all the rounds of a call before the next block starts (it stays in
+ * cache; runs are independent, so no number changes). An elementwise transform gives every entry the
+ * numbers it would get alone, so the results are the same bits; a block whose runs have all ended is skipped (an ended run's entries in a block still
  * in use are transformed and ignored; its point no longer moves). Other optimizers (L-BFGS, Newton,
  * the Sutskever form of Nesterov momentum, clipped chains, several learning rates) step run by run
  * with a state per run.
@@ -93,7 +94,6 @@ export class Sweep {
   private readonly grads: Float64Array[] = [];
   private readonly works: Float64Array[] = [];
   private readonly x0s: Float64Array[] = [];
-  private readonly recents: RecentPath[] = [];
   private readonly optimizers: Optimizer[] = [];
   private readonly states: unknown[] = [];
   private readonly rngs: RngState[] = [];
@@ -135,53 +135,59 @@ export class Sweep {
     // One optimizer per distinct learning rate: an Optimizer keeps its run's state in `state`, its
     // closures only scratch buffers that each step fills before reading, so runs can share it.
     const byRate = new Map<number, Optimizer>();
-    const optimizerFor = (lr: number) => {
+    for (let r = 0; r < count; r++) {
+      const lr = plan.learningRates ? plan.learningRates[r] : plan.optimizer.learningRate;
       let o = byRate.get(lr);
       if (!o) byRate.set(lr, (o = buildOptimizer({ ...plan.optimizer, learningRate: lr })));
-      return o;
-    };
+      this.optimizers.push(o);
+    }
+    const shared = byRate.size === 1 ? [...byRate.values()][0] : null;
+    const blockPath = shared !== null && isChainOptimizer(shared) && shared.transforms.every((tr) => tr.elementwise);
+    // Each run's generator, seeded as RunCursor seeds it (drawn from only for gradient noise).
+    if (!blockPath || this.noise > 0) for (let r = 0; r < count; r++) this.rngs.push(createRng(plan.seeds ? plan.seeds[r] : (plan.seed ?? 0)));
+    // Run by run, each run gets its views, step context and oracle now; on the block path only runs
+    // that end get views, when they end (facts), so thousands of runs make no objects up front.
+    if (!blockPath)
+      for (let r = 0; r < count; r++) {
+        this.views(r);
+        this.contexts.push({ t: 0, loss: 0, oracle: noisyOracle(surface, this.noise, { rng: this.rngs[r] }) });
+      }
+    const sx = this.scratchX;
+    const sg = this.scratchGrad;
     for (let r = 0; r < count; r++) {
-      const lo = r * n;
-      const hi = lo + n;
-      const x = this.x.subarray(lo, hi);
-      const grad = this.grad.subarray(lo, hi);
-      const x0 = this.x0.subarray(lo, hi);
-      const recent: RecentPath = {
-        points: this.ringPoints.subarray(r * RECENT_POINTS * n, (r + 1) * RECENT_POINTS * n),
-        loss: this.ringLoss.subarray(r * RECENT_POINTS, (r + 1) * RECENT_POINTS),
-        filled: 0,
-        distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES),
-      };
-      const optimizer = optimizerFor(plan.learningRates ? plan.learningRates[r] : plan.optimizer.learningRate);
-      const rng = createRng(plan.seeds ? plan.seeds[r] : (plan.seed ?? 0));
-      this.xs.push(x);
-      this.grads.push(grad);
-      this.works.push(this.work.subarray(lo, hi));
-      this.x0s.push(x0);
-      this.recents.push(recent);
-      this.optimizers.push(optimizer);
-      this.rngs.push(rng);
-      // The start, as RunCursor's constructor evaluates and checks it.
-      const loss = surface.valueGradient(x, grad);
+      // The start, as RunCursor's constructor evaluates and checks it (through a scratch copy).
+      const o = r * n;
+      for (let i = 0; i < n; i++) sx[i] = this.x[o + i];
+      const loss = surface.valueGradient(sx, sg);
+      for (let i = 0; i < n; i++) this.grad[o + i] = sg[i];
       this.loss[r] = loss;
       this.initialLoss[r] = loss;
-      this.initialGradNorm[r] = norm2(grad);
+      this.initialGradNorm[r] = norm2(sg);
       this.evaluations[r] = 1;
-      recordRecent(recent, 0, x, loss, x0);
-      this.states.push(null);
-      this.contexts.push({ t: 0, loss, oracle: noisyOracle(surface, this.noise, { rng }) });
+      recordRecentAt(this.ringPoints, o, count * n, this.ringLoss, r, count, this.milestones, r * MILESTONES, 0, this.x, o, n, loss, this.x0, o);
       if (loss <= this.lossTolerance) this.stepsToTolerance[r] = 0;
-      let outcome = startOutcome(surface, x, loss, grad);
+      let outcome = startOutcome(surface, sx, loss, sg);
       if (!outcome) {
-        const finding = pointFinding(x, grad, loss, loss, this.stop);
+        const finding = pointFindingAt(this.x, this.grad, o, n, loss, loss, this.stop);
         if (finding !== 'ok') outcome = this.pointEnd(r, finding);
       }
       this.outcomes[r] = outcome;
       if (!outcome) this.live[this.liveCount++] = r;
     }
-    const shared = byRate.size === 1 ? [...byRate.values()][0] : null;
-    this.blocks = shared && isChainOptimizer(shared) && shared.transforms.every((tr) => tr.elementwise) ? this.makeBlocks(shared) : null;
-    if (!this.blocks) for (let r = 0; r < count; r++) this.states[r] = this.optimizers[r].init(Float64Array.from(this.xs[r]));
+    this.blocks = blockPath ? this.makeBlocks(shared as ChainOptimizer) : null;
+    if (!this.blocks) for (let r = 0; r < count; r++) this.states.push(this.optimizers[r].init(Float64Array.from(this.xs[r])));
+  }
+
+  /** Run r's subarray views and recent-path record over the flat arrays, made on first use. */
+  private views(r: number): void {
+    if (this.xs[r]) return;
+    const n = this.dimension;
+    const lo = r * n;
+    const hi = lo + n;
+    this.xs[r] = this.x.subarray(lo, hi);
+    this.grads[r] = this.grad.subarray(lo, hi);
+    this.works[r] = this.work.subarray(lo, hi);
+    this.x0s[r] = this.x0.subarray(lo, hi);
   }
 
   private makeBlocks(o: ChainOptimizer): Blocks {
@@ -209,7 +215,9 @@ export class Sweep {
 
   /** Takes up to `maxRounds` lockstep rounds (one step of every live run each) and reports progress. */
   advance(maxRounds: number): SweepProgress {
-    for (let k = 0; k < maxRounds && this.liveCount > 0; k++) this.round();
+    const rounds = Math.max(0, Math.floor(maxRounds));
+    if (this.blocks && this.liveCount > 0 && rounds > 0) this.blockRounds(this.blocks, rounds);
+    else for (let k = 0; k < rounds && this.liveCount > 0; k++) this.round();
     return this.progress;
   }
 
@@ -219,8 +227,17 @@ export class Sweep {
    */
   advanceFor(ms: number, clock: () => number): SweepProgress {
     const t0 = clock();
-    do this.round();
-    while (this.liveCount > 0 && clock() - t0 < ms);
+    // Rounds go in batches (the block path then keeps each block in cache for the whole batch); a
+    // batch doubles while four of it still fit in the time left.
+    let batch = 1;
+    for (;;) {
+      const s = clock();
+      this.advance(batch);
+      const now = clock();
+      if (this.liveCount === 0 || now - t0 >= ms) break;
+      if (4 * (now - s) < ms - (now - t0)) batch *= 2;
+      else batch = Math.max(1, batch >> 1);
+    }
     return this.progress;
   }
 
@@ -250,7 +267,6 @@ export class Sweep {
 
   /** One step of every live run, in plan order; runs that end leave the live list. */
   private round(): void {
-    if (this.blocks) return this.blockRound(this.blocks);
     const live = this.live;
     const liveCount = this.liveCount;
     let kept = 0;
@@ -264,33 +280,48 @@ export class Sweep {
   }
 
   /**
-   * One round on the block path: for each block holding live runs, the work buffer gets the exact
-   * gradients (plus each live run's noise, drawn from its own generator), the transforms run over the
-   * block, then each live run moves by its entries of the update and is evaluated and checked.
+   * `rounds` rounds on the block path, block by block: each block of runs takes all its rounds before
+   * the next block starts (runs are independent, so the order across runs changes no number, and a
+   * block's state stays in cache). In each round the block's work buffer gets the exact gradients
+   * (plus each live run's noise, from its own generator), the transforms run over the block, then each
+   * live run moves by its entries of the update and is evaluated and checked. Afterwards every live
+   * run has taken the same number of steps again.
    */
-  private blockRound(b: Blocks): void {
+  private blockRounds(b: Blocks, rounds: number): void {
     const live = this.live;
     const liveCount = this.liveCount;
     const noise = this.noise;
-    const t = this.rounds + 1;
-    const learningRate = b.rate.learningRate(t);
+    const n = this.dimension;
+    const t0 = this.rounds;
     let kept = 0;
+    let used = 0;
     let k = 0;
     while (k < liveCount) {
       const block = (live[k] / BLOCK) | 0;
-      const end = Math.min(this.count, (block + 1) * BLOCK);
-      let stop = k;
-      while (stop < liveCount && live[stop] < end) stop++;
+      const end = (block + 1) * BLOCK;
+      let segmentEnd = k;
+      while (segmentEnd < liveCount && live[segmentEnd] < end) segmentEnd++;
       const work = b.work[block];
-      work.set(b.grad[block]);
-      if (noise > 0) for (let j = k; j < stop; j++) addNoise(this.works[live[j]], noise, this.rngs[live[j]]);
-      applyTransforms(b.transforms, b.states[block], work, b.x[block], t);
-      kept = this.blockSteps(k, stop, kept, t, learningRate);
-      k = stop;
+      const grad = b.grad[block];
+      const x = b.x[block];
+      const state = b.states[block];
+      // The block's live runs stay in live[k..alive), compacted as they end.
+      let alive = segmentEnd;
+      let q = 0;
+      for (; q < rounds && alive > k; q++) {
+        const t = t0 + q + 1;
+        work.set(grad);
+        if (noise > 0) for (let j = k; j < alive; j++) addNoiseAt(work, (live[j] - block * BLOCK) * n, n, noise, this.rngs[live[j]]);
+        applyTransforms(b.transforms, state, work, x, t);
+        this.totalSteps += alive - k;
+        alive = this.blockSteps(k, alive, k, t, b.rate.learningRate(t));
+      }
+      used = Math.max(used, q);
+      for (let j = k; j < alive; j++) live[kept++] = live[j];
+      k = segmentEnd;
     }
-    this.totalSteps += liveCount;
     this.liveCount = kept;
-    this.rounds += 1;
+    this.rounds += used;
   }
 
   /**
@@ -313,6 +344,16 @@ export class Sweep {
     const stopRules = this.stop;
     const calmRule = stopRules.lossChangeTolerance !== undefined;
     const tol = this.lossTolerance;
+    const ringStride = this.count * n;
+    const count = this.count;
+    const evaluations = this.evaluations;
+    const steps = this.steps;
+    const toTolerance = this.stepsToTolerance;
+    const ringPoints = this.ringPoints;
+    const ringLoss = this.ringLoss;
+    const milestones = this.milestones;
+    const initialLoss = this.initialLoss;
+    const calm = this.calm;
     for (let j = from; j < to; j++) {
       const r = live[j];
       const o = r * n;
@@ -321,18 +362,18 @@ export class Sweep {
       for (let i = 0; i < n; i++) G[o + i] = sg[i];
       const previousLoss = losses[r];
       losses[r] = loss;
-      this.evaluations[r] += 1;
-      this.steps[r] = t;
-      if (loss <= tol && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
-      recordRecentAt(this.ringPoints, r * RECENT_POINTS * n, this.ringLoss, r * RECENT_POINTS, this.milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
-      const finding = pointFindingAt(X, G, o, n, loss, this.initialLoss[r], stopRules);
+      evaluations[r] += 1;
+      steps[r] = t;
+      if (loss <= tol && toTolerance[r] < 0) toTolerance[r] = t;
+      recordRecentAt(ringPoints, o, ringStride, ringLoss, r, count, milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
+      const finding = pointFindingAt(X, G, o, n, loss, initialLoss[r], stopRules);
       if (finding !== 'ok') {
         this.endFlat(r, finding, null);
         continue;
       }
       // Without the loss-change rule the counter never moves (checks.ts), so it is not updated.
-      if (calmRule) this.calm[r] = nextCalmSteps(stopRules, this.calm[r], loss, previousLoss, learningRate);
-      const trigger = progressTrigger(stopRules, this.calm[r], t);
+      if (calmRule) calm[r] = nextCalmSteps(stopRules, calm[r], loss, previousLoss, learningRate);
+      const trigger = progressTrigger(stopRules, calm[r], t);
       if (trigger) {
         this.endFlat(r, null, trigger);
         continue;
@@ -373,7 +414,7 @@ export class Sweep {
     }
     this.loss[r] = loss;
     if (loss <= this.lossTolerance && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
-    recordRecent(this.recents[r], t, x, loss, this.x0s[r]);
+    recordRecentAt(this.ringPoints, r * n, this.count * n, this.ringLoss, r, this.count, this.milestones, r * MILESTONES, t, x, 0, n, loss, this.x0, r * n);
     const finding = pointFinding(x, grad, loss, this.initialLoss[r], this.stop);
     if (finding !== 'ok') return this.end(r, this.pointEnd(r, finding));
     if (report.noDescent) return this.end(r, this.judge(r, { rule: 'no-step' }));
@@ -391,9 +432,7 @@ export class Sweep {
 
   /** The facts the end judgement reads, for run r (made only when the run ends). */
   private facts(r: number): EndFacts {
-    // Every run is recorded at each step from 0, so its ring holds min(RECENT_POINTS, t + 1) points
-    // (the block path records through recordRecentAt and leaves the count to here).
-    this.recents[r].filled = Math.min(RECENT_POINTS, this.steps[r] + 1);
+    this.views(r);
     return {
       t: this.steps[r],
       x: this.xs[r],
@@ -402,9 +441,26 @@ export class Sweep {
       loss: this.loss[r],
       initialLoss: this.initialLoss[r],
       initialGradNorm: this.initialGradNorm[r],
-      recent: this.recents[r],
+      recent: this.recentPath(r),
       stationarityTolerance: this.stationarityTolerance,
     };
+  }
+
+  /**
+   * Run r's recent path as the end judgement reads it (one run's ring, RecentPath layout), gathered
+   * from the slot-major rings; made only when the run ends. Every run is recorded at each step from
+   * 0, so the ring holds min(RECENT_POINTS, t + 1) points.
+   */
+  private recentPath(r: number): RecentPath {
+    const n = this.dimension;
+    const points = new Float64Array(RECENT_POINTS * n);
+    const loss = new Float64Array(RECENT_POINTS);
+    for (let slot = 0; slot < RECENT_POINTS; slot++) {
+      const from = (slot * this.count + r) * n;
+      for (let i = 0; i < n; i++) points[slot * n + i] = this.ringPoints[from + i];
+      loss[slot] = this.ringLoss[slot * this.count + r];
+    }
+    return { points, loss, filled: Math.min(RECENT_POINTS, this.steps[r] + 1), distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES) };
   }
 
   /** Runs `f` on the surface counting into run r's evaluations, as the cursor's judgement counts. */

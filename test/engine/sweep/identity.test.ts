@@ -102,11 +102,17 @@ describe('Sweep: every run equals the same run done alone by RunCursor', () => {
     const sweep = new Sweep({ surface: bowl, optimizer: spec('gd', 0.01), stop: { maxSteps: 100 }, starts: gridStarts(-1, 1, -1, 1, 4) });
     let now = 0;
     const clock = () => (now += 1);
+    // Reads: start 1; batch of 1 round between 2 and 3, 4 and 5, 6 and 7; 7 - 1 >= 5 ends it. The
+    // batch never doubles: four times a 1-tick batch does not fit in the ticks left.
     const p = sweep.advanceFor(5, clock);
-    expect(p.rounds).toBe(5);
-    expect(p.steps).toBe(5 * 16);
-    expect(sweep.advanceFor(0, clock).rounds).toBe(6);
+    expect(p.rounds).toBe(3);
+    expect(p.steps).toBe(3 * 16);
+    expect(sweep.advanceFor(0, clock).rounds).toBe(4);
+    // A generous budget on a fast clock: batches double, and the sweep runs to its end.
+    let slow = 0;
+    expect(sweep.advanceFor(1e9, () => (slow += 1e-3)).rounds).toBe(100);
     expect(sweep.advance(1000)).toEqual({ done: 16, total: 16, steps: 1600, rounds: 100 });
+    expect(sweep.finished).toBe(true);
   });
 
   it('refuses a minibatch plan and bad per-run arrays with the field named', () => {
@@ -114,6 +120,28 @@ describe('Sweep: every run equals the same run done alone by RunCursor', () => {
     expect(() => new Sweep({ ...base, minibatch: { size: 2 } } as never)).toThrow('minibatch runs are not supported');
     expect(() => new Sweep({ ...base, learningRates: Float64Array.of(0.1) })).toThrow('one value per run (2)');
     expect(() => new Sweep({ ...base, starts: Float64Array.of(0, NaN) })).toThrow('start of run 0, coordinate 2');
+  });
+
+  it('every other first-order kind, with a schedule, weight decay, L2 and clipping', () => {
+    const starts = gridStarts(-5, 5, -5, 5, 12);
+    const stop: StopRules = { maxSteps: 200, lossChangeTolerance: 1e-12 };
+    const specs: OptimizerSpec[] = [
+      spec('nesterov', 0.005),
+      spec('nesterov', 0.005, { form: 'sutskever' }),
+      spec('adagrad', 0.5),
+      spec('rmsprop', 0.01),
+      spec('adamw', 0.05),
+      spec('amsgrad', 0.05),
+      spec('nadam', 0.05),
+      { ...spec('adam', 0.1), schedule: { kind: 'step', decayRate: 0.5, decaySteps: 50, warmupSteps: 10 } },
+      { ...spec('momentum', 0.005), l2Penalty: 0.01, weightDecay: 0.001 },
+      { ...spec('adam', 0.1), clipNorm: 1 },
+    ];
+    for (const optimizer of specs) {
+      const sweep = new Sweep({ surface: himmelblau, optimizer, stop, starts });
+      while (!sweep.finished) sweep.advance(23);
+      expectSameAsAlone(sweep, runAlone(himmelblau, optimizer, stop, starts));
+    }
   });
 
   it('with a learning rate per run', () => {
