@@ -117,3 +117,39 @@ test('learning-rate sweep on x^2 + 10 y^2: observed thresholds at 2/lambda_max a
   const px = await canvasPixels(page, 'rate-chart');
   expect(countColour(px, '#e69f00', 30)).toBeGreaterThan(50); // the first run's colour (Okabe-Ito orange)
 });
+
+test("critical points of Himmelblau: all 9 found and classified (4 minima, 4 saddles of index 1, 1 maximum) as the reference lists", async ({ page }) => {
+  // Reference: test/fixtures/test-functions.json (Himmelblau's 4 minima, 4 saddles, 1 local maximum).
+  await openFresh(page);
+  await page.getByLabel('Catalogue entry').selectOption({ label: 'Himmelblau' });
+  await waitForContours(page);
+  await page.getByRole('tab', { name: 'Critical points' }).click();
+  const panel = page.getByTestId('critical-points');
+  await panel.getByRole('button', { name: 'Find critical points' }).click();
+  const rows = panel.getByTestId('critical-table').locator('tbody tr');
+  await expect(rows).toHaveCount(9, { timeout: 30_000 });
+  await expect(rows.and(page.locator('[data-kind="minimum"]'))).toHaveCount(4);
+  await expect(rows.and(page.locator('[data-kind="saddle"]'))).toHaveCount(4);
+  await expect(rows.and(page.locator('[data-kind="maximum"]'))).toHaveCount(1);
+  await expect(panel.getByTestId('critical-table')).toContainText('(-0.270845, -0.923039)');
+  await expect(panel.getByTestId('critical-table')).toContainText('saddle (index 1)');
+  const px = await canvasPixels(page, 'critical-canvas');
+  expect(countColour(px, '#d55e00', 20)).toBeGreaterThan(20); // saddle glyphs drawn
+});
+
+test('sharpness along gradient descent on x^2 + 10 y^2 is constant at lambda_max = 20, below 2/lr', async ({ page }) => {
+  await openFresh(page);
+  await page.getByLabel('Your formula').check();
+  await page.getByLabel('Formula', { exact: true }).fill('x^2 + 10*y^2');
+  await page.getByRole('button', { name: 'Use this formula' }).click();
+  await waitForContours(page);
+  await page.getByRole('button', { name: /^Plain descent/ }).first().click();
+  await expect(page.locator('.run-status').first()).toHaveAttribute('data-phase', 'ended', { timeout: 30_000 });
+  await page.getByRole('tab', { name: 'Sharpness' }).click();
+  const panel = page.getByTestId('sharpness');
+  await panel.getByRole('button', { name: 'Measure sharpness' }).click();
+  const last = panel.getByTestId('sharpness-last');
+  await expect(last).toContainText('λmax = 20');
+  expect(Number(await last.getAttribute('data-value'))).toBeCloseTo(20, 9);
+  await expect(last).toContainText('2/lr = 2000');
+});

@@ -6,7 +6,7 @@
  * Identity: each launch of a run gets a fresh `runId`, each grid request a fresh `requestId`; the page
  * drops any message whose id is no longer current, so work superseded by an edit can never be drawn.
  */
-import type { GridRequest, OptimizerSpec, RunOutcome, RunSettings, StudySpec, TrajectoryBatch } from '../engine';
+import type { CriticalPoint, GridRequest, OptimizerSpec, RunOutcome, RunSettings, StudySpec, TrajectoryBatch } from '../engine';
 import type { CsvImport, SurfaceSpec } from '../problems';
 
 /** Everything needed to reproduce one run. */
@@ -42,7 +42,11 @@ export type ToWorker =
   | { type: 'profile/sample'; requestId: string; surface: SurfaceSpec; from: number[]; to: number[]; alphas: { from: number; to: number; count: number } }
   /** Run a study (src/worker/studies.ts); a new study supersedes the one in progress. */
   | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StudySpec }
-  | { type: 'study/cancel'; requestId: string };
+  | { type: 'study/cancel'; requestId: string }
+  /** The largest Hessian eigenvalue at `count` points (count x n, row-major), e.g. along a trajectory. */
+  | { type: 'sharpness/sample'; requestId: string; surface: SurfaceSpec; points: Float64Array; count: number }
+  /** Critical points of the surface found from `count` starts (count x n). */
+  | { type: 'critical/find'; requestId: string; surface: SurfaceSpec; starts: Float64Array; count: number };
 
 /**
  * Learning-rate sweeps, per optimizer: the largest Hessian eigenvalue at the start, the predicted
@@ -96,7 +100,10 @@ export type FromWorker =
   | { type: 'study/cells'; requestId: string; cells: StudyCells; done: number; total: number; elapsedMs: number }
   /** `bands`: for multi-start studies, the 25%, 50% and 75% quantiles of the loss across runs per step. */
   | { type: 'study/done'; requestId: string; elapsedMs: number; bands?: Float64Array[]; thresholds?: StudyThreshold[] }
-  | { type: 'study/error'; requestId: string; message: string };
+  | { type: 'study/error'; requestId: string; message: string }
+  | { type: 'sharpness/result'; requestId: string; values: Float64Array }
+  | { type: 'critical/result'; requestId: string; points: CriticalPoint[]; converged: number; failed: number }
+  | { type: 'analysis/error'; requestId: string; message: string };
 
 /**
  * Pooled grid sampling (src/worker/pool.ts): the page's pool sends each member worker bands of one grid

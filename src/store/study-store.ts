@@ -1,5 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { BasinTracker, OUTCOME_KINDS, type KnownPoint, type OutcomeKind, type RunOutcome, type StudySpec } from '../engine';
+import { BasinTracker, OUTCOME_KINDS, type CriticalPoint, type KnownPoint, type OutcomeKind, type RunOutcome, type StudySpec } from '../engine';
 import type { SurfaceSpec } from '../problems';
 import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
 import type { EngineLink } from './engine-link';
@@ -55,6 +55,10 @@ export interface StudyStore {
   store: StoreApi<StudyState>;
   start(params: StudyParams): void;
   cancel(): void;
+  /** The largest Hessian eigenvalue at each point (count x n), computed in the study worker. */
+  sharpness(surface: SurfaceSpec, points: Float64Array, count: number): Promise<Float64Array>;
+  /** Critical points found from the starts (count x n), computed in the study worker. */
+  criticalPoints(surface: SurfaceSpec, starts: Float64Array, count: number): Promise<{ points: CriticalPoint[]; converged: number; failed: number }>;
 }
 
 /**
@@ -93,7 +97,22 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
     });
   };
 
+  // Answers to one-off analysis requests, by request id.
+  const waiting = new Map<string, { resolve: (msg: FromWorker) => void; reject: (e: Error) => void }>();
+  const ask = <T,>(msg: Extract<Parameters<EngineLink['send']>[0], { requestId: string }>, read: (reply: FromWorker) => T) =>
+    new Promise<T>((resolve, reject) => {
+      waiting.set(msg.requestId, { resolve: (reply) => resolve(read(reply)), reject });
+      link.send(msg);
+    });
+
   link.listen((msg: FromWorker) => {
+    const asked = 'requestId' in msg ? waiting.get(msg.requestId) : undefined;
+    if (asked) {
+      waiting.delete((msg as { requestId: string }).requestId);
+      if (msg.type === 'analysis/error') asked.reject(new Error(msg.message));
+      else asked.resolve(msg);
+      return;
+    }
     const current = store.getState();
     if (!('requestId' in msg) || msg.requestId !== current.requestId || current.status !== 'running') return;
     switch (msg.type) {
@@ -134,6 +153,12 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
         version: store.getState().version + 1,
       });
       link.send({ type: 'study/start', requestId, surface, study: spec });
+    },
+    sharpness(surface, points, count) {
+      return ask({ type: 'sharpness/sample', requestId: freshId('sharp'), surface, points, count }, (m) => (m.type === 'sharpness/result' ? m.values : new Float64Array(0)));
+    },
+    criticalPoints(surface, starts, count) {
+      return ask({ type: 'critical/find', requestId: freshId('crit'), surface, starts, count }, (m) => (m.type === 'critical/result' ? { points: m.points, converged: m.converged, failed: m.failed } : { points: [], converged: 0, failed: 0 }));
     },
     cancel() {
       const { requestId, status } = store.getState();

@@ -3,6 +3,7 @@ import { GridSampler } from './grids';
 import { sampleProfile } from './profiles';
 import { RunPool } from './runs';
 import { StudyRunner } from './studies';
+import { sampleSharpness, searchCriticalPoints } from './analysis';
 import { parseCsvInWorker } from './tables';
 import type { Timing } from './scheduler';
 
@@ -31,6 +32,10 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
         return studies.start(msg.requestId, msg.surface, msg.study);
       case 'study/cancel':
         return studies.cancel(msg.requestId);
+      case 'sharpness/sample':
+        return sampleSharpness(post, msg.requestId, msg.surface, msg.points, msg.count);
+      case 'critical/find':
+        return searchCriticalPoints(post, msg.requestId, msg.surface, msg.starts, msg.count);
     }
   };
 }

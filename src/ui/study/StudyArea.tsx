@@ -1,12 +1,16 @@
 import { useState } from 'react';
 import { MultiStartPanel } from './MultiStartPanel';
+import { CriticalPointsPanel } from './CriticalPointsPanel';
 import { RateSweepPanel } from './RateSweepPanel';
+import { SharpnessPanel } from './SharpnessPanel';
 import { StartMapPanel } from './StartMapPanel';
 
 const KINDS = [
   ['map', 'Start-point map'],
   ['multi', 'Multi-start'],
   ['rates', 'Learning-rate sweep'],
+  ['sharpness', 'Sharpness'],
+  ['critical', 'Critical points'],
 ] as const;
 
 /** The studies below the results: how the outcome depends on the start point and the learning rate. One shown at a time. */
@@ -21,7 +25,11 @@ export function StudyArea() {
           </button>
         ))}
       </div>
-      {kind === 'map' ? <StartMapPanel /> : kind === 'multi' ? <MultiStartPanel /> : <RateSweepPanel />}
+      {kind === 'map' && <StartMapPanel />}
+      {kind === 'multi' && <MultiStartPanel />}
+      {kind === 'rates' && <RateSweepPanel />}
+      {kind === 'sharpness' && <SharpnessPanel />}
+      {kind === 'critical' && <CriticalPointsPanel />}
     </div>
   );
 }

@@ -1,0 +1,118 @@
+import { useEffect, useRef, useState } from 'react';
+import type { CriticalPoint } from '../../engine';
+import { useApp } from '../app-context';
+import { drawMarker, type MarkerShape } from '../plot';
+import { useStudyStore } from './study-context';
+
+const SIDE = 280;
+const GLYPH: Record<string, { shape: MarkerShape; colour: string; key: string }> = {
+  minimum: { shape: 'circle', colour: '#009e73', key: 'minimum' },
+  saddle: { shape: 'cross', colour: '#d55e00', key: 'saddle' },
+  maximum: { shape: 'triangle', colour: '#cc79a7', key: 'maximum' },
+  degenerate: { shape: 'diamond', colour: '#7f7f7f', key: 'degenerate' },
+};
+const fmt = (v: number) => String(+v.toPrecision(6));
+
+/**
+ * Critical points: Newton's method on grad f = 0 (engine/analysis/critical.ts) from a grid of starts
+ * over the current view (in the slice plane), de-duplicated and classified by the Hessian's
+ * eigenvalues; listed in a table and plotted in the view's box with a key.
+ */
+export function CriticalPointsPanel() {
+  const study = useStudyStore();
+  const surface = useApp((s) => s.surface);
+  const info = useApp((s) => s.surfaceInfo);
+  const view = useApp((s) => s.view);
+  const slice = useApp((s) => s.slice);
+  const [side, setSide] = useState(12);
+  const [found, setFound] = useState<{ points: CriticalPoint[]; converged: number; failed: number; box: typeof view; axes: [number, number] } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [problem, setProblem] = useState<string | null>(slice.plane ? 'Critical points are searched in a slice through two parameters, not a random or principal-direction plane.' : null);
+  const canvas = useRef<HTMLCanvasElement>(null);
+
+  const search = async () => {
+    const n = info.variables.length;
+    const starts = new Float64Array(side * side * n);
+    for (let j = 0; j < side; j++)
+      for (let i = 0; i < side; i++) {
+        const o = (i + j * side) * n;
+        starts.set(slice.at, o);
+        starts[o + slice.axes[0]] = view.a[0] + ((i + 0.5) * (view.a[1] - view.a[0])) / side;
+        starts[o + slice.axes[1]] = view.b[0] + ((j + 0.5) * (view.b[1] - view.b[0])) / side;
+      }
+    setBusy(true);
+    setProblem(null);
+    try {
+      const r = await study.criticalPoints(surface, starts, side * side);
+      setFound({ ...r, box: view, axes: slice.axes });
+    } catch (e) {
+      setProblem((e as Error).message);
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  useEffect(() => {
+    const c = canvas.current;
+    const ctx = c?.getContext('2d');
+    if (!c || !ctx || !found) return;
+    ctx.fillStyle = '#fff';
+    ctx.fillRect(0, 0, c.width, c.height);
+    ctx.strokeStyle = '#999';
+    ctx.strokeRect(0.5, 0.5, c.width - 1, c.height - 1);
+    const { box, axes } = found;
+    for (const p of found.points) {
+      const px = ((p.point[axes[0]] - box.a[0]) / (box.a[1] - box.a[0])) * c.width;
+      const py = (1 - (p.point[axes[1]] - box.b[0]) / (box.b[1] - box.b[0])) * c.height;
+      const g = GLYPH[p.classification?.kind ?? 'degenerate'];
+      if (px >= 0 && px <= c.width && py >= 0 && py <= c.height) drawMarker(ctx, g.shape, { px, py }, 11, { fill: g.colour, outline: '#000', outlineWidth: 1 });
+    }
+  }, [found]);
+
+  const [xName, yName] = [info.variables[slice.axes[0]], info.variables[slice.axes[1]]];
+  return (
+    <section className="study-panel" aria-label="Critical points" data-testid="critical-points">
+      <h2>Critical points</h2>
+      <p className="study-help">
+        Newton's method on ∇f = 0 with the exact Hessian from a grid of starts over the current view; points closer than 1e-6 (relative) are one; each is classified by the Hessian's eigenvalues (a saddle's index is the number of negative ones).
+      </p>
+      <div className="study-controls">
+        <label>
+          starts per side{' '}
+          <select value={side} onChange={(e) => setSide(Number(e.target.value))}>
+            {[6, 12, 24].map((s) => <option key={s} value={s}>{s}</option>)}
+          </select>
+        </label>
+        <button type="button" onClick={search} disabled={busy || !!slice.plane}>{busy ? 'Searching…' : 'Find critical points'}</button>
+        {found && <span data-testid="critical-summary">{found.points.length} points from {found.converged} converged starts ({found.failed} did not converge)</span>}
+      </div>
+      {problem && <p className="field-error" role="alert">{problem}</p>}
+      {found && (
+        <div className="study-body">
+          <figure className="start-map-figure" style={{ width: SIDE + 2 }}>
+            <canvas ref={canvas} width={SIDE} height={SIDE} data-testid="critical-canvas" aria-label="Critical points in the view" />
+            <figcaption className="start-map-axes">
+              {xName} across, {yName} up, over the current view. Key:{' '}
+              {Object.values(GLYPH).map((g) => <span key={g.key} className="critical-key"><span className="swatch" style={{ background: g.colour }} /> {g.key} </span>)}
+            </figcaption>
+          </figure>
+          <table className="study-legend" data-testid="critical-table">
+            <thead><tr><th scope="col">point</th><th scope="col">loss</th><th scope="col">kind</th><th scope="col">eigenvalues</th><th scope="col">|∇f|</th><th scope="col">starts</th></tr></thead>
+            <tbody>
+              {found.points.map((p, k) => (
+                <tr key={k} data-kind={p.classification?.kind ?? 'not classified'}>
+                  <td>({p.point.map(fmt).join(', ')})</td>
+                  <td>{fmt(p.value)}</td>
+                  <td>{p.classification ? (p.classification.kind === 'saddle' ? `saddle (index ${p.classification.negative ?? '≥ 1'})` : p.classification.kind) : 'not classified'}</td>
+                  <td>{p.classification ? `${fmt(p.classification.smallest)} … ${fmt(p.classification.largest)}` : '—'}</td>
+                  <td>{p.gradientNorm.toExponential(1)}</td>
+                  <td>{p.hits}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </section>
+  );
+}
