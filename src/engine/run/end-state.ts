@@ -83,7 +83,9 @@ function newtonStepLength(surface: Surface, x: Float64Array): number | null {
  *  3. stationary otherwise: a saddle with its index, a maximum, or `stationary` (a degenerate
  *     Hessian: flat valley, plateau or asymptote; or too large to classify);
  *  4. a bounded cycle of period 2 to 4: oscillating;
- *  5. otherwise the rule that fired made the run stall, or the step limit / cancel stands.
+ *  5. otherwise the rule that fired made the run stall, or the step limit / cancel stands: a run that
+ *     reached its step limit or was cancelled keeps that outcome (with its end point's state, which
+ *     may well be a stationary minimum) unless it is escaping or oscillating, since no rule saw it end.
  */
 export function judgeEnd(surface: Surface, f: EndFacts, trigger: EndTrigger): RunOutcome {
   const step = f.t;
@@ -92,8 +94,8 @@ export function judgeEnd(surface: Surface, f: EndFacts, trigger: EndTrigger): Ru
   const rule: StopRule = typeof trigger === 'object' ? trigger.rule : 'loss-change';
   const escape = escapeDetail(f, point.stationary && c?.kind !== 'saddle' && c?.kind !== 'maximum');
   if (escape) return { kind: 'escaping', step, detail: escape, point };
-  if (point.stationary && c?.kind === 'minimum') return { kind: 'converged', step, rule, point };
   if (point.stationary && typeof trigger === 'object') {
+    if (c?.kind === 'minimum') return { kind: 'converged', step, rule, point };
     if (!c) return { kind: 'stationary', step, rule, point };
     if (c.kind === 'degenerate' && point.newtonStep !== null)
       return { kind: 'stalled', step, rule, detail: `${stallDetail(trigger, point, true)}; the gradient is small next to the start's, but the local quadratic model's minimum is still ${point.newtonStep.toPrecision(3)} away (an ill-conditioned valley)`, point };

@@ -153,6 +153,7 @@ describe('Sweep: every run equals the same run done alone by RunCursor', () => {
     sweep.advance(10_000);
     const alone = runAlone(bowl, optimizer, stop, starts, { learningRates });
     expectSameAsAlone(sweep, alone);
-    expect(new Set(alone.map((a) => a.outcome!.kind))).toEqual(new Set(['converged', 'oscillating', 'diverged']));
+    // The smallest rates are still closing in at step 300 (no stop rule saw them end: step limit).
+    expect(new Set(alone.map((a) => a.outcome!.kind))).toEqual(new Set(['step-limit', 'converged', 'oscillating', 'diverged']));
   });
 });
