@@ -419,12 +419,12 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   return { store, live, workspaceOf };
 }
 
-const WORKSPACE_KEYS = ['version', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace'] as const;
+const WORKSPACE_KEYS = ['version', 'title', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace'] as const;
 
 /** The saved part of the state. */
 export function workspaceOf(s: AppState): Workspace {
-  const { version, surface, slice, view, display, runs, panels, tolerance, pace } = s;
-  return { version, surface, slice, view, display, runs, panels, tolerance, pace };
+  const { version, title, surface, slice, view, display, runs, panels, tolerance, pace } = s;
+  return { version, ...(title === undefined ? {} : { title }), surface, slice, view, display, runs, panels, tolerance, pace };
 }
 
 /** Whether any saved field changed (the store replaces objects on change, so identity suffices). */
