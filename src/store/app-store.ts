@@ -1,6 +1,7 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { optimizerInfo, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
+import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
 import type { ViewBox } from '../ui/plot';
 import { GridRequestCancelled, type GridPoolResult } from '../worker/pool';
@@ -216,8 +217,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
 
   function updateReference(): void {
     const s = get();
-    const minima = s.surfaceInfo.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min');
-    live.setReference(minima.filter((p) => p.kind === 'global-min').length ? minima : [], s.tolerance);
+    live.setReference(referenceMinima(s.surfaceInfo.knownPoints), s.tolerance);
   }
 
   function applySurface(spec: SurfaceSpec, keepView: boolean): void {

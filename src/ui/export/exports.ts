@@ -1,9 +1,8 @@
-import { optimizerInfo } from '../../engine';
-import { runTableCsv, trajectoryCsv, type RunSummaryRow, type TrajectoryExportRun } from '../../io/csv';
+import { resultsCsvOf, trajectoriesCsvOf } from '../../io/run-exports';
 import type { AppState } from '../../store/app-store';
 import type { LiveRuns } from '../../store/live-runs';
 import { sliceTitles } from '../../store/slice-plane';
-import { formatValue, surfaceToSvg, type PixelSize } from '../plot';
+import { surfaceToSvg, type PixelSize } from '../plot';
 import { frameLayout, frameTransform } from '../view/frame';
 import { cachedPicture } from '../view/picture';
 import { drawBase, drawOverlay, markerInterval } from '../view/scene';
@@ -11,37 +10,12 @@ import { knownPointsOnSlice, trajectoryItems } from '../view/scene-input';
 
 /** Trajectories of every run, one row per run per step (columns in the README). */
 export function trajectoriesCsv(s: AppState, live: LiveRuns): string {
-  const runs: TrajectoryExportRun[] = [];
-  for (const r of s.runs) {
-    const b = live.trajectory(r.id);
-    if (!b) continue;
-    runs.push({ id: r.id, label: r.label, optimizer: optimizerInfo(r.optimizer.kind).label, learningRate: r.optimizer.learningRate, variables: s.surfaceInfo.variables, batch: b.asBatch() });
-  }
-  return trajectoryCsv(runs);
+  return trajectoriesCsvOf(s.runs, (id) => live.trajectory(id)?.asBatch(), s.surfaceInfo.variables);
 }
 
 /** The run table as shown on the page. */
 export function resultsCsv(s: AppState): string {
-  const minima = s.surfaceInfo.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min');
-  const rows: RunSummaryRow[] = s.runs.map((r) => {
-    const sum = s.status[r.id]?.summary;
-    const near = sum?.nearestMinimum ?? null;
-    return {
-      id: r.id,
-      label: r.label,
-      optimizer: optimizerInfo(r.optimizer.kind).label,
-      learningRate: r.optimizer.learningRate,
-      outcome: sum?.outcome ?? null,
-      steps: sum?.steps ?? 0,
-      finalLoss: sum?.finalLoss ?? Number.NaN,
-      variables: s.surfaceInfo.variables,
-      finalPoint: sum?.finalPoint ?? [],
-      distanceToNearestMinimum: near?.distance ?? null,
-      nearestMinimum: near ? `(${minima[near.index].point.map(formatValue).join(', ')})` : null,
-      stepsToTolerance: sum?.stepsToTolerance ?? null,
-    };
-  });
-  return runTableCsv(rows);
+  return resultsCsvOf(s.runs, (id) => s.status[id]?.summary, s.surfaceInfo);
 }
 
 /** The overlaid surface view drawn onto a fresh canvas at `scale` times the CSS size, as PNG. */
