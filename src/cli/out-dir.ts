@@ -1,0 +1,63 @@
+/**
+ * The output folder: created if missing, checked writable and free of unrelated files before any work,
+ * and written atomically (each file under a temporary name, then renamed, the summary last), so an
+ * interrupted or failed run leaves no half-written file.
+ */
+import { mkdirSync, readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { CliError } from './exit-codes';
+
+/** Temporary files not yet renamed, removed if the process is interrupted. */
+const pending = new Set<string>();
+
+/**
+ * Creates `dir` if needed and checks it can be written. Existing entries for which `allowed` is false
+ * refuse the folder unless `force` (which replaces this command's own files and leaves the rest).
+ */
+export function prepareOutDir(dir: string, allowed: (name: string) => boolean, force: boolean): void {
+  try {
+    mkdirSync(dir, { recursive: true });
+  } catch (e) {
+    throw new CliError(`cannot create the output folder ${dir}: ${reason(e)}`);
+  }
+  const probe = join(dir, `.fall-write-check-${process.pid}`);
+  try {
+    writeFileSync(probe, '');
+    rmSync(probe);
+  } catch (e) {
+    throw new CliError(`cannot write into the output folder ${dir}: ${reason(e)}`);
+  }
+  const others = readdirSync(dir).filter((name) => !allowed(name));
+  if (others.length && !force) {
+    const shown = others.slice(0, 5).join(', ') + (others.length > 5 ? `, and ${others.length - 5} more` : '');
+    throw new CliError(`the output folder ${dir} already has files (${shown}); use an empty folder, or --force to write over this command's files there`);
+  }
+}
+
+/** Writes every file under a temporary name, then renames them in order. */
+export function writeAtomically(dir: string, files: readonly [name: string, text: string][]): void {
+  const temps = files.map(([name]) => join(dir, `.${name}.partial-${process.pid}`));
+  try {
+    files.forEach(([, text], k) => {
+      pending.add(temps[k]);
+      writeFileSync(temps[k], text);
+    });
+    files.forEach(([name], k) => {
+      renameSync(temps[k], join(dir, name));
+      pending.delete(temps[k]);
+    });
+  } catch (e) {
+    removePending();
+    throw new CliError(`cannot write the outputs into ${dir}: ${reason(e)}`);
+  }
+}
+
+export function removePending(): void {
+  for (const path of pending) rmSync(path, { force: true });
+  pending.clear();
+}
+
+function reason(e: unknown): string {
+  const err = e as NodeJS.ErrnoException;
+  return err.code ? `${err.code} (${err.message.replace(/^\w+: /, '')})` : String(err.message ?? e);
+}
