@@ -55,7 +55,7 @@ async function run(args: string[]): Promise<number> {
   if (!values.out) throw new CliError('fall run needs --out DIR, the folder for the outputs');
   const threads = values.threads === undefined ? availableParallelism() : Number(values.threads);
   if (!Number.isInteger(threads) || threads < 1) throw new CliError(`--threads ${values.threads}: expected a whole number of at least 1`);
-  const shard = values.shard === undefined ? null : parseShard(values.shard);
+  const shard = values.shard === undefined ? null : shardOption(values.shard);
   return runCommand(
     {
       file: positionals[0],
@@ -69,6 +69,14 @@ async function run(args: string[]): Promise<number> {
     },
     log,
   );
+}
+
+function shardOption(text: string) {
+  try {
+    return parseShard(text);
+  } catch (e) {
+    throw new CliError((e as Error).message);
+  }
 }
 
 function merge(args: string[]): number {

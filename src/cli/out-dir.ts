@@ -3,8 +3,8 @@
  * and written atomically (each file under a temporary name, then renamed, the summary last), so an
  * interrupted or failed run leaves no half-written file.
  */
-import { mkdirSync, readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
 import { CliError } from './exit-codes';
 
 /** Temporary files not yet renamed, removed if the process is interrupted. */
@@ -16,7 +16,9 @@ const pending = new Set<string>();
  */
 export function prepareOutDir(dir: string, allowed: (name: string) => boolean, force: boolean): void {
   try {
-    mkdirSync(dir, { recursive: true });
+    // Only the missing tail is created; a plain mkdir where the parent exists (Node 20's recursive
+    // mkdir can spin on special file systems such as /proc).
+    if (!existsSync(dir)) mkdirSync(dir, { recursive: !existsSync(dirname(dir)) });
   } catch (e) {
     throw new CliError(`cannot create the output folder ${dir}: ${reason(e)}`);
   }
