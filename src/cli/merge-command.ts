@@ -83,21 +83,20 @@ function findShards(dirs: readonly string[]): FoundShard[] {
 }
 
 /**
- * The shards' CSVs in shard order under one header, which must be the same in every shard that has
- * runs (a shard without runs names no variables in its header, as the page's export of no runs does).
+ * The shards' CSVs in shard order under one header, read one shard at a time. The header must be the
+ * same in every shard that has runs (a shard without runs names no variables in its header, as the
+ * page's export of no runs does).
  */
-function joinCsv(shards: readonly FoundShard[], table: 'trajectories' | 'results'): string {
-  let header: string | null = null;
-  const parts: string[] = [];
+function* joinCsv(shards: readonly FoundShard[], table: 'trajectories' | 'results'): Generator<string> {
   const withRuns = shards.filter((s) => s.summary.runs.length > 0);
+  let header: string | null = null;
   for (const s of withRuns.length ? withRuns : shards.slice(0, 1)) {
-    const name = outputNames(s.summary.shard)[table];
-    const text = readFileSync(join(s.dir, name), 'utf8');
+    const path = join(s.dir, outputNames(s.summary.shard)[table]);
+    const text = readFileSync(path, 'utf8');
     const cut = text.indexOf(CSV_LINE_END) + CSV_LINE_END.length;
     const own = text.slice(0, cut);
-    if (header === null) header = own;
-    else if (own !== header) throw new CliError(`${join(s.dir, name)} has other columns than the shards before it; were the shards made by different versions of Fall Line?`);
-    parts.push(text.slice(cut));
+    if (header === null) yield (header = own);
+    else if (own !== header) throw new CliError(`${path} has other columns than the shards before it; were the shards made by different versions of Fall Line?`);
+    yield text.slice(cut);
   }
-  return header + parts.join('');
 }

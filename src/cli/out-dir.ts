@@ -3,7 +3,7 @@
  * and written atomically (each file under a temporary name, then renamed, the summary last), so an
  * interrupted or failed run leaves no half-written file.
  */
-import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { closeSync, existsSync, mkdirSync, openSync, readdirSync, renameSync, rmSync, writeFileSync, writeSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { CliError } from './exit-codes';
 
@@ -36,13 +36,22 @@ export function prepareOutDir(dir: string, allowed: (name: string) => boolean, f
   }
 }
 
+/** A file's contents: the text, or its pieces in order (written one at a time, to bound memory). */
+export type FileContents = string | Iterable<string>;
+
 /** Writes every file under a temporary name, then renames them in order. */
-export function writeAtomically(dir: string, files: readonly [name: string, text: string][]): void {
+export function writeAtomically(dir: string, files: readonly [name: string, contents: FileContents][]): void {
   const temps = files.map(([name]) => join(dir, `.${name}.partial-${process.pid}`));
   try {
-    files.forEach(([, text], k) => {
+    files.forEach(([, contents], k) => {
       pending.add(temps[k]);
-      writeFileSync(temps[k], text);
+      if (typeof contents === 'string') return writeFileSync(temps[k], contents);
+      const fd = openSync(temps[k], 'w');
+      try {
+        for (const piece of contents) writeSync(fd, piece);
+      } finally {
+        closeSync(fd);
+      }
     });
     files.forEach(([name], k) => {
       renameSync(temps[k], join(dir, name));
@@ -50,6 +59,7 @@ export function writeAtomically(dir: string, files: readonly [name: string, text
     });
   } catch (e) {
     removePending();
+    if (e instanceof CliError) throw e;
     throw new CliError(`cannot write the outputs into ${dir}: ${reason(e)}`);
   }
 }

@@ -1,6 +1,6 @@
 /** `fall run FILE --out DIR [--shard i/n] [--threads N] [--force] [--json]`. */
 import { describeSurface } from '../problems';
-import { resultsCsvOf, referenceMinima, trajectoriesCsvOf } from '../io/run-exports';
+import { resultsCsvOf, referenceMinima, trajectoriesCsvPieces } from '../io/run-exports';
 import { EXIT } from './exit-codes';
 import { experimentHash } from './experiment-hash';
 import { loadExperiment } from './load-experiment';
@@ -53,7 +53,7 @@ export async function runCommand(o: RunOptions, log: (line: string) => void): Pr
   const lines = runs.map((r, k) => runLine(r.id, r.label, results[k]));
   const summary = summaryFile(experiment, hash, o.shard, lines);
   writeAtomically(o.out, [
-    [names.trajectories, trajectoriesCsvOf(runs, (id) => byId.get(id)?.trajectory, info.variables)],
+    [names.trajectories, trajectoriesCsvPieces(runs, (id) => byId.get(id)?.trajectory, info.variables)],
     [names.results, resultsCsvOf(runs, (id) => byId.get(id)?.summary, info)],
     [names.summary, summaryText(summary)],
   ]);

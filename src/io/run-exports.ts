@@ -4,7 +4,7 @@
  */
 import { optimizerInfo, type TrajectoryBatch } from '../engine';
 import type { KnownPoint } from '../problems';
-import { runTableCsv, trajectoryCsv, type RunSummaryRow, type TrajectoryExportRun } from './csv';
+import { CSV_LINE_END, runTableCsv, trajectoryCsv, type RunSummaryRow, type TrajectoryExportRun } from './csv';
 import type { RunConfig } from './experiment/types';
 import { formatValue } from './number-text';
 import type { ReferenceMinimum, RunSummary } from './run-summary';
@@ -25,6 +25,19 @@ export function trajectoriesCsvOf(runs: readonly Pick<RunConfig, 'id' | 'label' 
     if (batch) rows.push({ id: r.id, label: r.label, optimizer: optimizerInfo(r.optimizer.kind).label, learningRate: r.optimizer.learningRate, variables, batch });
   }
   return trajectoryCsv(rows);
+}
+
+/**
+ * The same text as `trajectoriesCsvOf`, in pieces of one run each (the header with the first), so a
+ * long sweep is never held as one string. All runs share `variables`, so every run's header is the same.
+ */
+export function* trajectoriesCsvPieces(runs: readonly Pick<RunConfig, 'id' | 'label' | 'optimizer'>[], trajectoryOf: (id: string) => Batch | undefined, variables: readonly string[]): Generator<string> {
+  const recorded = runs.filter((r) => trajectoryOf(r.id) !== undefined);
+  if (!recorded.length) return yield trajectoriesCsvOf([], trajectoryOf, variables);
+  for (const [k, run] of recorded.entries()) {
+    const text = trajectoriesCsvOf([run], trajectoryOf, variables);
+    yield k === 0 ? text : text.slice(text.indexOf(CSV_LINE_END) + CSV_LINE_END.length);
+  }
 }
 
 /** The run table, one row per run (a run without a summary is written as still running). */
