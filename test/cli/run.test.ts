@@ -77,6 +77,10 @@ describe('fall run --shard and fall merge', () => {
     fall(['run', file, '--out', join(dir, 'b'), '--shard', '1/2']);
     expect(fall(['merge', join(dir, 'a'), join(dir, 'b')]).code).toBe(0);
     for (const name of SINGLE) expect(read(join(dir, 'a'), name)).toBe(read(join(dir, 'single'), name));
+    const again = fall(['merge', join(dir, 'a'), join(dir, 'b')]);
+    expect(again.code).toBe(1);
+    expect(again.stderr).toContain('already has files (fall-line-results.csv, fall-line-trajectories.csv, summary.json)');
+    expect(fall(['merge', join(dir, 'a'), join(dir, 'b'), '--force']).code).toBe(0);
   });
 
   it('refuses shards of two different experiment files, naming both', () => {
