@@ -36,7 +36,7 @@ test.describe('the command line computes what the page computes', () => {
     await compareWithCommandLine(page);
   });
 
-  test('the README example opened in the page, with known minima and a typed formula', async ({ page }) => {
+  test('the README example opened in the page: 24 runs, distances to known minima', async ({ page }) => {
     await openFresh(page);
     const example = readFileSync(new URL('../examples/camel-ridge.fall.json', import.meta.url), 'utf8');
     await page.locator('input[type="file"]').setInputFiles({ name: 'camel-ridge.fall.json', mimeType: 'application/json', buffer: Buffer.from(example) });
