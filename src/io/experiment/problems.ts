@@ -20,18 +20,35 @@ export function jsonPathText(path: readonly PropertyKey[]): string {
   );
 }
 
-/** One problem per zod issue (one per unknown field), located in `text` when given. */
-export function problemsFromIssues(issues: readonly z.core.$ZodIssue[], text?: string): FileProblem[] {
+/**
+ * One problem per zod issue (one per unknown field), located in `text` when given. A field missing
+ * from `value` (the parsed input) is reported as missing, placed at the object that lacks it.
+ */
+export function problemsFromIssues(issues: readonly z.core.$ZodIssue[], text?: string, value?: unknown): FileProblem[] {
   const out: FileProblem[] = [];
   for (const issue of issues) {
     const path = issue.path.filter((k): k is string | number => typeof k !== 'symbol');
     if (issue.code === 'unrecognized_keys') {
       for (const key of issue.keys) out.push(located([...path, key], 'unknown field (not part of this version of the experiment file)', text));
+    } else if (path.length && value !== undefined && isMissing(value, path)) {
+      const parent = path.slice(0, -1);
+      const at = text === undefined ? undefined : valueOffset(text, parent);
+      out.push(located(path, 'missing (this field is required)', text, at));
     } else {
       out.push(located(path, describeIssue(issue), text));
     }
   }
   return out;
+}
+
+/** Whether the last key of `path` is absent from an object that is present. */
+function isMissing(value: unknown, path: JsonPath): boolean {
+  let node = value;
+  for (const key of path.slice(0, -1)) {
+    if (node === null || typeof node !== 'object') return false;
+    node = (node as Record<string | number, unknown>)[key];
+  }
+  return node !== null && typeof node === 'object' && !Object.hasOwn(node, path[path.length - 1]);
 }
 
 export function located(path: JsonPath, message: string, text?: string, offset?: number): FileProblem {

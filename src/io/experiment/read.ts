@@ -35,11 +35,11 @@ export function readExperiment(input: unknown): ReadResult {
     const step = EARLIER_VERSIONS[v];
     const parsed = step.schema.safeParse(current);
     // Problems are reported against the file as written (the first step sees the file itself).
-    if (!parsed.success) return fail(...problemsFromIssues(parsed.error.issues, v === version ? text : undefined));
+    if (!parsed.success) return fail(...problemsFromIssues(parsed.error.issues, v === version ? text : undefined, current));
     current = step.upgrade(parsed.data as never);
   }
   const parsed = experimentSchema.safeParse(current);
-  if (!parsed.success) return fail(...problemsFromIssues(parsed.error.issues, version === CURRENT_VERSION ? text : undefined));
+  if (!parsed.success) return fail(...problemsFromIssues(parsed.error.issues, version === CURRENT_VERSION ? text : undefined, current));
   return { ok: true, experiment: parsed.data as Experiment, problems: [] };
 }
 

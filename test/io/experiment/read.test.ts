@@ -146,3 +146,19 @@ describe('parseWorkspace (the page\'s loader)', () => {
     expect(parseWorkspace({ ...current(), extra: true })).toEqual({ ok: false, error: '$.extra: unknown field (not part of this version of the experiment file)' });
   });
 });
+
+describe('missing fields', () => {
+  it('are named as missing, placed at the object that lacks them', () => {
+    const w = current();
+    delete w.runs[1].settings.stop;
+    delete w.tolerance;
+    const text = JSON.stringify(w, null, 2);
+    const found = problems(text);
+    expect(found.map((p) => [p.path, p.message])).toEqual([
+      ['$.runs[1].settings.stop', 'missing (this field is required)'],
+      ['$.tolerance', 'missing (this field is required)'],
+    ]);
+    expect(text.split('\n')[found[0].at!.line - 1].trim()).toBe('"settings": {');
+    expect(found[1].at).toEqual({ line: 1, column: 1 });
+  });
+});
