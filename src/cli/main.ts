@@ -101,6 +101,11 @@ function interrupted(signal: string): void {
   process.exit(EXIT.interrupted);
 }
 
+// A reader that stops early (`fall check x | head`) is not an error of ours.
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code === 'EPIPE') process.exit(typeof process.exitCode === 'number' ? process.exitCode : EXIT.done);
+  throw e;
+});
 process.on('SIGINT', () => interrupted('SIGINT'));
 process.on('SIGTERM', () => interrupted('SIGTERM'));
 
