@@ -2,6 +2,7 @@
 export { hasParameterGroups, isRowwiseSurface, type GroupedSurface, type ParameterGroup, type RowwiseSurface, type Surface } from './surface';
 export * from './vector';
 export * from './rng';
+export { power } from './power';
 export * from './run';
 export { SettingError, type Optimizer, type Oracle, type StepContext, type StepReport } from './optim/types';
 export * from './slice';

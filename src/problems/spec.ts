@@ -64,6 +64,9 @@ const KINDS: { [K in SurfaceSpecKind]: SurfaceKind<Extract<SurfaceSpec, { kind: 
   datafit: dataFitKind,
 };
 
+/** Every surface kind, from the handler registry (the experiment file's schema is built from this). */
+export const SURFACE_KINDS = Object.keys(KINDS) as SurfaceSpecKind[];
+
 function kindOf(spec: unknown): SurfaceKind<SurfaceSpec> {
   if (typeof spec !== 'object' || spec === null || Array.isArray(spec)) {
     throw new Error(`surface spec: expected an object with a 'kind', got ${spec === null ? 'null' : Array.isArray(spec) ? 'an array' : typeof spec}`);

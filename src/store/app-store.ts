@@ -1,6 +1,7 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
+import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
 import type { ViewBox } from '../ui/plot';
 import { GridRequestCancelled, type GridPoolResult } from '../worker/pool';
@@ -229,8 +230,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
 
   function updateReference(): void {
     const s = get();
-    const minima = s.surfaceInfo.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min');
-    live.setReference(minima.filter((p) => p.kind === 'global-min').length ? minima : [], s.tolerance);
+    live.setReference(referenceMinima(s.surfaceInfo.knownPoints), s.tolerance);
   }
 
   function applySurface(spec: SurfaceSpec, keepView: boolean): void {
@@ -461,12 +461,12 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   return { store, live, workspaceOf };
 }
 
-const WORKSPACE_KEYS = ['version', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace'] as const;
+const WORKSPACE_KEYS = ['version', 'title', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace'] as const;
 
 /** The saved part of the state. */
 export function workspaceOf(s: AppState): Workspace {
-  const { version, surface, slice, view, display, runs, panels, tolerance, pace } = s;
-  return { version, surface, slice, view, display, runs, panels, tolerance, pace };
+  const { version, title, surface, slice, view, display, runs, panels, tolerance, pace } = s;
+  return { version, ...(title === undefined ? {} : { title }), surface, slice, view, display, runs, panels, tolerance, pace };
 }
 
 /** Whether any saved field changed (the store replaces objects on change, so identity suffices). */

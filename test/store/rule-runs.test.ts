@@ -68,7 +68,7 @@ describe('rule runs are first-class runs (real store, real worker handler)', () 
     ws.runs[0].optimizer = { ...ws.runs[0].optimizer, kind: 'rule', rule: { name: '', text: 'x = x - lr * g' } };
     const bad = parseWorkspace(JSON.stringify(ws));
     expect(bad.ok).toBe(false);
-    if (!bad.ok) expect(bad.error).toMatch(/^runs\.0\.optimizer\.rule\.name: /);
+    if (!bad.ok) expect(bad.error).toMatch(/\$\.runs\[0\]\.optimizer\.rule\.name: Too small/);
   });
 
   it('a rule that does not compile is reported on the run with its line and column, and nothing is launched', () => {

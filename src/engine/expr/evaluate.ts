@@ -1,6 +1,7 @@
 import type { BinaryOperator, Expr } from './ast';
 import { FormulaSyntaxError, errorAt } from './errors';
 import { BUILTIN_CONSTANTS, FUNCTIONS, describeArity } from './functions';
+import { power } from '../power';
 
 /** Values for the free names of a formula: a plain record (own keys only) or a Map. */
 export type Environment = Readonly<Record<string, number>> | ReadonlyMap<string, number>;
@@ -55,6 +56,6 @@ function applyBinary(op: BinaryOperator, a: number, b: number): number {
     case '/':
       return a / b;
     case '^':
-      return Math.pow(a, b);
+      return power(a, b);
   }
 }

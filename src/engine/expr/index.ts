@@ -2,7 +2,7 @@
 export type { BinaryExpr, BinaryOperator, CallExpr, Expr, NameExpr, NumberExpr, Span, UnaryExpr, UnaryOperator } from './ast';
 export { sameTree } from './ast';
 export { FormulaSyntaxError, type FormulaError } from './errors';
-export { parseFormula, type ParseOptions } from './parser';
+export { parseFormula, MAX_FORMULA_LENGTH, type ParseOptions } from './parser';
 export { printFormula, prettyFormula } from './printer';
 export { freeNames, naturalNameOrder } from './names';
 export { evaluateFormula, type Environment } from './evaluate';

@@ -6,6 +6,7 @@
  * Most are `Math.*`. The machine-learning ones are written out here, each computed so it neither
  * overflows nor loses precision for large |x|.
  */
+import { power } from '../power';
 
 /**
  * Logistic sigmoid 1 / (1 + exp(-x)). For x < 0 it is computed as exp(x) / (1 + exp(x)) so exp never
@@ -71,7 +72,7 @@ export type UnaryKernelName = keyof typeof UNARY_KERNELS;
 
 /** Kernels of two arguments used by the compiled code: `^`, and the binary steps of `min`/`max`. */
 export const BINARY_KERNELS = {
-  pow: Math.pow,
+  pow: power,
   min: Math.min,
   max: Math.max,
 } as const satisfies Record<string, (a: number, b: number) => number>;

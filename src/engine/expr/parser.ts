@@ -14,7 +14,7 @@ import { nearestName } from './suggest';
  *   expression = term , { ( "+" | "-" ) , term } ;                 (* left-associative *)
  *   term       = unary , { ( "*" | "/" ) , unary } ;               (* left-associative *)
  *   unary      = ( "-" | "+" ) , unary | power ;
- *   power      = primary , [ "^" , unary ] ;                       (* right-associative *)
+ *   power      = primary , [ ( "^" | "**" ) , unary ] ;            (* right-associative; "**" is "^" *)
  *   primary    = number | name | call | "(" , expression , ")" ;
  *   call       = name , "(" , [ expression , { "," , expression } ] , ")" ;
  *   number     = ( digits , [ "." , [ digits ] ] | "." , digits ) , [ ( "e" | "E" ) , [ "+" | "-" ] , digits ] ;
@@ -106,11 +106,12 @@ class Parser {
       for (;;) {
         const token = this.peek();
         if (token.kind === 'operator') {
-          const op = token.text as BinaryOperator;
+          const op = this.isDoubleStar(token) ? '^' : (token.text as BinaryOperator);
           const power = INFIX_POWER[op];
           if (power <= rightPower) break;
           this.advance();
-          left = this.infix(left, this.powerOperator(op, token));
+          if (token.text === '*' && op === '^') this.advance(); // the second '*' of '**'
+          left = this.infix(left, op);
         } else if (token.kind === 'invalid') {
           if (INVALID_POWER <= rightPower) break;
           this.advance(); // already reported by the lexer
@@ -139,15 +140,10 @@ class Parser {
     }
   }
 
-  /** `^` after reading `op`; `**` is reported and read as `^`. */
-  private powerOperator(op: BinaryOperator, token: Token): BinaryOperator {
-    const next = this.peek();
-    if (op === '*' && next.kind === 'operator' && next.text === '*' && next.start === token.end) {
-      this.advance();
-      this.report("'**' is not an operator", { start: token.start, end: next.end }, "write '^' for powers");
-      return '^';
-    }
-    return op;
+  /** `**` (two adjacent stars) is a synonym of `^`: same precedence, right-associative. */
+  private isDoubleStar(token: Token): boolean {
+    const next = this.tokens[this.position + 1];
+    return token.text === '*' && next !== undefined && next.kind === 'operator' && next.text === '*' && next.start === token.end;
   }
 
   private infix(left: Parsed, op: BinaryOperator): Parsed {

@@ -1,5 +1,6 @@
 import { checkSetting, isPlainObject, show } from './checks';
 import type { HyperparameterInfo } from './spec';
+import { power } from '../power';
 
 /**
  * Learning-rate schedules as plain data. Every schedule maps the 1-based step counter t to a rate;
@@ -119,11 +120,11 @@ export function learningRateAt(schedule: ScheduleSpec | undefined, base: number,
     case 'constant':
       return base;
     case 'step':
-      return base * Math.pow(schedule.decayRate, Math.floor(k / schedule.decaySteps));
+      return base * power(schedule.decayRate, Math.floor(k / schedule.decaySteps));
     case 'exponential':
-      return base * Math.pow(schedule.decayRate, k / (schedule.decaySteps ?? 1));
+      return base * power(schedule.decayRate, k / (schedule.decaySteps ?? 1));
     case 'inverse-time':
-      return base / Math.pow(1 + (schedule.decayRate * k) / (schedule.decaySteps ?? 1), schedule.power ?? 1);
+      return base / power(1 + (schedule.decayRate * k) / (schedule.decaySteps ?? 1), schedule.power ?? 1);
     case 'cosine': {
       const f = schedule.floorFraction ?? 0;
       const progress = Math.min(k, schedule.horizon) / schedule.horizon;

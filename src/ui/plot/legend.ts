@@ -9,7 +9,8 @@
  * Ticks closer than 0.6 / approxCount of the bar to an accepted one are dropped (decades win). If fewer
  * than two remain, linear ticks are used. Linear ticks: d3 `ticks` and `tickFormat`.
  */
-import { format, tickFormat, ticks } from 'd3';
+import { tickFormat, ticks } from 'd3';
+import { asciiMinus, formatValue } from '../../io/number-text';
 import type { ValueScale } from './colour';
 import { canvasFont, PLOT_STYLE, type DrawingContext } from './context';
 
@@ -35,18 +36,7 @@ export interface LegendModel {
   ticks: LegendTick[];
 }
 
-/**
- * A readable label for a loss value: the fewest significant digits (up to 12) that give the value back,
- * plain decimals for 1e-4 <= |v| < 1e6, exponent form otherwise. Hyphen-minus for negatives.
- */
-export function formatValue(v: number): string {
-  if (v === 0) return '0';
-  if (!Number.isFinite(v)) return String(v);
-  let p = 1;
-  while (p < 12 && Number(v.toPrecision(p)) !== v) p++;
-  const m = Math.abs(v);
-  return asciiMinus(format(m >= 1e-4 && m < 1e6 ? `.${p}~r` : `.${Math.max(0, p - 1)}~e`)(v));
-}
+export { asciiMinus, formatValue } from '../../io/number-text';
 
 export function legendTicks(scale: ValueScale, approxCount = 6): LegendTick[] {
   if (!Number.isFinite(scale.min)) return [];
@@ -92,11 +82,6 @@ function logTicks(scale: ValueScale, count: number): LegendTick[] {
 function roundTo(v: number, step: number): number {
   const r = Math.round(v / step) * step;
   return Number(r.toPrecision(12)) + 0; // + 0 turns -0 into 0
-}
-
-/** d3-format writes the Unicode minus sign; labels use the ASCII hyphen-minus so they parse as numbers. */
-export function asciiMinus(label: string): string {
-  return label.replace(/\u2212/g, '-');
 }
 
 /** Bands (one block per contour level, same colours as the plot) and ticks for the legend bar. */

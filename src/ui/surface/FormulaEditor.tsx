@@ -90,7 +90,7 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
       </div>
       <button type="submit">Use this formula</button>
       <p className="field-help">
-        Operators + - * / ^, functions such as sin, exp, log, sqrt, abs, min, max, sigmoid, softplus; constants pi and e.
+        Operators + - * / ^ (or **, the same power), functions such as sin, exp, log, sqrt, abs, min, max, sigmoid, softplus; constants pi and e.
       </p>
     </form>
   );

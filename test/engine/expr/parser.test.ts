@@ -37,6 +37,14 @@ describe('parseFormula: precedence and associativity', () => {
     ['x^(1/2)', '(x ^ (1 / 2))'],
     ['max(x, y, 0) + sin(2*pi*x)', '(max(x, y, 0) + sin(((2 * pi) * x)))'],
     ['  e  ', 'e'],
+    // '**' is a synonym of '^': the same precedence and right associativity.
+    ['x**2', '(x ^ 2)'],
+    ['2 ** 3 ** 2', '(2 ^ (3 ^ 2))'],
+    ['2 ** 3 ^ 2', '(2 ^ (3 ^ 2))'],
+    ['-x**2', '(-(x ^ 2))'],
+    ['2**-x*3', '((2 ^ (-x)) * 3)'],
+    ['a * b ** 2', '(a * (b ^ 2))'],
+    ['a ** 2 * b', '((a ^ 2) * b)'],
   ])('%s reads as %s', (text, expected) => {
     expect(reading(text)).toBe(expected);
   });
@@ -103,7 +111,7 @@ describe('parseFormula: errors with exact columns', () => {
     ['x # y', "unexpected character '#' at column 3", 2, 3],
     ['sin x', "function 'sin' needs its arguments in parentheses at column 1; write sin(...)", 0, 3],
     ['1 + exp', "function 'exp' needs its arguments in parentheses at column 5; write exp(...)", 4, 7],
-    ['x**2', "'**' is not an operator at column 2; write '^' for powers", 1, 3],
+    ['x* *2', "missing operand after '*' at column 2", 1, 2],
     ['1e400 * x', "number '1e400' is too large at column 1", 0, 5],
   ])('%j: %s', (text, message, start, end) => {
     expect(single(text)).toEqual({ message, start, end });

@@ -1,4 +1,5 @@
 import type { GradientTransform } from '../transform';
+import { power } from '../../power';
 
 export interface MomentsState {
   m: Float64Array;
@@ -22,8 +23,8 @@ export function scaleByAdam(beta1: number, beta2: number, epsilon: number, form:
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length) }),
     update(u, s, _p, t) {
       const { m, v } = s;
-      const c1 = 1 - Math.pow(beta1, t);
-      const c2 = 1 - Math.pow(beta2, t);
+      const c1 = 1 - power(beta1, t);
+      const c2 = 1 - power(beta2, t);
       const hatScale = Math.sqrt(c2) / c1;
       for (let i = 0; i < u.length; i++) {
         const g = u[i];

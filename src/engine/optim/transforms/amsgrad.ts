@@ -1,4 +1,5 @@
 import type { GradientTransform } from '../transform';
+import { power } from '../../power';
 
 export type AmsgradForm = 'pytorch' | 'optax' | 'paper';
 
@@ -25,8 +26,8 @@ export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, fo
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length), vMax: new Float64Array(p.length) }),
     update(u, s, _p, t) {
       const { m, v, vMax } = s;
-      const c1 = form === 'paper' ? 1 : 1 - Math.pow(beta1, t);
-      const c2 = form === 'paper' ? 1 : 1 - Math.pow(beta2, t);
+      const c1 = form === 'paper' ? 1 : 1 - power(beta1, t);
+      const c2 = form === 'paper' ? 1 : 1 - power(beta2, t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
         m[i] = beta1 * m[i] + (1 - beta1) * g;

@@ -1,4 +1,5 @@
 import type { GradientTransform } from '../transform';
+import { power } from '../../power';
 
 export type NadamForm = 'scheduled' | 'constant-beta1';
 
@@ -34,10 +35,10 @@ export function scaleByNadam(beta1: number, beta2: number, epsilon: number, mome
         a = muNext / (1 - s.muProduct * muNext);
         b = (1 - muT) / (1 - s.muProduct);
       } else {
-        a = beta1 / (1 - Math.pow(beta1, t + 1));
-        b = (1 - beta1) / (1 - Math.pow(beta1, t));
+        a = beta1 / (1 - power(beta1, t + 1));
+        b = (1 - beta1) / (1 - power(beta1, t));
       }
-      const c2 = 1 - Math.pow(beta2, t);
+      const c2 = 1 - power(beta2, t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
         m[i] = beta1 * m[i] + (1 - beta1) * g;

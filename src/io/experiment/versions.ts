@@ -1,0 +1,37 @@
+/**
+ * The versions of the experiment file (`.fall.json`) and the migrations between them. Each version's
+ * schema stays here unchanged once released; a file of an earlier version is validated by its own
+ * schema and then migrated step by step to the current one, so files saved by any release still open.
+ *
+ *   1  the workspace as the page first saved it.
+ *   2  adds an optional `$schema` (the JSON Schema address, for editors) and `title` (a name for the
+ *      experiment, carried into the command line's summary.json); fields otherwise as in version 1.
+ */
+import { z } from 'zod';
+import { workspaceFields } from './fields';
+import type { Workspace } from './types';
+
+export const CURRENT_VERSION = 2;
+
+const version1 = z.strictObject({ version: z.literal(1), ...workspaceFields });
+
+export const experimentSchema = z.strictObject({
+  $schema: z.string().optional(),
+  version: z.literal(CURRENT_VERSION),
+  title: z.string().max(200).optional(),
+  ...workspaceFields,
+});
+
+/** A file that passed the current schema: the workspace, plus the editor hint `$schema`. */
+export type Experiment = Workspace & { $schema?: string };
+
+interface VersionStep {
+  schema: z.ZodType;
+  /** Turns a valid file of this version into one of the next version. */
+  upgrade: (file: never) => unknown;
+}
+
+/** Schemas of earlier versions and their one-step migration, keyed by version. */
+export const EARLIER_VERSIONS: Readonly<Record<number, VersionStep>> = {
+  1: { schema: version1, upgrade: (file: z.infer<typeof version1>) => ({ ...file, version: 2 }) },
+};
