@@ -1,5 +1,6 @@
 /** `fall run FILE --out DIR [--shard i/n] [--threads N] [--force] [--json]`. */
-import { describeSurface } from '../problems';
+import { buildSurface, describeSurface } from '../problems';
+import { reportedUnits } from '../io/units';
 import { resultsCsvOf, referenceMinima, trajectoriesCsvPieces } from '../io/run-exports';
 import { EXIT } from './exit-codes';
 import { experimentHash } from './experiment-hash';
@@ -37,6 +38,8 @@ export async function runCommand(o: RunOptions, log: (line: string) => void): Pr
 
   const hash = experimentHash(experiment);
   const info = describeSurface(experiment.surface);
+  // The same unit system as the page's exports: original units for a standardised data-fit surface.
+  const units = reportedUnits(buildSurface(experiment.surface));
   const minima = referenceMinima(info.knownPoints);
   const share = shareOf(workUnits(experiment), o.shard ?? { index: 0, count: 1 });
   const runs = share.map((u) => experiment.runs[u.runIndex]);
@@ -53,8 +56,8 @@ export async function runCommand(o: RunOptions, log: (line: string) => void): Pr
   const lines = runs.map((r, k) => runLine(r.id, r.label, results[k]));
   const summary = summaryFile(experiment, hash, o.shard, lines);
   writeAtomically(o.out, [
-    [names.trajectories, trajectoriesCsvPieces(runs, (id) => byId.get(id)?.trajectory, info.variables)],
-    [names.results, resultsCsvOf(runs, (id) => byId.get(id)?.summary, info)],
+    [names.trajectories, trajectoriesCsvPieces(runs, (id) => byId.get(id)?.trajectory, info.variables, units)],
+    [names.results, resultsCsvOf(runs, (id) => byId.get(id)?.summary, info, units)],
     [names.summary, summaryText(summary)],
   ]);
   const seconds = (Date.now() - started) / 1000;
