@@ -38,3 +38,11 @@ export function countColour(px: { data: number[] }, hex: string, tolerance = 12)
 export async function waitForRunsToEnd(page: Page, count: number): Promise<void> {
   await expect(page.locator('.run-status[data-phase="ended"]')).toHaveCount(count, { timeout: 60_000 });
 }
+
+/** Types a formula into the surface panel, applies it and waits for its contours. */
+export async function applyFormula(page: Page, text: string): Promise<void> {
+  await page.getByLabel('Your formula').check();
+  await page.getByLabel('Formula', { exact: true }).fill(text);
+  await page.getByRole('button', { name: 'Use this formula' }).click();
+  await waitForContours(page);
+}

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { expect, test } from '@playwright/test';
 import Papa from 'papaparse';
-import { openFresh, waitForContours, waitForRunsToEnd } from './helpers';
+import { applyFormula, openFresh, waitForRunsToEnd } from './helpers';
 
 /**
  * The page shows what a run really did: on x^2 + 10 y^2 (lambda_max = 20), gradient descent at exactly
@@ -10,10 +10,7 @@ import { openFresh, waitForContours, waitForRunsToEnd } from './helpers';
  */
 test('gradient descent at 2 / lambda_max is shown as oscillating, below it as converged, in the table and the CSV', async ({ page }) => {
   await openFresh(page);
-  await page.getByLabel('Your formula').check();
-  await page.getByLabel('Formula', { exact: true }).fill('x^2 + 10*y^2');
-  await page.getByRole('button', { name: 'Use this formula' }).click();
-  await waitForContours(page);
+  await applyFormula(page, 'x^2 + 10*y^2');
   for (const name of ['Remove Plain descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
   const kind = page.getByLabel('New run with');
   for (const rate of ['0.1', '0.05']) {

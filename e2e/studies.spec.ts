@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { expect, test } from '@playwright/test';
 import Papa from 'papaparse';
-import { canvasPixels, countColour, openFresh, waitForContours } from './helpers';
+import { applyFormula, canvasPixels, countColour, openFresh, waitForContours } from './helpers';
 
 /**
  * A start-point map on Himmelblau (four minima, published in the reference file) with the demo's Adam
@@ -98,10 +98,7 @@ test('learning-rate sweep on x^2 + 10 y^2: observed thresholds at 2/lambda_max a
   // Source of the expected values: standard quadratic stability of GD (lr < 2/lambda_max) and of heavy
   // ball (lr < 2(1 + mu)/lambda_max), common practice; lambda_max = 20 here.
   await openFresh(page);
-  await page.getByLabel('Your formula').check();
-  await page.getByLabel('Formula', { exact: true }).fill('x^2 + 10*y^2');
-  await page.getByRole('button', { name: 'Use this formula' }).click();
-  await waitForContours(page);
+  await applyFormula(page, 'x^2 + 10*y^2');
   await page.getByRole('tab', { name: 'Learning-rate sweep' }).click();
   const panel = page.getByTestId('rate-sweep');
   await panel.getByRole('button', { name: 'Sweep learning rates' }).click();
@@ -139,10 +136,7 @@ test("critical points of Himmelblau: all 9 found and classified (4 minima, 4 sad
 
 test('sharpness along gradient descent on x^2 + 10 y^2 is constant at lambda_max = 20, below 2/lr', async ({ page }) => {
   await openFresh(page);
-  await page.getByLabel('Your formula').check();
-  await page.getByLabel('Formula', { exact: true }).fill('x^2 + 10*y^2');
-  await page.getByRole('button', { name: 'Use this formula' }).click();
-  await waitForContours(page);
+  await applyFormula(page, 'x^2 + 10*y^2');
   await page.getByRole('button', { name: /^Plain descent/ }).first().click();
   await expect(page.locator('.run-status').first()).toHaveAttribute('data-phase', 'ended', { timeout: 30_000 });
   await page.getByRole('tab', { name: 'Sharpness' }).click();

@@ -3,6 +3,7 @@ import type { CriticalPoint } from '../../engine';
 import { useApp } from '../app-context';
 import { drawMarker, type MarkerShape } from '../plot';
 import { useStudyStore } from './study-context';
+import { useWorkerTask } from './use-worker-task';
 
 const SIDE = 280;
 const GLYPH: Record<string, { shape: MarkerShape; colour: string; key: string }> = {
@@ -26,8 +27,7 @@ export function CriticalPointsPanel() {
   const slice = useApp((s) => s.slice);
   const [side, setSide] = useState(12);
   const [found, setFound] = useState<{ points: CriticalPoint[]; converged: number; failed: number; box: typeof view; axes: [number, number] } | null>(null);
-  const [busy, setBusy] = useState(false);
-  const [problem, setProblem] = useState<string | null>(slice.plane ? 'Critical points are searched in a slice through two parameters, not a random or principal-direction plane.' : null);
+  const { busy, problem, run } = useWorkerTask(slice.plane ? 'Critical points are searched in a slice through two parameters, not a random or principal-direction plane.' : null);
   const canvas = useRef<HTMLCanvasElement>(null);
 
   const search = async () => {
@@ -40,16 +40,10 @@ export function CriticalPointsPanel() {
         starts[o + slice.axes[0]] = view.a[0] + ((i + 0.5) * (view.a[1] - view.a[0])) / side;
         starts[o + slice.axes[1]] = view.b[0] + ((j + 0.5) * (view.b[1] - view.b[0])) / side;
       }
-    setBusy(true);
-    setProblem(null);
-    try {
+    await run(async () => {
       const r = await study.criticalPoints(surface, starts, side * side);
       setFound({ ...r, box: view, axes: slice.axes });
-    } catch (e) {
-      setProblem((e as Error).message);
-    } finally {
-      setBusy(false);
-    }
+    });
   };
 
   useEffect(() => {

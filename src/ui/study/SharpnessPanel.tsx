@@ -3,6 +3,7 @@ import type { OptimizerKind } from '../../engine';
 import { useApp, useLiveRuns } from '../app-context';
 import { drawSharpnessChart } from './sharpness-chart';
 import { useStudyStore } from './study-context';
+import { useWorkerTask } from './use-worker-task';
 
 /** Most trajectory points sampled for the sharpness curve. */
 const MAX_SAMPLES = 300;
@@ -30,8 +31,7 @@ export function SharpnessPanel() {
   const status = useApp((s) => s.status);
   const run = runs.find((r) => r.id === selected) ?? runs[0];
   const [sample, setSample] = useState<Sample | null>(null);
-  const [busy, setBusy] = useState(false);
-  const [problem, setProblem] = useState<string | null>(null);
+  const { busy, problem, setProblem, run: runTask } = useWorkerTask();
   const canvas = useRef<HTMLCanvasElement>(null);
   const steps = run ? status[run.id]?.summary.steps ?? 0 : 0;
 
@@ -44,9 +44,7 @@ export function SharpnessPanel() {
     const rows = Int32Array.from({ length: count }, (_, k) => (count === 1 ? 0 : Math.round((k * (batch.count - 1)) / (count - 1))));
     const points = new Float64Array(count * n);
     rows.forEach((row, k) => points.set(batch.points.subarray(row * n, (row + 1) * n), k * n));
-    setBusy(true);
-    setProblem(null);
-    try {
+    await runTask(async () => {
       const values = await study.sharpness(surface, points, count);
       // 2/lr is the stability line for plain gradient steps (GD and its momentum forms); an adaptive
       // method's learning rate is scaled per coordinate, so the raw Hessian's 2/lr does not apply.
@@ -55,11 +53,7 @@ export function SharpnessPanel() {
       const limitRows = Array.from(rows).filter((row) => row > 0);
       const limit = stepSize ? { steps: Int32Array.from(limitRows, (row) => batch.firstStep + row), values: Float64Array.from(limitRows, (row) => 2 / batch.learningRate[row]) } : null;
       setSample({ runLabel: run.label, steps: stepsOf, values, limit });
-    } catch (e) {
-      setProblem((e as Error).message);
-    } finally {
-      setBusy(false);
-    }
+    });
   };
 
   useEffect(() => {
