@@ -25,6 +25,9 @@ interface StudyWork {
   finish(): Pick<Extract<FromWorker, { type: 'study/done' }>, 'bands' | 'thresholds'>;
 }
 
+/** Most cells in one message to the page. */
+const CELLS_PER_MESSAGE = 1024;
+
 interface StudyJob {
   requestId: string;
   work: StudyWork;
@@ -75,8 +78,14 @@ export class StudyRunner {
       this.post({ type: 'study/error', requestId: job.requestId, message: errorText(e) });
       return;
     }
-    job.done += cells.length;
-    this.post({ type: 'study/cells', requestId: job.requestId, cells: pack(cells), done: job.done, total: job.work.total, elapsedMs: now() - job.startedAt });
+    // In messages of at most CELLS_PER_MESSAGE cells: the page reads each message as a task of its own,
+    // and a wave of a big map can end thousands of runs in one slice.
+    for (let from = 0; from < cells.length || from === 0; from += CELLS_PER_MESSAGE) {
+      const part = cells.slice(from, from + CELLS_PER_MESSAGE);
+      job.done += part.length;
+      this.post({ type: 'study/cells', requestId: job.requestId, cells: pack(part), done: job.done, total: job.work.total, elapsedMs: now() - job.startedAt });
+      if (cells.length === 0) break;
+    }
     if (this.job !== job) return this.job ? this.timing.later(() => this.slice(), 0) : undefined;
     if (job.work.finished) {
       let extra: ReturnType<StudyWork['finish']>;
