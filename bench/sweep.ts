@@ -1,4 +1,4 @@
-import { defaultOptimizerSpec, power, Sweep } from '../src/engine';
+import { buildOptimizer, defaultOptimizerSpec, power, RunCursor, Sweep } from '../src/engine';
 import { buildSurface } from '../src/problems';
 import { bestMs, sink } from './measure';
 
@@ -86,5 +86,44 @@ export function sweepBench() {
     handwrittenStepsPerS: (steps / handMs) * 1000,
     ratio: handMs / engineMs,
     growth: largeMs / engineMs,
+    ...runLoopBench(),
   };
+}
+
+const RUN_STEPS = 200_000;
+
+/**
+ * `run_loop_vs_handwritten`: one Adam run on Rosenbrock from (-1.2, 1) through the ordinary run loop
+ * (RunCursor: every step recorded, stop checks, the recent-point ring) over the same Adam written out
+ * by hand for this surface, in this bundle so both are measured as the app's build runs them.
+ */
+function runLoopBench() {
+  const rosenbrock = buildSurface({ kind: 'catalogue', id: 'rosenbrock' });
+  const optimizer = buildOptimizer({ ...defaultOptimizerSpec('adam'), learningRate: 0.001 });
+  const viaCursor = () => {
+    const cursor = new RunCursor(rosenbrock, optimizer, { start: [-1.2, 1], seed: 1, stop: { maxSteps: RUN_STEPS } });
+    while (!cursor.outcome) cursor.advance(10_000);
+    return cursor.state.x[0];
+  };
+  const byHand = () => {
+    let x = -1.2, y = 1, m0 = 0, m1 = 0, v0 = 0, v1 = 0;
+    for (let t = 1; t <= RUN_STEPS; t++) {
+      const a = 1 - x;
+      const b = y - x * x;
+      const g0 = -2 * a - 400 * x * b;
+      const g1 = 200 * b;
+      m0 = 0.9 * m0 + 0.1 * g0;
+      m1 = 0.9 * m1 + 0.1 * g1;
+      v0 = 0.999 * v0 + 0.001 * g0 * g0;
+      v1 = 0.999 * v1 + 0.001 * g1 * g1;
+      const c1 = 1 - power(0.9, t);
+      const c2 = 1 - power(0.999, t);
+      x -= (0.001 * (m0 / c1)) / (Math.sqrt(v0 / c2) + 1e-8);
+      y -= (0.001 * (m1 / c1)) / (Math.sqrt(v1 / c2) + 1e-8);
+    }
+    return x;
+  };
+  const cursorMs = bestMs(() => (sink.value += viaCursor()), 5);
+  const handMs = bestMs(() => (sink.value += byHand()), 5);
+  return { runLoopStepsPerS: (RUN_STEPS / cursorMs) * 1000, runLoopHandwrittenStepsPerS: (RUN_STEPS / handMs) * 1000, runLoopRatio: handMs / cursorMs };
 }
