@@ -42,3 +42,13 @@ test('gradient descent at 2 / lambda_max is shown as oscillating, below it as co
   expect(rows[1][col('point_kind')]).toBe('minimum');
   expect(Number(rows[0][col('final_grad_norm')])).toBeCloseTo(20, 6);
 });
+
+test('the loss chart has a legend naming every visible run with its colour', async ({ page }) => {
+  await openFresh(page);
+  const legend = page.getByTestId('loss-legend').locator('li');
+  await expect(legend).toHaveText(['Plain descent', 'Momentum', 'Adam']);
+  const fills = await legend.locator('svg :is(circle, polygon)').evaluateAll((els) => els.map((e) => e.getAttribute('fill')));
+  expect(new Set(fills).size).toBe(3);
+  await page.getByRole('button', { name: 'Hide Momentum' }).click();
+  await expect(legend).toHaveText(['Plain descent', 'Adam']);
+});

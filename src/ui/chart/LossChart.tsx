@@ -1,10 +1,11 @@
 import { useEffect, useRef } from 'react';
 import { runStyle } from '../plot';
+import { RunGlyph } from '../runs/RunGlyph';
 import { useApp, useLiveRuns } from '../app-context';
 import { prepareCanvas, useElementSize } from '../view/use-canvas-size';
 import { chooseLossAxis, drawLossChart, type LossSeries } from './loss-chart';
 
-/** Loss against step for every visible run, redrawn at most once per animation frame while streaming. */
+/** Loss against step for every visible run, redrawn at most once per animation frame while streaming, with a legend of the runs' colours and markers. */
 export function LossChart() {
   const live = useLiveRuns();
   const boxRef = useRef<HTMLDivElement>(null);
@@ -45,6 +46,13 @@ export function LossChart() {
       <div ref={boxRef} className="chart-box">
         <canvas ref={canvasRef} data-testid="loss-chart" role="img" aria-label={minimum !== null ? 'Loss above the known minimum against step, log scale' : 'Loss against step'} />
       </div>
+      <ul className="chart-legend" data-testid="loss-legend" aria-label="Runs on the loss chart">
+        {runs.filter((r) => !r.hidden).map((r) => (
+          <li key={r.id} data-run-id={r.id}>
+            <RunGlyph style={r.style} /> {r.label}
+          </li>
+        ))}
+      </ul>
     </section>
   );
 }
