@@ -52,3 +52,12 @@ test('the loss chart has a legend naming every visible run with its colour', asy
   await page.getByRole('button', { name: 'Hide Momentum' }).click();
   await expect(legend).toHaveText(['Plain descent', 'Adam']);
 });
+
+test('the map explains its known-point glyphs: Himmelblau shows a key for minima, saddle points and a maximum', async ({ page }) => {
+  await openFresh(page);
+  await expect(page.getByTestId('known-point-key').first().locator('[data-kind]')).toHaveText(['minimum']); // Rosenbrock: one minimum
+  await page.getByLabel('Catalogue entry').selectOption({ label: 'Himmelblau' });
+  const key = page.getByTestId('known-point-key').first();
+  await expect(key.locator('[data-kind]')).toHaveText(['minimum', 'saddle point', 'maximum']);
+  expect(await key.locator('svg').count()).toBe(3);
+});

@@ -1,3 +1,4 @@
+import { KnownPointKey } from './KnownPointKey';
 import { useId } from 'react';
 import { useActions, useApp } from '../app-context';
 
@@ -35,6 +36,7 @@ export function DisplayControls() {
       <label>
         <input type="checkbox" checked={d.showKnownPoints} onChange={(e) => actions.setDisplay({ showKnownPoints: e.target.checked })} /> known minima and saddles
       </label>
+      {d.showKnownPoints && <KnownPointKey />}
     </div>
   );
 }

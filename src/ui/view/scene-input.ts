@@ -6,7 +6,7 @@ import { runStyle, type KnownPoint as PlotKnownPoint } from '../plot';
 import { projectedTrajectory } from './projection';
 import type { TrajectoryLayerItem } from './scene';
 
-const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
+export const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
 
 type SceneState = Pick<AppState, 'slice' | 'surfaceInfo' | 'display' | 'runs' | 'selectedRunId'>;
 
