@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { expect, test } from '@playwright/test';
 import Papa from 'papaparse';
-import { applyFormula, openFresh, waitForRunsToEnd } from './helpers';
+import { applyFormula, canvasPixels, openFresh, waitForRunsToEnd } from './helpers';
 
 /**
  * The page shows what a run really did: on x^2 + 10 y^2 (lambda_max = 20), gradient descent at exactly
@@ -60,4 +60,15 @@ test('the map explains its known-point glyphs: Himmelblau shows a key for minima
   const key = page.getByTestId('known-point-key').first();
   await expect(key.locator('[data-kind]')).toHaveText(['minimum', 'saddle point', 'maximum']);
   expect(await key.locator('svg').count()).toBe(3);
+});
+
+test('the panel grid has a colour bar with loss values, like the single map', async ({ page }) => {
+  await openFresh(page);
+  await page.getByRole('tab', { name: 'One panel per run' }).click();
+  const bar = page.getByTestId('panel-colour-bar');
+  await expect(bar).toHaveAttribute('data-drawn', 'legend', { timeout: 15_000 });
+  const px = await canvasPixels(page, 'panel-colour-bar');
+  const colours = new Set<string>();
+  for (let k = 0; k < px.data.length; k += 4) if (px.data[k + 3] > 200) colours.add(`${px.data[k] >> 3},${px.data[k + 1] >> 3},${px.data[k + 2] >> 3}`);
+  expect(colours.size).toBeGreaterThan(10); // the bands of the colour map, not a blank box
 });

@@ -1,5 +1,6 @@
 import { optimizerInfo, optimizerLabel } from '../../engine';
 import { useApp } from '../app-context';
+import { ColourBar } from './ColourBar';
 import { SurfaceView } from './SurfaceView';
 
 /**
@@ -14,6 +15,7 @@ export function PanelGrid() {
     if (!cells.length) return <p className="hint">Set the table's optimizers and learning rates, then build its runs.</p>;
     const columns = panels.tableLearningRates.length;
     return (
+      <div className="panel-grid-with-bar">
       <div className="panel-grid" style={{ gridTemplateColumns: `auto repeat(${columns}, minmax(0, 1fr))` }} data-testid="panel-grid">
         <div />
         {panels.tableLearningRates.map((lr) => (
@@ -26,14 +28,19 @@ export function PanelGrid() {
           return <TableRow key={`${kind}-${row}`} label={rowRuns[0] ? optimizerLabel(rowRuns[0].optimizer) : optimizerInfo(kind).label} runs={rowRuns} />;
         })}
       </div>
+      <ColourBar />
+      </div>
     );
   }
   const visible = runs.filter((r) => !r.hidden);
   return (
-    <div className="panel-grid" style={{ gridTemplateColumns: `repeat(${Math.min(3, Math.max(1, visible.length))}, minmax(0, 1fr))` }} data-testid="panel-grid">
-      {visible.map((r) => (
-        <SurfaceView key={r.id} runIds={[r.id]} title={r.label} compact />
-      ))}
+    <div className="panel-grid-with-bar">
+      <div className="panel-grid" style={{ gridTemplateColumns: `repeat(${Math.min(3, Math.max(1, visible.length))}, minmax(0, 1fr))` }} data-testid="panel-grid">
+        {visible.map((r) => (
+          <SurfaceView key={r.id} runIds={[r.id]} title={r.label} compact />
+        ))}
+      </div>
+      <ColourBar />
     </div>
   );
 }
