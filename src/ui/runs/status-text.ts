@@ -8,7 +8,7 @@ export function statusText(status: RunStatus | undefined, kind?: OptimizerKind):
   if (!status) return 'not started';
   if (status.phase === 'error') return `error: ${status.error ? (kind ? runErrorMessage(status.error.message, kind) : status.error.message) : 'unknown'}`;
   if (status.summary.outcome) return describeOutcome(status.summary.outcome);
-  return `${status.phase === 'paused' ? 'paused' : 'running'}, step ${status.summary.steps}`;
+  return status.phase === 'paused' ? 'paused' : 'running'; // the step count is on the card's progress line
 }
 
 /** How far a run got against its step budget: "step 729 of 3000". */
