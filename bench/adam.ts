@@ -1,7 +1,9 @@
 import * as tf from '@tensorflow/tfjs-core';
 import '@tensorflow/tfjs-backend-cpu';
 import '@tensorflow/tfjs-core/dist/register_all_gradients';
-import { buildOptimizer, defaultOptimizerSpec, RunCursor } from '../src/engine';
+import { buildOptimizer, defaultOptimizerSpec, power, RunCursor } from '../src/engine';
+import { handAdamRosenbrock } from './handwritten';
+import { sink } from './measure';
 import { buildSurface } from '../src/problems';
 
 const LR = 0.001;
@@ -18,27 +20,11 @@ function engineAdam(steps: number): number {
   return steps / (performance.now() - t0);
 }
 
-/** The same Adam loop written out by hand: the limit for any engine. */
+/** The same Adam loop written out by hand (bench/handwritten.ts): the limit for any engine. */
 function handAdam(steps: number): number {
-  let x = -1.2, y = 1, m0 = 0, m1 = 0, v0 = 0, v1 = 0, b1t = 1, b2t = 1;
   const t0 = performance.now();
-  for (let t = 1; t <= steps; t++) {
-    const a = 1 - x;
-    const b = y - x * x;
-    const g0 = -2 * a - 400 * x * b;
-    const g1 = 200 * b;
-    m0 = 0.9 * m0 + 0.1 * g0;
-    m1 = 0.9 * m1 + 0.1 * g1;
-    v0 = 0.999 * v0 + 0.001 * g0 * g0;
-    v1 = 0.999 * v1 + 0.001 * g1 * g1;
-    b1t *= 0.9;
-    b2t *= 0.999;
-    x -= (LR * (m0 / (1 - b1t))) / (Math.sqrt(v0 / (1 - b2t)) + 1e-8);
-    y -= (LR * (m1 / (1 - b1t))) / (Math.sqrt(v1 / (1 - b2t)) + 1e-8);
-  }
-  const ms = performance.now() - t0;
-  if (!Number.isFinite(x + y)) throw new Error('bench: hand-written Adam diverged');
-  return steps / ms;
+  sink.value += handAdamRosenbrock(steps, LR, power);
+  return steps / (performance.now() - t0);
 }
 
 /** tfjs-core 4.22.0 on its CPU backend: optimizer.minimize with tfjs's own gradient. */

@@ -46,3 +46,28 @@ export function mixedGrad(p: ArrayLike<number>, g: Float64Array): number {
   g[1] = x * c - 0.5 * y * e * c3 + (2 * x * x * y) / q - dt;
   return Math.sin(xy) + e * c3 + Math.log1p(xy * xy) + t;
 }
+
+/**
+ * Adam (Kingma & Ba, Algorithm 1; beta1 0.9, beta2 0.999, eps 1e-8) on Rosenbrock from (-1.2, 1),
+ * written out by hand: the limit for one run through any engine. The bias corrections use the
+ * engine's products-only power, as the engine does. Returns the final x.
+ */
+export function handAdamRosenbrock(steps: number, lr: number, power: (a: number, b: number) => number): number {
+  let x = -1.2, y = 1, m0 = 0, m1 = 0, v0 = 0, v1 = 0;
+  for (let t = 1; t <= steps; t++) {
+    const a = 1 - x;
+    const b = y - x * x;
+    const g0 = -2 * a - 400 * x * b;
+    const g1 = 200 * b;
+    m0 = 0.9 * m0 + 0.1 * g0;
+    m1 = 0.9 * m1 + 0.1 * g1;
+    v0 = 0.999 * v0 + 0.001 * g0 * g0;
+    v1 = 0.999 * v1 + 0.001 * g1 * g1;
+    const c1 = 1 - power(0.9, t);
+    const c2 = 1 - power(0.999, t);
+    x -= (lr * (m0 / c1)) / (Math.sqrt(v0 / c2) + 1e-8);
+    y -= (lr * (m1 / c1)) / (Math.sqrt(v1 / c2) + 1e-8);
+  }
+  if (!Number.isFinite(x + y)) throw new Error('bench: hand-written Adam diverged');
+  return x;
+}

@@ -1,5 +1,6 @@
 import { buildOptimizer, defaultOptimizerSpec, power, RunCursor, Sweep } from '../src/engine';
 import { buildSurface } from '../src/problems';
+import { handAdamRosenbrock } from './handwritten';
 import { bestMs, sink } from './measure';
 
 const STEPS = 500;
@@ -105,24 +106,7 @@ function runLoopBench() {
     while (!cursor.outcome) cursor.advance(10_000);
     return cursor.state.x[0];
   };
-  const byHand = () => {
-    let x = -1.2, y = 1, m0 = 0, m1 = 0, v0 = 0, v1 = 0;
-    for (let t = 1; t <= RUN_STEPS; t++) {
-      const a = 1 - x;
-      const b = y - x * x;
-      const g0 = -2 * a - 400 * x * b;
-      const g1 = 200 * b;
-      m0 = 0.9 * m0 + 0.1 * g0;
-      m1 = 0.9 * m1 + 0.1 * g1;
-      v0 = 0.999 * v0 + 0.001 * g0 * g0;
-      v1 = 0.999 * v1 + 0.001 * g1 * g1;
-      const c1 = 1 - power(0.9, t);
-      const c2 = 1 - power(0.999, t);
-      x -= (0.001 * (m0 / c1)) / (Math.sqrt(v0 / c2) + 1e-8);
-      y -= (0.001 * (m1 / c1)) / (Math.sqrt(v1 / c2) + 1e-8);
-    }
-    return x;
-  };
+  const byHand = () => handAdamRosenbrock(RUN_STEPS, 0.001, power);
   const cursorMs = bestMs(() => (sink.value += viaCursor()), 5);
   const handMs = bestMs(() => (sink.value += byHand()), 5);
   return { runLoopStepsPerS: (RUN_STEPS / cursorMs) * 1000, runLoopHandwrittenStepsPerS: (RUN_STEPS / handMs) * 1000, runLoopRatio: handMs / cursorMs };
