@@ -23,3 +23,15 @@ export function shardOfName(name: string): Shard | null {
   const m = SHARD_FILE.exec(name);
   return m ? { index: Number(m[1]), count: Number(m[2]) } : null;
 }
+
+/** A shard file still being written by another task: `.<shard file name>.partial-<pid>` (out-dir.ts). */
+const SHARD_TEMP = /^\.(.+)\.partial-\d+$/;
+
+/**
+ * The shard a folder entry belongs to, finished or still being written (the tasks of one job array
+ * write into one folder at the same time), or null. Merges read finished files only (shardOfName).
+ */
+export function shardOfEntry(name: string): Shard | null {
+  const temp = SHARD_TEMP.exec(name);
+  return shardOfName(temp ? temp[1] : name);
+}

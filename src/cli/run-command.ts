@@ -5,7 +5,7 @@ import { resultsCsvOf, referenceMinima, trajectoriesCsvPieces } from '../io/run-
 import { EXIT } from './exit-codes';
 import { experimentHash } from './experiment-hash';
 import { loadExperiment } from './load-experiment';
-import { outputNames, shardOfName } from './output-names';
+import { outputNames, shardOfEntry } from './output-names';
 import { prepareOutDir, writeAtomically } from './out-dir';
 import { createProgress, type ProgressStyle } from './progress';
 import type { RunResult } from './run-one';
@@ -31,7 +31,7 @@ export async function runCommand(o: RunOptions, log: (line: string) => void): Pr
   const own = new Set(Object.values(names));
   // Other shards of the same split may share the folder (a job array writes into one); nothing else.
   const otherShard = (name: string) => {
-    const s = shardOfName(name);
+    const s = shardOfEntry(name);
     return o.shard !== null && s !== null && !own.has(name) && s.count === o.shard.count;
   };
   prepareOutDir(o.out, otherShard, o.force);

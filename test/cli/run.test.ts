@@ -69,6 +69,18 @@ describe('fall run --shard and fall merge', () => {
     for (const name of SINGLE) expect(read(join(dir, 'merged'), name)).toBe(read(join(dir, 'single'), name));
   });
 
+  it("a shard writes beside another shard's file still being written (the tasks of a job array share one folder)", () => {
+    // Seen on the one-node Slurm: task 2 found task 3's temporary file and refused the folder.
+    const dir = scratch();
+    const file = writeJson(dir, 'sweep.fall.json', sweepExperiment());
+    mkdirSync(join(dir, 'shards'));
+    writeFileSync(join(dir, 'shards', '.fall-line-trajectories.shard-3-of-4.csv.partial-12345'), '');
+    expect(fall(['run', file, '--out', join(dir, 'shards'), '--shard', '2/4']).code).toBe(0);
+    // Anything else in the folder is still refused.
+    writeFileSync(join(dir, 'shards', 'notes.txt'), 'mine');
+    expect(fall(['run', file, '--out', join(dir, 'shards'), '--shard', '1/4']).code).toBe(1);
+  });
+
   it('merges shards spread over several folders, into the first by default', () => {
     const dir = scratch();
     const file = writeJson(dir, 'sweep.fall.json', sweepExperiment());
