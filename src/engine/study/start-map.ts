@@ -1,5 +1,6 @@
 import type { OptimizerSpec } from '../optim/spec';
 import type { StopRules } from '../run';
+import { gridCellStart } from '../sweep/grid';
 
 /**
  * A start-point map as plain data: one run of one configuration from every cell centre of a
@@ -7,7 +8,7 @@ import type { StopRules } from '../run';
  * coordinates stay as `base` holds them (for surfaces of more than two parameters the map is a slice).
  * Cell (i, j) has index i + j * resolution and its start at the centre of the cell: a_lo + (i + 1/2)
  * (a_hi - a_lo) / resolution along the first axis, likewise b with j along the second (the same cells
- * as sweep/grid.ts `startGrid`, one at a time). Cells run in `coarseToFineOrder(resolution,
+ * as sweep/grid.ts `startGrid`, one at a time, by its `gridCellStart`). Cells run in `coarseToFineOrder(resolution,
  * resolution)` (sweep/grid.ts).
  */
 export interface StartMapSpec {
@@ -38,9 +39,5 @@ export function validateStartMap(spec: StartMapSpec, dimension: number): void {
 export function cellStart(spec: StartMapSpec, index: number, out: Float64Array): Float64Array {
   const r = spec.resolution;
   const i = index % r;
-  const j = (index - i) / r;
-  out.set(spec.base);
-  out[spec.axes[0]] = spec.box.a[0] + ((i + 0.5) * (spec.box.a[1] - spec.box.a[0])) / r;
-  out[spec.axes[1]] = spec.box.b[0] + ((j + 0.5) * (spec.box.b[1] - spec.box.b[0])) / r;
-  return out;
+  return gridCellStart(spec.box, r, r, i, (index - i) / r, spec.base, spec.axes, out);
 }

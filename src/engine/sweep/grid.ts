@@ -34,16 +34,20 @@ export function startGrid(box: StartBox, resolution: number | { nx: number; ny: 
   if (!(Number.isInteger(p) && Number.isInteger(q) && p >= 0 && q >= 0 && p < n && q < n && p !== q))
     throw new Error(`startGrid: axes must be two different coordinates of the ${n}, got [${p}, ${q}]`);
   const starts = new Float64Array(nx * ny * n);
-  const [a0, a1] = box.a;
-  const [b0, b1] = box.b;
-  for (let j = 0; j < ny; j++)
-    for (let i = 0; i < nx; i++) {
-      const o = (i + j * nx) * n;
-      for (let k = 0; k < n; k++) starts[o + k] = base[k];
-      starts[o + p] = a0 + ((i + 0.5) * (a1 - a0)) / nx;
-      starts[o + q] = b0 + ((j + 0.5) * (b1 - b0)) / ny;
-    }
+  for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) gridCellStart(box, nx, ny, i, j, base, [p, q], starts.subarray((i + j * nx) * n, (i + j * nx + 1) * n));
   return { starts, nx, ny, dimension: n };
+}
+
+/**
+ * The start of cell (i, j) of an nx x ny grid over `box` (the formula above), written into `out`:
+ * `base` everywhere, the two axis coordinates at the cell's centre. The one home of that formula, for
+ * a whole grid (startGrid) and for one cell (a start-point map's cell, a clicked cell).
+ */
+export function gridCellStart(box: StartBox, nx: number, ny: number, i: number, j: number, base: ArrayLike<number>, axes: readonly [number, number], out: Float64Array): Float64Array {
+  for (let k = 0; k < out.length; k++) out[k] = base[k];
+  out[axes[0]] = box.a[0] + ((i + 0.5) * (box.a[1] - box.a[0])) / nx;
+  out[axes[1]] = box.b[0] + ((j + 0.5) * (box.b[1] - box.b[0])) / ny;
+  return out;
 }
 
 /**

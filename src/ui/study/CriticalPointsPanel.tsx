@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import type { CriticalPoint } from '../../engine';
+import { startGrid, type CriticalPoint } from '../../engine';
 import { useApp } from '../app-context';
 import { drawMarker, type MarkerShape } from '../plot';
 import { useStudyStore } from './study-context';
@@ -31,15 +31,7 @@ export function CriticalPointsPanel() {
   const canvas = useRef<HTMLCanvasElement>(null);
 
   const search = async () => {
-    const n = info.variables.length;
-    const starts = new Float64Array(side * side * n);
-    for (let j = 0; j < side; j++)
-      for (let i = 0; i < side; i++) {
-        const o = (i + j * side) * n;
-        starts.set(slice.at, o);
-        starts[o + slice.axes[0]] = view.a[0] + ((i + 0.5) * (view.a[1] - view.a[0])) / side;
-        starts[o + slice.axes[1]] = view.b[0] + ((j + 0.5) * (view.b[1] - view.b[0])) / side;
-      }
+    const { starts } = startGrid(view, side, { base: slice.at, axes: slice.axes });
     await run(async () => {
       const r = await study.criticalPoints(surface, starts, side * side);
       setFound({ ...r, box: view, axes: slice.axes });

@@ -6,6 +6,7 @@ import { chooseLossAxis } from '../chart/loss-chart';
 import { download } from '../export/download';
 import { useMainThreadSurface } from '../view/use-surface';
 import { drawBandChart } from './band-chart';
+import { basinRadiusOf, knownMinima } from './basin-inputs';
 import { useStudy, useStudyStore } from './study-context';
 
 type DistributionChoice = 'uniform' | 'gaussian' | 'glorot' | 'he';
@@ -53,8 +54,7 @@ export function MultiStartPanel() {
   const start = () => {
     if (!config || problem) return;
     const s: MultiStartSpec = { kind: 'multi-start', optimizer: config.optimizer, stop: config.settings.stop, seed: config.settings.seed, distribution: distribution(), count, startSeed };
-    const known = info.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min').map((p) => ({ point: p.point, label: `minimum (${p.point.map((v) => +v.toPrecision(6)).join(', ')})` }));
-    study.start({ surface: surfaceSpec, variables: info.variables, spec: s, configLabel: config.label, known, basinRadius: 0.01 * Math.hypot(view.a[1] - view.a[0], view.b[1] - view.b[0]) });
+    study.start({ surface: surfaceSpec, variables: info.variables, spec: s, configLabel: config.label, known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view) });
   };
 
   const results: StartResult[] = [];

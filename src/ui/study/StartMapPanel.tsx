@@ -5,6 +5,7 @@ import { useActions, useApp } from '../app-context';
 import { download } from '../export/download';
 import { mapLegend, paintStartMap } from './paint-map';
 import { basinColour, cssColour, OUTCOME_COLOURS } from './study-colours';
+import { basinRadiusOf, knownMinima } from './basin-inputs';
 import { useStudy, useStudyStore } from './study-context';
 
 const SIDE = 320;
@@ -42,8 +43,7 @@ export function StartMapPanel() {
       kind: 'start-map', optimizer: config.optimizer, stop: config.settings.stop, seed: config.settings.seed,
       box: { a: [view.a[0], view.a[1]], b: [view.b[0], view.b[1]] }, axes: slice.axes, base: slice.at.slice(), resolution,
     };
-    const known = info.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min').map((p) => ({ point: p.point, label: `minimum (${p.point.map((v) => +v.toPrecision(6)).join(', ')})` }));
-    study.start({ surface, variables: info.variables, spec, configLabel: config.label, known, basinRadius: 0.01 * Math.hypot(view.a[1] - view.a[0], view.b[1] - view.b[0]) });
+    study.start({ surface, variables: info.variables, spec, configLabel: config.label, known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view) });
   };
 
   useEffect(() => {
