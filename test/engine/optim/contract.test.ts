@@ -19,7 +19,7 @@ import { counting, rosenbrock } from './surfaces';
 /** Settings that keep every kind well-behaved on Rosenbrock for a few dozen steps. */
 const specs: OptimizerSpec[] = OPTIMIZERS.flatMap((o) => {
   const base = { ...defaultOptimizerSpec(o.kind), learningRate: o.usesSchedule ? 1e-3 : 1 };
-  if (o.kind === 'nesterov') return [base, { ...base, hyper: { ...base.hyper, form: 'sutskever' } }];
+  if (o.kind === 'nesterov') return [base, { ...base, hyper: { ...base.hyper, form: 'record-base-point' } }];
   if (o.kind === 'newton') return [base, { ...base, hyper: { ...base.hyper, lineSearch: 'backtracking' } }, { ...base, hyper: { ...base.hyper, variant: 'saddle-free' } }];
   if (o.kind === 'lbfgs') return [base, { ...base, learningRate: 0.01, hyper: { ...base.hyper, lineSearch: 'none' } }];
   return [{ ...base, schedule: { kind: 'cosine', horizon: 30, warmupSteps: 3 } }];

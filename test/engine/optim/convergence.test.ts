@@ -44,9 +44,9 @@ const table: { name: string; quadratic: Case; rosenbrock: Case }[] = [
     rosenbrock: { spec: { kind: 'nesterov', learningRate: 0.0005, hyper: { momentum: 0.9 } }, maxSteps: 40000, tolerance: 1e-3 },
   },
   {
-    name: 'nesterov (Sutskever form)',
-    quadratic: { spec: { kind: 'nesterov', learningRate: 0.02, hyper: { momentum: 0.8, form: 'sutskever' } }, maxSteps: 2000, tolerance: 1e-6 },
-    rosenbrock: { spec: { kind: 'nesterov', learningRate: 0.0005, hyper: { momentum: 0.9, form: 'sutskever' } }, maxSteps: 40000, tolerance: 1e-3 },
+    name: 'nesterov (record-base-point form)',
+    quadratic: { spec: { kind: 'nesterov', learningRate: 0.02, hyper: { momentum: 0.8, form: 'record-base-point' } }, maxSteps: 2000, tolerance: 1e-6 },
+    rosenbrock: { spec: { kind: 'nesterov', learningRate: 0.0005, hyper: { momentum: 0.9, form: 'record-base-point' } }, maxSteps: 40000, tolerance: 1e-3 },
   },
   {
     name: 'adagrad',

@@ -18,13 +18,13 @@ describe('equivalences', () => {
   it('Nesterov with beta = 0 is gradient descent, in both forms', () => {
     const gd = path(rosenbrock, { kind: 'gd', learningRate: 0.001 }, [-1.2, 1]);
     expect(path(rosenbrock, { kind: 'nesterov', learningRate: 0.001, hyper: { momentum: 0 } }, [-1.2, 1])).toEqual(gd);
-    expect(path(rosenbrock, { kind: 'nesterov', learningRate: 0.001, hyper: { momentum: 0, form: 'sutskever' } }, [-1.2, 1])).toEqual(gd);
+    expect(path(rosenbrock, { kind: 'nesterov', learningRate: 0.001, hyper: { momentum: 0, form: 'record-base-point' } }, [-1.2, 1])).toEqual(gd);
   });
 
-  it('Nesterov library form stores the look-ahead point theta_t + mu v_t of the Sutskever form (reference section 3)', () => {
+  it("Nesterov 'record-look-ahead' stores the look-ahead point theta_t + mu v_t of the 'record-base-point' form (reference section 3)", () => {
     const mu = 0.9;
     const lib = runSpec(valley, { kind: 'nesterov', learningRate: 0.01, hyper: { momentum: mu } }, [-1, 2], { maxSteps: 50 }).batch;
-    const sut = runSpec(valley, { kind: 'nesterov', learningRate: 0.01, hyper: { momentum: mu, form: 'sutskever' } }, [-1, 2], { maxSteps: 51 }).batch;
+    const sut = runSpec(valley, { kind: 'nesterov', learningRate: 0.01, hyper: { momentum: mu, form: 'record-base-point' } }, [-1, 2], { maxSteps: 51 }).batch;
     // theta_t + mu v_t = theta_t + mu (theta_t - theta_{t-1}).
     for (let t = 1; t <= 50; t++) {
       const a = pointAt(sut, t);
@@ -39,14 +39,14 @@ describe('equivalences', () => {
     expect(path(rosenbrock, { kind: 'adamw', learningRate: 0.01, weightDecay: 0 }, [-1.2, 1])).toEqual(path(rosenbrock, { kind: 'adam', learningRate: 0.01 }, [-1.2, 1]));
   });
 
-  it("Adam with the decoupled weightDecay option is AdamW's library form", () => {
+  it("Adam with the decoupled weightDecay option is AdamW's 'times-learning-rate' form", () => {
     expect(path(rosenbrock, { kind: 'adam', learningRate: 0.01, weightDecay: 0.05 }, [-1.2, 1])).toEqual(
       path(rosenbrock, { kind: 'adamw', learningRate: 0.01, weightDecay: 0.05 }, [-1.2, 1]),
     );
   });
 
-  it("AdamW's paper form with lambda equals the library form with lambda / alpha (reference section 7)", () => {
-    const paper = path(valley, { kind: 'adamw', learningRate: 0.05, weightDecay: 0.01, hyper: { decayForm: 'paper' }, schedule: { kind: 'cosine', horizon: 200 } }, [-1, 2]);
+  it("AdamW's 'times-schedule' form with lambda equals the 'times-learning-rate' form with lambda / alpha (reference section 7)", () => {
+    const paper = path(valley, { kind: 'adamw', learningRate: 0.05, weightDecay: 0.01, hyper: { decayForm: 'times-schedule' }, schedule: { kind: 'cosine', horizon: 200 } }, [-1, 2]);
     const library = path(valley, { kind: 'adamw', learningRate: 0.05, weightDecay: 0.01 / 0.05, schedule: { kind: 'cosine', horizon: 200 } }, [-1, 2]);
     paper.forEach((v, i) => expect(v).toBeCloseTo(library[i], 13));
   });

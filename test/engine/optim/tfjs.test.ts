@@ -139,7 +139,7 @@ describe('the tfjs comparison can tell conventions apart', () => {
 
   it('Adam with the epsilon-hat form does not match tfjs (Algorithm 1) at epsilon 0.1', () => {
     const ref = runTfjs(() => tf.train.adam(0.05, 0.9, 0.999, 0.1), valley, [-1, 2], STEPS);
-    const { batch } = runSpec(valley, { kind: 'adam', learningRate: 0.05, hyper: { epsilon: 0.1, epsilonForm: 'hat' } }, [-1, 2], { maxSteps: STEPS });
+    const { batch } = runSpec(valley, { kind: 'adam', learningRate: 0.05, hyper: { epsilon: 0.1, epsilonForm: 'eps-before-correction' } }, [-1, 2], { maxSteps: STEPS });
     const p = pointAt(batch, STEPS);
     expect(Math.hypot(p[0] - ref[STEPS][0], p[1] - ref[STEPS][1])).toBeGreaterThan(1e-3);
   });

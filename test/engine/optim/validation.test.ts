@@ -50,7 +50,7 @@ const invalid: Record<OptimizerKind, Bad[]> = {
   ],
   nesterov: [
     [{ hyper: { momentum: 1.2 } }, 'hyper.momentum', 'nesterov: momentum must be in [0, 1), got 1.2'],
-    [{ hyper: { form: 'torch' } }, 'hyper.form', "nesterov: form must be one of 'library', 'sutskever', got 'torch'"],
+    [{ hyper: { form: 'torch' } }, 'hyper.form', "nesterov: form must be one of 'record-look-ahead', 'record-base-point', got 'torch'"],
     [{ hyper: { dampening: 0.1 } }, 'hyper.dampening', "nesterov: unknown setting 'dampening' (known: momentum, form)"],
   ],
   adagrad: [
@@ -69,20 +69,20 @@ const invalid: Record<OptimizerKind, Bad[]> = {
     [{ hyper: { beta2: 1 } }, 'hyper.beta2', 'adam: beta2 must be in [0, 1), got 1'],
     [{ hyper: { epsilon: -1 } }, 'hyper.epsilon', 'adam: epsilon must be a finite number >= 0, got -1'],
     [{ hyper: { beta3: 0.5 } }, 'hyper.beta3', "adam: unknown setting 'beta3' (known: beta1, beta2, epsilon, epsilonForm)"],
-    [{ hyper: { epsilonForm: 'inside' } }, 'hyper.epsilonForm', "adam: epsilonForm must be one of 'algorithm1', 'hat', got 'inside'"],
+    [{ hyper: { epsilonForm: 'inside' } }, 'hyper.epsilonForm', "adam: epsilonForm must be one of 'eps-after-correction', 'eps-before-correction', got 'inside'"],
   ],
   adamw: [
     [{ weightDecay: -0.01 }, 'weightDecay', 'adamw: weightDecay must be a finite number >= 0, got -0.01'],
-    [{ hyper: { decayForm: 'decoupled' } }, 'hyper.decayForm', "adamw: decayForm must be one of 'library', 'paper', got 'decoupled'"],
+    [{ hyper: { decayForm: 'decoupled' } }, 'hyper.decayForm', "adamw: decayForm must be one of 'times-learning-rate', 'times-schedule', got 'decoupled'"],
     [{ hyper: { beta1: NaN } }, 'hyper.beta1', 'adamw: beta1 must be in [0, 1), got NaN'],
   ],
   amsgrad: [
-    [{ hyper: { form: 'keras' } }, 'hyper.form', "amsgrad: form must be one of 'pytorch', 'optax', 'paper', got 'keras'"],
+    [{ hyper: { form: 'keras' } }, 'hyper.form', "amsgrad: form must be one of 'max-raw-moment', 'max-corrected-moment', 'no-bias-correction', got 'keras'"],
     [{ hyper: { beta2: -0.5 } }, 'hyper.beta2', 'amsgrad: beta2 must be in [0, 1), got -0.5'],
   ],
   nadam: [
     [{ hyper: { momentumDecay: -0.004 } }, 'hyper.momentumDecay', 'nadam: momentumDecay must be a finite number >= 0, got -0.004'],
-    [{ hyper: { form: 'optax' } }, 'hyper.form', "nadam: form must be one of 'scheduled', 'constant-beta1', got 'optax'"],
+    [{ hyper: { form: 'optax' } }, 'hyper.form', "nadam: form must be one of 'rising-momentum', 'constant-momentum', got 'optax'"],
   ],
   lbfgs: [
     [{ hyper: { historySize: 0 } }, 'hyper.historySize', 'lbfgs: historySize must be a whole number in [1, 1000], got 0'],

@@ -127,7 +127,7 @@ describe('Sweep: every run equals the same run done alone by RunCursor', () => {
     const stop: StopRules = { maxSteps: 200, lossChangeTolerance: 1e-12 };
     const specs: OptimizerSpec[] = [
       spec('nesterov', 0.005),
-      spec('nesterov', 0.005, { form: 'sutskever' }),
+      spec('nesterov', 0.005, { form: 'record-base-point' }),
       spec('adagrad', 0.5),
       spec('rmsprop', 0.01),
       spec('adamw', 0.05),

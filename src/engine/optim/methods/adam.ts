@@ -7,9 +7,9 @@ import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
 export const adamEpsilonFormInfo: HyperparameterInfo = {
   name: 'epsilonForm',
   label: 'epsilon form',
-  default: 'algorithm1',
-  choices: ['algorithm1', 'hat'],
-  help: "'algorithm1': mhat / (sqrt(vhat) + eps) (PyTorch, Optax, tfjs); 'hat': lr sqrt(1 - b2^t)/(1 - b1^t) m / (sqrt(v) + eps) (Keras/TF's epsilon-hat).",
+  default: 'eps-after-correction',
+  choices: ['eps-after-correction', 'eps-before-correction'],
+  help: "'eps-after-correction': mhat / (sqrt(vhat) + eps), epsilon added to the root of the bias-corrected second moment (Kingma & Ba 2015, Algorithm 1); 'eps-before-correction': lr sqrt(1 - b2^t)/(1 - b1^t) m / (sqrt(v) + eps), epsilon added to the root of the raw one (the paper's epsilon-hat form, section 2).",
 };
 
 /**
@@ -20,7 +20,7 @@ export const adamEpsilonFormInfo: HyperparameterInfo = {
  *
  * Library differences: PyTorch and Optax (eps_root = 0) are Algorithm 1; Keras/TF use the paper's
  * "efficient" form lr sqrt(1 - b2^t)/(1 - b1^t) m_t / (sqrt(v_t) + eps_hat) with eps_hat 1e-7
- * (epsilonForm 'hat'); tfjs is Algorithm 1 with eps 1e-7. PyTorch's weight_decay is our coupled
+ * (epsilonForm 'eps-before-correction'); tfjs is Algorithm 1 with eps 1e-7. PyTorch's weight_decay is our coupled
  * l2Penalty; Optax's eps_root (inside the root) is not offered here.
  */
 export const adam: MethodDefinition = {

@@ -7,9 +7,9 @@ import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
 /**
  * AdamW (Loshchilov & Hutter, "Decoupled Weight Decay Regularization", ICLR 2019, Algorithm 2):
  * Adam's moments from the raw gradient, with the decay kept out of them:
- *   'library' (default; PyTorch AdamW, Optax adamw, Keras AdamW):
+ *   'times-learning-rate' (default; PyTorch AdamW, Optax adamw, Keras AdamW):
  *       x_t = x_{t-1} - lr_t ( mhat_t / (sqrt(vhat_t) + eps) + lambda x_{t-1} ),
- *   'paper': x_t = x_{t-1} - eta_t ( alpha mhat_t / (sqrt(vhat_t) + eps) + lambda x_{t-1} ),
+ *   'times-schedule' (the paper's Algorithm 2): x_t = x_{t-1} - eta_t ( alpha mhat_t / (sqrt(vhat_t) + eps) + lambda x_{t-1} ),
  *       alpha = the base learning rate, eta_t = lr_t / alpha the schedule multiplier: the decay
  *       follows the schedule but is not multiplied by alpha.
  * So PyTorch's lambda is the paper's lambda / alpha. lambda is the spec's weightDecay, default 0.01
@@ -28,9 +28,9 @@ export const adamw: MethodDefinition = {
       {
         name: 'decayForm',
         label: 'decay form',
-        default: 'library',
-        choices: ['library', 'paper'],
-        help: "'library': decay multiplied by the learning rate (PyTorch, Optax, Keras); 'paper': multiplied by the schedule only, not by the base rate (Loshchilov & Hutter).",
+        default: 'times-learning-rate',
+        choices: ['times-learning-rate', 'times-schedule'],
+        help: "'times-learning-rate': the decay lambda x is multiplied by the learning rate lr_t; 'times-schedule': multiplied by the schedule's multiplier lr_t / lr only, not by the base rate (Loshchilov & Hutter 2019, Algorithm 2).",
       },
     ],
     usesSchedule: true,
@@ -39,10 +39,10 @@ export const adamw: MethodDefinition = {
     source: 'I. Loshchilov & F. Hutter, "Decoupled Weight Decay Regularization", ICLR 2019.',
   },
   build: (spec) => {
-    const paper = str(spec, 'decayForm') === 'paper';
+    const paper = str(spec, 'decayForm') === 'times-schedule';
     const core = [scaleByAdam(num(spec, 'beta1'), num(spec, 'beta2'), num(spec, 'epsilon'), str<AdamEpsilonForm>(spec, 'epsilonForm'))];
-    // Paper form: lr_t (lambda / alpha) x = eta_t lambda x.
+    // Decay times the schedule only: lr_t (lambda / alpha) x = eta_t lambda x.
     const decay = paper ? spec.weightDecay / spec.learningRate : spec.weightDecay;
-    return firstOrderChain(paper ? 'AdamW (paper decay)' : 'AdamW', spec, core, decay);
+    return firstOrderChain(paper ? 'AdamW (decay times schedule)' : 'AdamW', spec, core, decay);
   },
 };

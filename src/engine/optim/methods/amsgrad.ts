@@ -7,13 +7,13 @@ import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
  * AMSGrad (Reddi, Kale & Kumar, "On the Convergence of Adam and Beyond", ICLR 2018, Algorithm 2):
  * Adam whose denominator uses the running maximum of the second moment, so no coordinate's effective
  * step grows.
- *   'pytorch' (default; Adam(amsgrad=True)): vmax_t = max(vmax_{t-1}, v_t),
+ *   'max-raw-moment' (default; PyTorch Adam(amsgrad=True)): vmax_t = max(vmax_{t-1}, v_t),
  *       x_t = x_{t-1} - lr_t [m_t/(1 - b1^t)] / (sqrt(vmax_t/(1 - b2^t)) + eps);
- *   'optax' (optax.amsgrad): bias-correct first, then the maximum: vmax_t = max(vmax_{t-1}, v_t/(1 - b2^t));
- *   'paper': vmax_t = max(vmax_{t-1}, v_t), x_t = x_{t-1} - lr_t m_t / (sqrt(vmax_t) + eps), no bias
+ *   'max-corrected-moment' (optax.amsgrad): bias-correct first, then the maximum: vmax_t = max(vmax_{t-1}, v_t/(1 - b2^t));
+ *   'no-bias-correction' (the paper's Algorithm 2): vmax_t = max(vmax_{t-1}, v_t), x_t = x_{t-1} - lr_t m_t / (sqrt(vmax_t) + eps), no bias
  *       correction; the paper has no eps (set epsilon 0) and analyses lr_t = alpha / sqrt(t)
  *       (inverse-time schedule, decayRate 1, power 0.5).
- * The PyTorch and Optax forms differ from t = 2 on when the bias-corrected v falls. Defaults as Adam.
+ * The two bias-corrected forms differ from t = 2 on when the bias-corrected v falls. Defaults as Adam.
  */
 export const amsgrad: MethodDefinition = {
   info: {
@@ -27,9 +27,9 @@ export const amsgrad: MethodDefinition = {
       {
         name: 'form',
         label: 'form',
-        default: 'pytorch',
-        choices: ['pytorch', 'optax', 'paper'],
-        help: "'pytorch': maximum of the raw second moment, then bias correction; 'optax': maximum of the bias-corrected one; 'paper': no bias correction.",
+        default: 'max-raw-moment',
+        choices: ['max-raw-moment', 'max-corrected-moment', 'no-bias-correction'],
+        help: "'max-raw-moment': maximum of the raw second moment, then bias correction; 'max-corrected-moment': maximum of the bias-corrected second moment; 'no-bias-correction': maximum of the raw moment and no bias correction at all (Reddi, Kale & Kumar 2018, Algorithm 2).",
       },
     ],
     usesSchedule: true,

@@ -9,7 +9,7 @@ import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
  *   mhat_t = mu_{t+1} m_t / (1 - prod_{i<=t+1} mu_i) + (1 - mu_t) g_t / (1 - prod_{i<=t} mu_i),
  *   x_t = x_{t-1} - lr_t mhat_t / (sqrt(v_t/(1 - b2^t)) + eps).
  * Defaults (PyTorch): lr 0.002, b1 0.9, b2 0.999, eps 1e-8, psi (momentumDecay) 0.004.
- * 'constant-beta1' is Optax's nadam, without the momentum schedule:
+ * 'constant-momentum' is Optax's nadam, without the momentum schedule (mu_t = b1 at every step):
  *   mhat_t = b1 m_t / (1 - b1^(t+1)) + (1 - b1) g_t / (1 - b1^t).
  * Keras Nadam uses a 0.96^(0.004 t) schedule too (from memory, not checked). Whether Dozat's EMA uses
  * the scheduled mu_t or the constant b1 is not settled in our reference; PyTorch uses b1.
@@ -28,14 +28,14 @@ export const nadam: MethodDefinition = {
         label: 'momentum decay (psi)',
         default: 0.004,
         min: 0,
-        help: 'psi in the momentum schedule mu_t = beta1 (1 - 0.5 * 0.96^(t psi)) (scheduled form only).',
+        help: 'psi in the momentum schedule mu_t = beta1 (1 - 0.5 * 0.96^(t psi)) (rising-momentum form only).',
       },
       {
         name: 'form',
         label: 'form',
-        default: 'scheduled',
-        choices: ['scheduled', 'constant-beta1'],
-        help: "'scheduled': Dozat's momentum schedule (PyTorch); 'constant-beta1': no schedule (Optax).",
+        default: 'rising-momentum',
+        choices: ['rising-momentum', 'constant-momentum'],
+        help: "'rising-momentum': the momentum coefficient rises towards beta1 as mu_t = beta1 (1 - 0.5 * 0.96^(t psi)) (Dozat 2016); 'constant-momentum': mu_t = beta1 at every step.",
       },
     ],
     usesSchedule: true,

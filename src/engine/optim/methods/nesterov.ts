@@ -10,13 +10,13 @@ import { momentumInfo } from './sharedSettings';
  * Nesterov momentum (Nesterov 1983; in deep-learning form, Sutskever, Martens, Dahl & Hinton,
  * "On the importance of initialization and momentum in deep learning", ICML 2013).
  *
- * 'library' form (default; PyTorch SGD(nesterov=True), Keras, Optax, tfjs): the gradient is taken at
+ * 'record-look-ahead' form (default; PyTorch SGD(nesterov=True), Keras, Optax, tfjs): the gradient is taken at
  * the stored point and
  *   b_1 = g_1,  b_t = mu b_{t-1} + g_t,  x_t = x_{t-1} - lr_t (g_t + mu b_t).
- * 'sutskever' form: v_t = mu v_{t-1} - lr_t grad f(theta_{t-1} + mu v_{t-1}), theta_t = theta_{t-1} + v_t.
- * The two are one algorithm seen at different points: the library's stored point is Sutskever's
+ * 'record-base-point' form (Sutskever et al.'s equations): v_t = mu v_{t-1} - lr_t grad f(theta_{t-1} + mu v_{t-1}), theta_t = theta_{t-1} + v_t.
+ * The two are one algorithm seen at different points: the first form's stored point is the second's
  * look-ahead theta_t + mu v_t (TF 2.2's SGD documentation says so). So the iterates differ (already
- * at t = 1: theta_0 - lr g_0 against theta_0 - lr (1 + mu) g_0). The Sutskever form costs one extra
+ * at t = 1: theta_0 - lr g_0 against theta_0 - lr (1 + mu) g_0). The 'record-base-point' form costs one extra
  * gradient evaluation per step here, at the look-ahead point, because the run records theta.
  * Defaults mu = 0.9, lr 0.01.
  */
@@ -30,9 +30,9 @@ export const nesterov: MethodDefinition = {
       {
         name: 'form',
         label: 'form',
-        default: 'library',
-        choices: ['library', 'sutskever'],
-        help: "'library': the point stored is the look-ahead point (PyTorch, Keras, Optax); 'sutskever': the point stored is theta and the gradient is taken at theta + mu v (one extra evaluation per step).",
+        default: 'record-look-ahead',
+        choices: ['record-look-ahead', 'record-base-point'],
+        help: "'record-look-ahead': the path records the look-ahead point theta + mu v, where the gradient is taken; 'record-base-point': the path records theta and the gradient is taken at theta + mu v (one extra evaluation per step; Sutskever, Martens, Dahl & Hinton 2013, eq. 3-4).",
       },
     ],
     usesSchedule: true,
@@ -41,8 +41,8 @@ export const nesterov: MethodDefinition = {
     source: 'Y. Nesterov, "A method for solving the convex programming problem with convergence rate O(1/k^2)", Soviet Math. Dokl. 27, 1983; Sutskever, Martens, Dahl & Hinton, ICML 2013.',
   },
   build: (spec) =>
-    str(spec, 'form') === 'sutskever'
-      ? sutskeverNesterov(spec)
+    str(spec, 'form') === 'record-base-point'
+      ? baseRecordingNesterov(spec)
       : firstOrderChain('Nesterov momentum', spec, [traceMomentum(num(spec, 'momentum'), 0, true)]),
 };
 
@@ -52,16 +52,16 @@ interface LookAheadState {
 }
 
 /**
- * Sutskever's form: the chain [clip] -> [L2] -> [decay] -> -lr_t -> velocity (v = mu v + u) runs on the
+ * The 'record-base-point' form: the chain [clip] -> [L2] -> [decay] -> -lr_t -> velocity (v = mu v + u) runs on the
  * gradient at the look-ahead point x + mu v; the penalties read the look-ahead point too.
  */
-function sutskeverNesterov(spec: ResolvedSpec): Optimizer<LookAheadState> {
+function baseRecordingNesterov(spec: ResolvedSpec): Optimizer<LookAheadState> {
   const mu = num(spec, 'momentum');
   const transforms = [...wrapFirstOrder(spec, []), traceVelocity(mu)];
-  const rate = learningRateStage(transforms, 'Nesterov momentum (Sutskever form)');
+  const rate = learningRateStage(transforms, 'Nesterov momentum (base point recorded)');
   const velocityStage = transforms.length - 1;
   return {
-    label: 'Nesterov momentum (Sutskever form)',
+    label: 'Nesterov momentum (base point recorded)',
     init: (x0) => ({ chain: initTransforms(transforms, x0), lookAhead: new Float64Array(x0.length) }),
     step(x, grad, state, ctx) {
       const v = (state.chain.stages[velocityStage] as { velocity: Float64Array }).velocity;

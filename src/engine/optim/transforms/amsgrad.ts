@@ -1,23 +1,23 @@
 import type { GradientTransform } from '../transform';
 import { power } from '../../power';
 
-export type AmsgradForm = 'pytorch' | 'optax' | 'paper';
+export type AmsgradForm = 'max-raw-moment' | 'max-corrected-moment' | 'no-bias-correction';
 
 export interface AmsgradState {
   m: Float64Array;
   v: Float64Array;
-  /** Running maximum (of v_t, or of the bias-corrected v_t in the Optax form). */
+  /** Running maximum (of v_t, or of the bias-corrected v_t in the 'max-corrected-moment' form). */
   vMax: Float64Array;
 }
 
 /**
  * AMSGrad scaling (Reddi, Kale & Kumar, ICLR 2018): Adam's moments m_t, v_t with a running maximum
  * in the denominator, so the per-coordinate step never grows.
- *   'pytorch': vMax = max(vMax, v_t), u = [m_t/(1 - b1^t)] / (sqrt(vMax/(1 - b2^t)) + eps);
- *   'optax':   vMax = max(vMax, v_t/(1 - b2^t)), u = [m_t/(1 - b1^t)] / (sqrt(vMax) + eps);
- *   'paper':   vMax = max(vMax, v_t), u = m_t / (sqrt(vMax) + eps): no bias correction; the paper has
- *              no epsilon (set epsilon = 0 for the literal rule) and analyses alpha_t = alpha/sqrt(t)
- *              (the inverse-time schedule with power 0.5).
+ *   'max-raw-moment' (PyTorch):      vMax = max(vMax, v_t), u = [m_t/(1 - b1^t)] / (sqrt(vMax/(1 - b2^t)) + eps);
+ *   'max-corrected-moment' (Optax):  vMax = max(vMax, v_t/(1 - b2^t)), u = [m_t/(1 - b1^t)] / (sqrt(vMax) + eps);
+ *   'no-bias-correction' (the paper's Algorithm 2): vMax = max(vMax, v_t), u = m_t / (sqrt(vMax) + eps);
+ *              the paper has no epsilon (set epsilon = 0 for the literal rule) and analyses
+ *              alpha_t = alpha/sqrt(t) (the inverse-time schedule with power 0.5).
  */
 export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, form: AmsgradForm): GradientTransform<AmsgradState> {
   return {
@@ -26,14 +26,14 @@ export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, fo
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length), vMax: new Float64Array(p.length) }),
     update(u, s, _p, t) {
       const { m, v, vMax } = s;
-      const c1 = form === 'paper' ? 1 : 1 - power(beta1, t);
-      const c2 = form === 'paper' ? 1 : 1 - power(beta2, t);
+      const c1 = form === 'no-bias-correction' ? 1 : 1 - power(beta1, t);
+      const c2 = form === 'no-bias-correction' ? 1 : 1 - power(beta2, t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
         m[i] = beta1 * m[i] + (1 - beta1) * g;
         v[i] = beta2 * v[i] + (1 - beta2) * g * g;
         let d: number;
-        if (form === 'optax') {
+        if (form === 'max-corrected-moment') {
           vMax[i] = Math.max(vMax[i], v[i] / c2);
           d = Math.sqrt(vMax[i]) + epsilon;
         } else {

@@ -1,12 +1,12 @@
 import type { GradientTransform } from '../transform';
 import { power } from '../../power';
 
-export type NadamForm = 'scheduled' | 'constant-beta1';
+export type NadamForm = 'rising-momentum' | 'constant-momentum';
 
 export interface NadamState {
   m: Float64Array;
   v: Float64Array;
-  /** prod_{i <= t} mu_i of the momentum schedule (scheduled form). */
+  /** prod_{i <= t} mu_i of the momentum schedule ('rising-momentum' form). */
   muProduct: number;
 }
 
@@ -14,9 +14,9 @@ export interface NadamState {
  * NAdam scaling (Dozat, "Incorporating Nesterov Momentum into Adam", ICLR 2016 workshop):
  * m_t = b1 m + (1 - b1) g, v_t = b2 v + (1 - b2) g^2, vhat = v_t / (1 - b2^t), u = mhat / (sqrt(vhat) + eps)
  * with the Nesterov-style first moment
- *   'scheduled' (Dozat; PyTorch NAdam): mu_t = b1 (1 - 0.5 * 0.96^(t psi)), psi = momentumDecay,
+ *   'rising-momentum' (Dozat; PyTorch NAdam): mu_t = b1 (1 - 0.5 * 0.96^(t psi)), psi = momentumDecay,
  *      mhat = mu_{t+1} m_t / (1 - prod_{i<=t+1} mu_i) + (1 - mu_t) g_t / (1 - prod_{i<=t} mu_i);
- *   'constant-beta1' (Optax nadam): mhat = b1 m_t / (1 - b1^(t+1)) + (1 - b1) g_t / (1 - b1^t).
+ *   'constant-momentum' (mu_t = b1 at every step; Optax nadam): mhat = b1 m_t / (1 - b1^(t+1)) + (1 - b1) g_t / (1 - b1^t).
  */
 export function scaleByNadam(beta1: number, beta2: number, epsilon: number, momentumDecay: number, form: NadamForm): GradientTransform<NadamState> {
   const mu = (t: number) => beta1 * (1 - 0.5 * Math.pow(0.96, t * momentumDecay));
@@ -28,7 +28,7 @@ export function scaleByNadam(beta1: number, beta2: number, epsilon: number, mome
       const { m, v } = s;
       let a: number; // weight of m_t
       let b: number; // weight of g_t
-      if (form === 'scheduled') {
+      if (form === 'rising-momentum') {
         const muT = mu(t);
         const muNext = mu(t + 1);
         s.muProduct *= muT;
