@@ -2,7 +2,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { openFresh, waitForContours } from './helpers';
 
 async function removeAllRuns(page: Page) {
-  for (const name of ['Remove Plain descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
+  for (const name of ['Remove Gradient descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
   await expect(page.locator('.run-item')).toHaveCount(0);
 }
 

@@ -11,7 +11,7 @@ import { applyFormula, canvasPixels, openFresh, waitForRunsToEnd } from './helpe
 test('gradient descent at 2 / lambda_max is shown as oscillating, below it as converged, in the table and the CSV', async ({ page }) => {
   await openFresh(page);
   await applyFormula(page, 'x^2 + 10*y^2');
-  for (const name of ['Remove Plain descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
+  for (const name of ['Remove Gradient descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
   const kind = page.getByLabel('New run with');
   for (const rate of ['0.1', '0.05']) {
     await kind.selectOption({ label: 'Gradient descent' });
@@ -46,11 +46,11 @@ test('gradient descent at 2 / lambda_max is shown as oscillating, below it as co
 test('the loss chart has a legend naming every visible run with its colour', async ({ page }) => {
   await openFresh(page);
   const legend = page.getByTestId('loss-legend').locator('li');
-  await expect(legend).toHaveText(['Plain descent', 'Momentum', 'Adam']);
+  await expect(legend).toHaveText(['Gradient descent', 'Momentum', 'Adam']);
   const fills = await legend.locator('svg :is(circle, polygon)').evaluateAll((els) => els.map((e) => e.getAttribute('fill')));
   expect(new Set(fills).size).toBe(3);
   await page.getByRole('button', { name: 'Hide Momentum' }).click();
-  await expect(legend).toHaveText(['Plain descent', 'Adam']);
+  await expect(legend).toHaveText(['Gradient descent', 'Adam']);
 });
 
 test('the map explains its known-point glyphs: Himmelblau shows a key for minima, saddle points and a maximum', async ({ page }) => {

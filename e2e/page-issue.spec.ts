@@ -4,7 +4,7 @@ import { readFileSync } from 'node:fs';
 import { openFresh, waitForContours, waitForRunsToEnd } from './helpers';
 
 async function removeAllRuns(page: Page) {
-  for (const name of ['Remove Plain descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
+  for (const name of ['Remove Gradient descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
   await expect(page.locator('.run-item')).toHaveCount(0);
 }
 
@@ -87,7 +87,7 @@ test.describe('issue 10: what the page shows', () => {
 });
 
 test.describe('issue 10: defaults', () => {
-  test('a new plain descent run on the demo gets the rate the curvature allows, keeps it across kinds and does not diverge', async ({ page }) => {
+  test('a new gradient descent run on the demo gets the rate the curvature allows, keeps it across kinds and does not diverge', async ({ page }) => {
     await openFresh(page);
     await addRun(page, 'Gradient descent');
     const editor = page.getByRole('region', { name: /^Settings of/ });
@@ -201,9 +201,9 @@ test.describe('issue 10: run cards', () => {
     await page.getByLabel('Pace').selectOption('100');
     const card = page.locator('.run-item').first();
     await expect(card.getByTestId('run-progress')).toContainText(/step \d+ of 3000/);
-    await page.getByRole('button', { name: 'Restart Plain descent' }).click();
+    await page.getByRole('button', { name: 'Restart Gradient descent' }).click();
     await expect.poll(async () => Number((await card.getByTestId('run-progress').innerText()).match(/step (\d+) of 3000/)![1])).toBeGreaterThan(0);
-    await page.getByRole('button', { name: 'Pause Plain descent' }).click();
+    await page.getByRole('button', { name: 'Pause Gradient descent' }).click();
     await expect(card.locator('.run-status')).toHaveAttribute('data-phase', 'paused');
     // Read the text and the bar at the same moment (a batch already on its way may still land).
     const { text, value, max } = await card.getByTestId('run-progress').evaluate((el) => ({
@@ -216,7 +216,7 @@ test.describe('issue 10: run cards', () => {
     expect(steps).toBeLessThan(3000);
     expect(max).toBe(3000);
     expect(value).toBe(steps);
-    await page.getByRole('button', { name: 'Resume Plain descent' }).click();
+    await page.getByRole('button', { name: 'Resume Gradient descent' }).click();
     await page.getByLabel('Pace').selectOption('max');
     await expect(card.getByTestId('run-progress')).toContainText('step 3000 of 3000', { timeout: 30_000 });
     // Every control of a run fits on the card's first line, beside its name.

@@ -5,7 +5,7 @@ import { openFresh, waitForContours, waitForRunsToEnd } from './helpers';
 
 test('an own update rule: type Lion, see a typo under its column, race it against Adam, export and reopen', async ({ page }) => {
   await openFresh(page);
-  for (const name of ['Remove Plain descent', 'Remove Momentum']) await page.getByRole('button', { name }).click();
+  for (const name of ['Remove Gradient descent', 'Remove Momentum']) await page.getByRole('button', { name }).click();
   await page.getByLabel('New run with').selectOption({ label: 'Own update rule' });
   await page.getByRole('button', { name: 'Add run' }).click();
   const ruleRun = page.locator('.run-item', { hasText: 'Adam (rule)' });

@@ -105,8 +105,8 @@ test('learning-rate sweep on x^2 + 10 y^2: observed thresholds at 2/lambda_max a
   await expect(panel.locator('.study-progress')).toHaveAttribute('data-status', 'done', { timeout: 60_000 });
   const table = panel.getByTestId('rate-thresholds');
   const value = async (label: string, col: 'observed' | 'predicted') => Number(await table.locator(`tr[data-optimizer="${label}"] td[data-${col}]`).getAttribute(`data-${col}`));
-  expect(Math.abs((await value('Plain descent', 'observed')) / 0.1 - 1)).toBeLessThan(1e-5);
-  expect(Math.abs((await value('Plain descent', 'predicted')) / 0.1 - 1)).toBeLessThan(1e-9);
+  expect(Math.abs((await value('Gradient descent', 'observed')) / 0.1 - 1)).toBeLessThan(1e-5);
+  expect(Math.abs((await value('Gradient descent', 'predicted')) / 0.1 - 1)).toBeLessThan(1e-9);
   expect(Math.abs((await value('Momentum', 'observed')) / 0.19 - 1)).toBeLessThan(1e-5);
   expect(Math.abs((await value('Momentum', 'predicted')) / 0.19 - 1)).toBeLessThan(1e-9);
   await expect(table.locator('tr[data-optimizer="Adam"] td').nth(2)).toHaveText('no prediction');
@@ -137,7 +137,7 @@ test("critical points of Himmelblau: all 9 found and classified (4 minima, 4 sad
 test('sharpness along gradient descent on x^2 + 10 y^2 is constant at lambda_max = 20, below 2/lr', async ({ page }) => {
   await openFresh(page);
   await applyFormula(page, 'x^2 + 10*y^2');
-  await page.getByRole('button', { name: /^Plain descent/ }).first().click();
+  await page.getByRole('button', { name: /^Gradient descent/ }).first().click();
   await expect(page.locator('.run-status').first()).toHaveAttribute('data-phase', 'ended', { timeout: 30_000 });
   await page.getByRole('tab', { name: 'Sharpness' }).click();
   const panel = page.getByTestId('sharpness');

@@ -64,7 +64,7 @@ test.describe('the workbench in Chromium', () => {
 
   test('adding three runs streams three trajectories', async ({ page }) => {
     await openFresh(page);
-    for (const name of ['Remove Plain descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
+    for (const name of ['Remove Gradient descent', 'Remove Momentum', 'Remove Adam']) await page.getByRole('button', { name }).click();
     await expect(page.locator('.run-item')).toHaveCount(0);
     const kind = page.getByLabel('New run with');
     for (const k of ['Gradient descent', 'Nesterov momentum', 'RMSProp']) {
@@ -151,6 +151,6 @@ test.describe('the workbench in Chromium', () => {
     }, text);
     expect(check.error).toBeNull();
     expect(check.paths).toBeGreaterThan(20);
-    for (const label of ['Plain descent', 'Momentum', 'Adam', 'loss']) expect(check.text).toContain(label);
+    for (const label of ['Gradient descent', 'Momentum', 'Adam', 'loss']) expect(check.text).toContain(label);
   });
 });

@@ -50,7 +50,7 @@ describe('page defaults', () => {
     const app = createAppStore({ link: env.link, requestFrame: env.requestFrame, initial: demoWorkspace() });
     return { ...env, state: () => app.store.getState(), actions: app.store.getState().actions };
   }
-  it('a new plain descent or Nesterov run on the demo gets the suggested rate and the demo step budget, and does not diverge', () => {
+  it('a new gradient descent or Nesterov run on the demo gets the suggested rate and the demo step budget, and does not diverge', () => {
     const t = setup();
     t.actions.setPace('max');
     const ids = (['gd', 'nesterov'] as const).map((k) => t.actions.addRun(k));
@@ -67,12 +67,12 @@ describe('page defaults', () => {
   });
   it('changing a run between plain-gradient kinds keeps its rate and renames a default label', () => {
     const t = setup();
-    const id = t.state().runs[0].id; // Plain descent, 0.001
+    const id = t.state().runs[0].id; // Gradient descent, 0.001
     t.actions.changeOptimizer(id, 'nesterov');
     const run = t.state().runs.find((r) => r.id === id)!;
     expect(run.optimizer.kind).toBe('nesterov');
     expect(run.optimizer.learningRate).toBe(0.001);
-    expect(run.label).toBe('Plain descent');
+    expect(run.label).toBe('Nesterov momentum');
     t.actions.changeOptimizer(id, 'adam');
     expect(t.state().runs.find((r) => r.id === id)!.optimizer.learningRate).toBe(0.001);
   });

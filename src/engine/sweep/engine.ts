@@ -55,7 +55,7 @@ interface RunContext {
  * cache; runs are independent, so no number changes). An elementwise transform gives every entry the
  * numbers it would get alone, so the results are the same bits; a block whose runs have all ended is skipped (an ended run's entries in a block still
  * in use are transformed and ignored; its point no longer moves). Other optimizers (L-BFGS, Newton,
- * the Sutskever form of Nesterov momentum, clipped chains, several learning rates) step run by run
+ * Nesterov momentum's 'record-base-point' form, clipped chains, several learning rates) step run by run
  * with a state per run.
  *
  * Stream it with `advance(rounds)` or `advanceFor(ms, clock)` and read `result()` between calls.

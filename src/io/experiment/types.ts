@@ -20,7 +20,7 @@ export type Pace = number | 'max';
  */
 export interface Workspace {
   /** The experiment file's version (src/io/experiment/versions.ts); older files are migrated on reading. */
-  version: 2;
+  version: 3;
   /** A name for the experiment, kept in the file (the command line's summary.json repeats it). */
   title?: string;
   surface: SurfaceSpec;
@@ -63,6 +63,8 @@ export interface DisplaySettings {
   resolution: number;
   showArrows: boolean;
   showKnownPoints: boolean;
+  /** Equal x and y units per pixel (the shown box widens one axis to fill the panel); absent: on for two-variable test functions. */
+  equalScale?: boolean;
 }
 
 /** One configured optimizer launch. `style` picks its colour and marker. */

@@ -6,20 +6,32 @@
  *   1  the workspace as the page first saved it.
  *   2  adds an optional `$schema` (the JSON Schema address, for editors) and `title` (a name for the
  *      experiment, carried into the command line's summary.json); fields otherwise as in version 1.
+ *   3  optimizer option values say what they compute instead of naming a library or paper (the table
+ *      in renamed-options.ts; older files are rewritten with it), and `display.equalScale` (optional:
+ *      equal x and y units per pixel on the map; absent, on for two-variable test functions).
  */
 import { z } from 'zod';
-import { workspaceFields } from './fields';
+import { display, workspaceFields } from './fields';
+import { renameOptionValues } from './renamed-options';
 import type { Workspace } from './types';
 
-export const CURRENT_VERSION = 2;
+export const CURRENT_VERSION = 3;
 
 const version1 = z.strictObject({ version: z.literal(1), ...workspaceFields });
+
+const version2 = z.strictObject({
+  $schema: z.string().optional(),
+  version: z.literal(2),
+  title: z.string().max(200).optional(),
+  ...workspaceFields,
+});
 
 export const experimentSchema = z.strictObject({
   $schema: z.string().optional(),
   version: z.literal(CURRENT_VERSION),
   title: z.string().max(200).optional(),
   ...workspaceFields,
+  display: display.extend({ equalScale: z.boolean().optional() }),
 });
 
 /** A file that passed the current schema: the workspace, plus the editor hint `$schema`. */
@@ -31,7 +43,13 @@ interface VersionStep {
   upgrade: (file: never) => unknown;
 }
 
+type Version2 = z.infer<typeof version2>;
+
 /** Schemas of earlier versions and their one-step migration, keyed by version. */
 export const EARLIER_VERSIONS: Readonly<Record<number, VersionStep>> = {
   1: { schema: version1, upgrade: (file: z.infer<typeof version1>) => ({ ...file, version: 2 }) },
+  2: {
+    schema: version2,
+    upgrade: (file: Version2) => ({ ...file, version: 3, runs: file.runs.map((run) => ({ ...run, optimizer: renameOptionValues(run.optimizer) })) }),
+  },
 };

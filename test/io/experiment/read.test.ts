@@ -1,11 +1,12 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { MAX_FORMULA_LENGTH, OPTIMIZERS } from '../../../src/engine';
+import { buildOptimizer, MAX_FORMULA_LENGTH, OPTIMIZERS, RunCursor } from '../../../src/engine';
 import { checkMeaning, CURRENT_VERSION, experimentJsonSchema, OPTIMIZER_KINDS, readExperiment, type FileProblem } from '../../../src/io/experiment';
-import { SURFACE_KINDS } from '../../../src/problems';
+import { buildSurface, SURFACE_KINDS } from '../../../src/problems';
 import { demoWorkspace } from '../../../src/store/demo';
 
 const V1_TEXT = readFileSync(new URL('../../fixtures/experiments/v1-demo.fall.json', import.meta.url), 'utf8');
+const V2_OLD_VALUES = readFileSync(new URL('../../fixtures/experiments/v2-old-option-values.fall.json', import.meta.url), 'utf8');
 
 function problems(input: unknown): FileProblem[] {
   const r = readExperiment(input);
@@ -22,7 +23,10 @@ describe('readExperiment: versions', () => {
     if (!r.ok) return;
     expect(r.experiment.version).toBe(CURRENT_VERSION);
     expect(r.experiment.runs.map((x) => x.id)).toEqual(['demo-gd', 'demo-momentum', 'demo-adam']);
-    expect({ ...r.experiment, version: 1 }).toEqual(JSON.parse(V1_TEXT));
+    // Unchanged apart from the version and Adam's renamed epsilon form.
+    const v1 = JSON.parse(V1_TEXT);
+    v1.runs[2].optimizer.hyper.epsilonForm = 'eps-after-correction';
+    expect({ ...r.experiment, version: 1 }).toEqual(v1);
   });
 
   it('round-trips the current version unchanged', () => {
@@ -46,6 +50,65 @@ describe('readExperiment: versions', () => {
     expect(problems(rest)[0].message).toBe("missing 'version': this is not a Fall Line experiment file");
   });
 });
+
+describe('readExperiment: option values renamed in version 3', () => {
+  /** Run id in the fixture -> the setting values it must have after reading. */
+  const RENAMED: Record<string, Record<string, string>> = {
+    'adam-algorithm1': { epsilonForm: 'eps-after-correction' },
+    'adam-hat': { epsilonForm: 'eps-before-correction' },
+    'adamw-library': { decayForm: 'times-learning-rate', epsilonForm: 'eps-after-correction' },
+    'adamw-paper': { decayForm: 'times-schedule', epsilonForm: 'eps-before-correction' },
+    'amsgrad-pytorch': { form: 'max-raw-moment' },
+    'amsgrad-optax': { form: 'max-corrected-moment' },
+    'amsgrad-paper': { form: 'no-bias-correction' },
+    'nadam-scheduled': { form: 'rising-momentum' },
+    'nadam-constant-beta1': { form: 'constant-momentum' },
+    'nesterov-library': { form: 'record-look-ahead' },
+    'nesterov-sutskever': { form: 'record-base-point' },
+  };
+
+  it('a version-2 file with every old value opens with the new names, and the engine accepts each run', () => {
+    const r = readExperiment(V2_OLD_VALUES);
+    if (!r.ok) throw new Error(JSON.stringify(r.problems));
+    expect(r.experiment.version).toBe(CURRENT_VERSION);
+    expect(Object.fromEntries(r.experiment.runs.map((run) => [run.id, pickStrings(run.optimizer.hyper ?? {})]))).toEqual(RENAMED);
+    expect(checkMeaning(r.experiment)).toEqual([]);
+    // Nothing else moved: the file equals its input with only the renamed values and the version changed.
+    const input = JSON.parse(V2_OLD_VALUES);
+    input.version = CURRENT_VERSION;
+    for (const run of input.runs) Object.assign(run.optimizer.hyper, RENAMED[run.id]);
+    expect(r.experiment).toEqual(input);
+  });
+
+  it('each renamed convention still runs its own iterates (the old names would have failed validation)', () => {
+    const r = readExperiment(V2_OLD_VALUES);
+    if (!r.ok) throw new Error('expected the fixture to open');
+    const surface = buildSurface(r.experiment.surface);
+    const ends = r.experiment.runs.map((run) => {
+      const cursor = new RunCursor(surface, buildOptimizer(run.optimizer), { ...run.settings, stop: { maxSteps: 5 } });
+      const batch = cursor.advance(5);
+      return Array.from(batch.points.slice(-2)).join(',');
+    });
+    // Two forms of one method give different points after 5 steps: each old name reached its own convention.
+    for (const [a, b] of [['adam-algorithm1', 'adam-hat'], ['amsgrad-pytorch', 'amsgrad-paper'], ['nadam-scheduled', 'nadam-constant-beta1'], ['nesterov-library', 'nesterov-sutskever'], ['adamw-library', 'adamw-paper']]) {
+      const ids = r.experiment.runs.map((run) => run.id);
+      expect(ends[ids.indexOf(a)]).not.toBe(ends[ids.indexOf(b)]);
+    }
+  });
+
+  it('an old value on a kind that never had it is left alone (and refused by the engine as before)', () => {
+    const w = JSON.parse(V2_OLD_VALUES);
+    w.runs = [{ ...w.runs[0], optimizer: { kind: 'rmsprop', learningRate: 0.01, hyper: { epsilonPlacement: 'pytorch' } } }];
+    const r = readExperiment(w);
+    if (!r.ok) throw new Error('expected the schema to pass');
+    expect(r.experiment.runs[0].optimizer.hyper).toEqual({ epsilonPlacement: 'pytorch' });
+    expect(checkMeaning(r.experiment)[0].message).toMatch(/epsilonPlacement must be one of 'outside', 'inside', got 'pytorch'/);
+  });
+});
+
+function pickStrings(hyper: Record<string, unknown>): Record<string, string> {
+  return Object.fromEntries(Object.entries(hyper).filter((e): e is [string, string] => typeof e[1] === 'string'));
+}
 
 describe('readExperiment: problems are named by JSON path and placed in the text', () => {
   it('not JSON: the parser reason and where', () => {

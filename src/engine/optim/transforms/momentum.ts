@@ -33,7 +33,7 @@ export function traceMomentum(mu: number, dampening = 0, nesterov = false): Grad
 /**
  * Velocity with the learning rate inside, placed after `scaleByLearningRate` (u is already -lr_t g):
  * v_t = mu v_{t-1} + u_t, u_t <- v_t. Sutskever, Martens, Dahl & Hinton (ICML 2013) "classical
- * momentum"; the Keras SGD form. Used by the Sutskever form of Nesterov momentum, whose gradient is
+ * momentum"; the Keras SGD form. Used by Nesterov momentum's 'record-base-point' form, whose gradient is
  * taken at the look-ahead point x + mu v.
  */
 export function traceVelocity(mu: number): GradientTransform<{ velocity: Float64Array }> {
