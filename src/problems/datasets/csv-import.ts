@@ -13,7 +13,10 @@ import type { TableDatasetSpec } from './spec';
  *   (the first data row is row 2). They count CSV records: one per line, unless a quoted field spans
  *   lines. Blank lines are skipped without a report but keep their number.
  * - A cell is "missing" when empty or one of NA, N/A, NaN, null (any case; common practice in exported
- *   tables); "not a number" when it is not a plain decimal number (so no hex, no Infinity). A record
+ *   tables); "not a number" when it is not a plain decimal number (so no hex, no Infinity). In a file
+ *   whose delimiter is not the comma (semicolon, tab, bar), a comma is also read as the decimal mark,
+ *   as spreadsheets in decimal-comma locales write it ("1,5;-0,25"); a cell with both a comma and a
+ *   point ("1.000,5") is not a number, since which one groups thousands is a guess. A record
  *   with more fields than the header is reported too; a shorter one has its absent cells missing.
  * - Without `dropBadRows` any problem fails the import and lists the problems; with it, bad rows are
  *   dropped and still reported. At most 200 problems are listed (`moreProblems` counts the rest).
@@ -33,6 +36,8 @@ export interface CsvImportOptions {
   classColumns?: string[];
   /** Field delimiter; default: the one the header row uses (see `headerDelimiter`). */
   delimiter?: string;
+  /** Read "1,5" as 1.5; default: when the delimiter is not a comma. */
+  decimalComma?: boolean;
   maxBytes?: number;
   maxRows?: number;
   maxColumns?: number;
@@ -56,6 +61,14 @@ export const MAX_REPORTED_PROBLEMS = 200;
 
 const DECIMAL = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
 const MISSING = /^(?:|na|n\/a|nan|null)$/i;
+const DECIMAL_COMMA = /^[-+]?(?:\d+,?\d*|,\d+)(?:[eE][-+]?\d+)?$/;
+
+/** A cell's number, or null when it is not a plain decimal (with a comma as the mark when allowed). */
+function decimalValue(cell: string, decimalComma: boolean): number | null {
+  if (DECIMAL.test(cell)) return Number(cell);
+  if (decimalComma && DECIMAL_COMMA.test(cell)) return Number(cell.replace(',', '.'));
+  return null;
+}
 
 /** Bytes of `text` in UTF-8. */
 export function utf8Length(text: string): number {
@@ -79,8 +92,9 @@ export function parseDatasetCsv(text: string, options: CsvImportOptions = {}): C
   const bytes = text.length > maxBytes ? text.length : utf8Length(text);
   if (bytes > maxBytes)
     return fail(`the file is ${(bytes / 1024 / 1024).toFixed(1)} MiB; at most ${(maxBytes / 1024 / 1024).toFixed(1)} MiB can be imported`);
-  const builder = new CsvTableBuilder(options);
   const source = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  const delimiter = options.delimiter ?? headerDelimiter(source);
+  const builder = new CsvTableBuilder({ ...options, decimalComma: options.decimalComma ?? (delimiter !== ',' && delimiter !== '') });
   let fatal: string | null = null;
   const take = (records: string[][], errors: Papa.ParseError[], parser?: Papa.Parser) => {
     const quoteError = errors.find((e) => e.type === 'Quotes');
@@ -88,7 +102,7 @@ export function parseDatasetCsv(text: string, options: CsvImportOptions = {}): C
     for (const record of records) if (fatal === null) fatal = builder.add(record);
     if (fatal !== null) parser?.abort();
   };
-  const config = { delimiter: options.delimiter ?? headerDelimiter(source), skipEmptyLines: false as const, dynamicTyping: false as const };
+  const config = { delimiter, skipEmptyLines: false as const, dynamicTyping: false as const };
   if (options.onProgress) {
     const onProgress = options.onProgress;
     const chunked = {
@@ -177,11 +191,13 @@ export class CsvTableBuilder {
         let code = codes.get(cell);
         if (code === undefined) codes.set(cell, (code = codes.size));
         row[k] = code;
-      } else if (DECIMAL.test(cell)) {
-        row[k] = Number(cell);
       } else {
-        bad = true;
-        this.report({ row: this.rowNumber, column: this.keptNames[k], value: raw, reason: 'not a number' });
+        const value = decimalValue(cell, this.options.decimalComma === true);
+        if (value !== null) row[k] = value;
+        else {
+          bad = true;
+          this.report({ row: this.rowNumber, column: this.keptNames[k], value: raw, reason: 'not a number' });
+        }
       }
     }
     if (bad) this.droppedRows += 1;

@@ -67,10 +67,26 @@ describe('parseDatasetCsv', () => {
   it("reads the delimiter from the header row, which decimal commas in the data cannot mislead", () => {
     expect(parseDatasetCsv('dose;response\n1;2\n2;4\n').ok).toBe(true);
     expect(parseDatasetCsv('a\tb\n1\t2\n').ok).toBe(true);
-    // Decimal commas are not numbers here, but they are reported per cell, not as too many fields.
+    // The semicolon decides, though the data rows have more commas than semicolons.
     const r = parseDatasetCsv('dose;response\n1,5;2\n2;4\n');
-    expect(r.ok).toBe(false);
-    expect(r.problems).toEqual([{ row: 2, column: 'dose', value: '1,5', reason: 'not a number' }]);
+    expect(r.ok && r.dataset.rows).toEqual([[1.5, 2], [2, 4]]);
+  });
+
+  it('reads decimal commas in a semicolon (or tab) file, as decimal-comma spreadsheets export them', () => {
+    // A file as a spreadsheet set to a decimal-comma locale writes it: semicolons between fields.
+    const r = parseDatasetCsv('flow;signal\r\n0,5;-1,25\r\n1;2,5e-3\r\n,75;3,\r\n"4,5";1.5\r\n');
+    expect(r.ok && r.dataset.rows).toEqual([[0.5, -1.25], [1, 0.0025], [0.75, 3], [4.5, 1.5]]);
+    const tabs = parseDatasetCsv('a\tb\n1,5\t2\n');
+    expect(tabs.ok && tabs.dataset.rows).toEqual([[1.5, 2]]);
+    // Both marks in one cell: which groups thousands is a guess, so it is refused where it stands.
+    const both = parseDatasetCsv('a;b\n1.000,5;2\n1,2,3;4\n');
+    expect(both.problems).toEqual([
+      { row: 2, column: 'a', value: '1.000,5', reason: 'not a number' },
+      { row: 3, column: 'a', value: '1,2,3', reason: 'not a number' },
+    ]);
+    // In a comma-delimited file a comma is a field separator, never a decimal mark.
+    const commas = parseDatasetCsv('a,b\n"1,5",2\n');
+    expect(commas.problems).toEqual([{ row: 2, column: 'a', value: '1,5', reason: 'not a number' }]);
   });
 
   it.each([
