@@ -20,7 +20,7 @@ export function App() {
     <div className="app">
       <header className="app-header">
         <h1>Fall Line</h1>
-        <span className="surface-name" data-testid="surface-name">
+        <span className="surface-name" data-testid="surface-name" title={label}>
           {label}
         </span>
         <ExportMenu />

@@ -59,8 +59,13 @@ export function SurfacePanel() {
           {surfaceMessage(surfaceError)}
         </div>
       )}
-      <ConstantSliders />
-      <SliceControls />
+      {/* The constants and slice belong to the surface shown: hidden while a form for another kind is open. */}
+      {mode === surface.kind && (
+        <>
+          <ConstantSliders />
+          <SliceControls />
+        </>
+      )}
     </section>
   );
 }
