@@ -3,7 +3,7 @@ import { optimizerLabel, validateOptimizerSpec, type GridRequest, type Optimizer
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
-import type { ViewBox } from '../ui/plot';
+import type { PixelSize, ViewBox } from '../ui/plot';
 import { GridRequestCancelled, type GridPoolResult } from '../worker/pool';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
@@ -13,6 +13,7 @@ import { newRunConfig, nextStyle, pageDefaultSpec } from './run-configs';
 import { curvatureAt, rateFamily, switchedOptimizer } from './suggest-rate';
 import { mainThreadSurface } from './surface-cache';
 import { slicePlane } from './slice-plane';
+import { equalScaleOn, shownView } from './equal-scale';
 import type { DisplaySettings, PanelSettings, RunConfig, SliceSettings, Workspace } from './workspace';
 
 /** The surface grid as last received from the worker. */
@@ -45,6 +46,8 @@ export interface AppState extends Workspace {
   startTarget: 'all' | 'selected';
   /** The slice point under the pointer, shared by every panel (linked hover). */
   hover: { a: number; b: number } | null;
+  /** The map's plot frame in CSS pixels, once measured (the grid covers the box shown on it); not saved. */
+  frame: PixelSize | null;
   /** The results table's chosen columns (null: the defaults for the surface) and sort; not saved. */
   table: { columns: string[] | null; sort: { column: string; direction: 'ascending' | 'descending' } | null };
   actions: AppActions;
@@ -64,6 +67,8 @@ export interface AppActions {
   setHover(point: { a: number; b: number } | null): void;
   resetView(): void;
   setDisplay(patch: Partial<DisplaySettings>): void;
+  /** The map reports its plot frame; with equal scale the grid is sampled over the box shown on it. */
+  setFrame(frame: PixelSize): void;
   addRun(kind?: OptimizerKind): string;
   updateRun(id: string, patch: Partial<Omit<RunConfig, 'id'>>): void;
   /**
@@ -167,7 +172,8 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     const n = s.surfaceInfo.variables.length;
     const requestId = freshId('g');
     const side = s.display.resolution;
-    const grid: GridRequest = { plane: slicePlane(s.slice, n), a: s.view.a, b: s.view.b, nx: side, ny: side };
+    const view = viewShownBy(s);
+    const grid: GridRequest = { plane: slicePlane(s.slice, n), a: view.a, b: view.b, nx: side, ny: side };
     set({ grid: { ...s.grid, requestId, phase: 'computing', progress: 0, error: null } });
     if (!grids) return link.send({ type: 'grid/sample', requestId, surface: s.surface, grid, coarseFirst: true });
     const result = (r: GridPoolResult, stage: 'coarse' | 'final') => handleGrid({ type: 'grid/result', requestId, grid: r.grid, values: r.values, min: r.min, max: r.max, stage });
@@ -245,7 +251,9 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     const held = (runs.find((r) => r.id === s.selectedRunId) ?? runs[0])?.settings.start ?? info.view.map(([lo, hi]) => (lo + hi) / 2);
     const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, 1], at: held.slice(), plane: null };
     const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
-    set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs, table: sameShape ? s.table : { columns: null, sort: null } });
+    // A new surface starts from its own equal-scale default (on for two-variable test functions).
+    const { equalScale: _choice, ...display } = s.display;
+    set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs, table: sameShape ? s.table : { columns: null, sort: null }, ...(keepView ? {} : { display }) });
     updateReference();
     launchAll();
     requestGrid();
@@ -314,6 +322,17 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       const s = get();
       set({ display: { ...s.display, ...patch } });
       if (patch.resolution !== undefined && patch.resolution !== s.display.resolution) requestGrid();
+      else if (patch.equalScale !== undefined && !sameView(viewShownBy(get()), viewShownBy(s))) requestGrid();
+    },
+    setFrame(frame) {
+      const s = get();
+      if (s.frame && s.frame.width === frame.width && s.frame.height === frame.height) return;
+      set({ frame: { width: frame.width, height: frame.height } });
+      if (sameView(viewShownBy(get()), viewShownBy(s))) return;
+      // The first measurement replaces the grid asked for before it at once; a resize waits for quiet.
+      clearTimeout(gridTimer);
+      if (s.frame === null) requestGrid();
+      else gridTimer = setTimeout(requestGrid, GRID_SETTLE_MS);
     },
     addRun(kind = 'adam') {
       const s = get();
@@ -453,6 +472,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     selectedRunId: null,
     startTarget: 'all',
     hover: null,
+    frame: null,
     table: { columns: null, sort: null },
     actions,
   }));
@@ -472,6 +492,15 @@ export function workspaceOf(s: AppState): Workspace {
 /** Whether any saved field changed (the store replaces objects on change, so identity suffices). */
 export function workspaceChanged(a: AppState, b: AppState): boolean {
   return WORKSPACE_KEYS.some((k) => a[k] !== b[k]);
+}
+
+/** The box the map shows for the state's view on its measured frame (the view itself without equal scale). */
+export function viewShownBy(s: Pick<AppState, 'view' | 'frame' | 'display' | 'surface' | 'surfaceInfo'>): ViewBox {
+  return shownView(s.view, s.frame, equalScaleOn(s.display, s.surface, s.surfaceInfo.variables.length));
+}
+
+function sameView(p: ViewBox, q: ViewBox): boolean {
+  return p.a[0] === q.a[0] && p.a[1] === q.a[1] && p.b[0] === q.b[0] && p.b[1] === q.b[1];
 }
 
 /** Default view of a slice: the surface's box on the two axes, or [-1, 1]^2 in a method plane's units. */

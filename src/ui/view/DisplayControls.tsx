@@ -1,11 +1,13 @@
 import { KnownPointKey } from './KnownPointKey';
 import { useId } from 'react';
+import { equalScaleOn } from '../../store/equal-scale';
 import { useActions, useApp } from '../app-context';
 
-/** Colour scale, contour levels, colour map, grid resolution and overlays. */
+/** Colour scale, contour levels, colour map, grid resolution, equal scale and overlays. */
 export function DisplayControls() {
   const actions = useActions();
   const d = useApp((s) => s.display);
+  const equal = useApp((s) => equalScaleOn(s.display, s.surface, s.surfaceInfo.variables.length));
   const id = useId();
   return (
     <div className="display-controls" role="group" aria-label="Display">
@@ -30,6 +32,9 @@ export function DisplayControls() {
           </option>
         ))}
       </select>
+      <label title="One unit of the horizontal and of the vertical axis cover the same pixels, so paths cross contours at their true angles; the shown box widens on one axis to fill the panel.">
+        <input type="checkbox" checked={equal} onChange={(e) => actions.setDisplay({ equalScale: e.target.checked })} /> equal scale
+      </label>
       <label>
         <input type="checkbox" checked={d.showArrows} onChange={(e) => actions.setDisplay({ showArrows: e.target.checked })} /> descent arrows
       </label>

@@ -1,4 +1,5 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from 'react';
+import { equalScaleOn, shownView } from '../../store/equal-scale';
 import { slicePlane, slicePoint } from '../../store/slice-plane';
 import { reportedUnits } from '../../store/units';
 import { axisTitles } from './axis-titles';
@@ -41,7 +42,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const baseRef = useRef<HTMLCanvasElement>(null);
   const overlayRef = useRef<HTMLCanvasElement>(null);
   const size = useElementSize(boxRef);
-  const view = useApp((s) => s.view);
+  const askedView = useApp((s) => s.view);
   const grid = useApp((s) => s.grid);
   const display = useApp((s) => s.display);
   const info = useApp((s) => s.surfaceInfo);
@@ -52,6 +53,12 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const surfaceSpec = useApp((s) => s.surface);
   const surface = useMainThreadSurface(surfaceSpec);
   const layout = useMemo(() => (size ? frameLayout(size, !compact) : null), [size, compact]);
+  // The box drawn: the saved view, widened on one axis when equal scale is on (store/equal-scale.ts).
+  const equal = equalScaleOn(display, surfaceSpec, info.variables.length);
+  const view = useMemo(() => shownView(askedView, layout?.frame ?? null, equal), [askedView, layout, equal]);
+  useEffect(() => {
+    if (layout) actions.setFrame(layout.frame);
+  }, [layout, actions]);
   const picture = useSurfacePicture(grid, display, info.logScaleOffset);
   const n = info.variables.length;
   const titles = axisTitles(slice, info.variables, reportedUnits(surface));
@@ -81,8 +88,10 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     if (!canvas || !layout) return;
     const ctx = prepareCanvas(canvas, layout.canvas);
     if (!ctx) return;
-    drawBase(ctx, { layout, view, picture, axisLabels: titles, knownPoints, arrows, title });
+    const axes = drawBase(ctx, { layout, view, picture, axisLabels: titles, knownPoints, arrows, title });
     canvas.dataset.drawn = picture ? 'contours' : 'empty';
+    // The drawn ticks in canvas CSS pixels (value, position), read by the browser tests.
+    canvas.dataset.ticks = JSON.stringify({ a: axes.aTicks.map((t) => [t.value, layout.left + t.px]), b: axes.bTicks.map((t) => [t.value, layout.top + t.py]) });
     if (picture && performance.getEntriesByName(FIRST_CONTOUR_MARK).length === 0) performance.mark(FIRST_CONTOUR_MARK);
   }, [layout, picture, view, titles.a, titles.b, knownPoints, arrows, title]);
 

@@ -6,6 +6,7 @@ import {
   drawTrajectory,
   drawArrows,
   type Arrow,
+  type AxesModel,
   type DrawingContext,
   type KnownPoint,
   type RunStyle,
@@ -24,8 +25,8 @@ export interface BaseLayer {
   title?: string;
 }
 
-/** Contours, arrows, known points, axes and legend: everything that does not move while runs stream. */
-export function drawBase(ctx: DrawingContext & Pick<CanvasRenderingContext2D, 'measureText'>, base: BaseLayer): void {
+/** Contours, arrows, known points, axes and legend: everything that does not move while runs stream. Returns the axes drawn. */
+export function drawBase(ctx: DrawingContext & Pick<CanvasRenderingContext2D, 'measureText'>, base: BaseLayer): AxesModel {
   const { layout, picture } = base;
   const t = frameTransform(base.view, layout);
   ctx.save();
@@ -42,7 +43,7 @@ export function drawBase(ctx: DrawingContext & Pick<CanvasRenderingContext2D, 'm
   if (base.arrows.length) drawArrows(ctx, base.arrows, t);
   if (base.knownPoints.length) drawKnownPoints(ctx, base.knownPoints, t);
   ctx.restore();
-  drawAxes(ctx, t, base.axisLabels);
+  const axes = drawAxes(ctx, t, base.axisLabels);
   if (layout.withLegend && picture) {
     drawLegend(ctx, picture.legend, { px: layout.frame.width + 24, py: 18, width: 14, height: Math.max(40, layout.frame.height - 24) }, 'loss');
   }
@@ -63,6 +64,7 @@ export function drawBase(ctx: DrawingContext & Pick<CanvasRenderingContext2D, 'm
     ctx.restore();
   }
   ctx.restore();
+  return axes;
 }
 
 export interface TrajectoryLayerItem {
