@@ -90,8 +90,12 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     if (!ctx) return;
     const axes = drawBase(ctx, { layout, view, picture, axisLabels: titles, knownPoints, arrows, title });
     canvas.dataset.drawn = picture ? 'contours' : 'empty';
-    // The drawn ticks in canvas CSS pixels (value, position), read by the browser tests.
-    canvas.dataset.ticks = JSON.stringify({ a: axes.aTicks.map((t) => [t.value, layout.left + t.px]), b: axes.bTicks.map((t) => [t.value, layout.top + t.py]) });
+    // The plot frame and the drawn ticks (value, position) in canvas CSS pixels, read by the browser tests.
+    canvas.dataset.axes = JSON.stringify({
+      frame: { left: layout.left, top: layout.top, ...layout.frame },
+      a: axes.aTicks.map((t) => [t.value, layout.left + t.px]),
+      b: axes.bTicks.map((t) => [t.value, layout.top + t.py]),
+    });
     if (picture && performance.getEntriesByName(FIRST_CONTOUR_MARK).length === 0) performance.mark(FIRST_CONTOUR_MARK);
   }, [layout, picture, view, titles.a, titles.b, knownPoints, arrows, title]);
 
