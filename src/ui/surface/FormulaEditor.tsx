@@ -30,7 +30,7 @@ export function FormulaEditor({ initial }: { initial: FormulaSpec | null }) {
     if (typeof constants === 'string') return setProblems([{ where: 'constants', message: constants }]);
     const variables = variablesText.trim() ? variablesText.split(',').map((v) => v.trim()) : undefined;
     if (variables?.some((v) => !/^[A-Za-z_][A-Za-z0-9_]*$/.test(v)))
-      return setProblems([{ where: 'variables', message: `variables: each name must start with a letter or _ and contain only letters, digits and _ (got "${variablesText}")` }]);
+      return setProblems([{ where: 'variables', message: `Variable order: each name must start with a letter or _ and contain only letters, digits and _ (got "${variablesText}")` }]);
     const spec: FormulaSpec = { kind: 'formula', text, ...(variables ? { variables } : {}), ...(Object.keys(constants).length ? { constants } : {}) };
     try {
       buildSurface(spec);

@@ -13,4 +13,19 @@ describe('data-fit drafts', () => {
       expect(() => buildSurface(result.spec), JSON.stringify(dataset)).not.toThrow();
     }
   });
+
+  it('each refusal names its field as the form labels it (Inputs, Target, Hidden widths, Parameters, Start)', () => {
+    const base = draftFor({ kind: 'demo', id: 'seed-pods' });
+    const cases: [Partial<typeof base>, string, RegExp][] = [
+      [{ inputs: [] }, 'inputs', /^inputs: /],
+      [{ model: 'mlp', hidden: '8, x' }, 'hidden', /^Hidden widths: must be whole numbers/],
+      [{ model: 'formula', parameters: ' ' }, 'parameters', /^parameters: /],
+      [{ model: 'formula', parameters: 'b1, b2', start: '1' }, 'start', /^start: give 2 numbers/],
+    ];
+    for (const [patch, field, message] of cases) {
+      const result = specOfDraft({ ...base, ...patch });
+      expect('field' in result && result.field).toBe(field);
+      if ('field' in result) expect(result.message).toMatch(message);
+    }
+  });
 });

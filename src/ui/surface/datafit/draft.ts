@@ -111,7 +111,7 @@ export function specOfDraft(d: DataFitDraft): { spec: DataFitSpec } | { field: k
       break;
     case 'mlp': {
       const hidden = d.hidden.split(/[,\s]+/).filter(Boolean).map(Number);
-      if (!hidden.length || hidden.some((h) => !Number.isInteger(h) || h < 1)) return { field: 'hidden', message: `hidden layers: widths must be whole numbers like "8" or "8, 4", got "${d.hidden}"` };
+      if (!hidden.length || hidden.some((h) => !Number.isInteger(h) || h < 1)) return { field: 'hidden', message: `Hidden widths: must be whole numbers like "8" or "8, 4", got "${d.hidden}"` };
       model = { kind: 'mlp', ...cols, hidden, activation: d.activation, head: d.head };
       break;
     }
