@@ -112,6 +112,19 @@ for (const size of SIZES) {
   });
 }
 
+test.describe('at 1800 x 1000 (the data beside the map)', () => {
+  test.use({ viewport: { width: 1800, height: 1000 } });
+
+  test('the data panels sit beside the map and nothing sticks out of them', async ({ page }) => {
+    await openFresh(page);
+    await fitProbeData(page);
+    const map = (await page.locator('.view-area').boundingBox())!;
+    const data = (await page.locator('.data-panel').boundingBox())!;
+    expect(data.x).toBeGreaterThan(map.x + map.width - 1);
+    for (const panel of ['.sidebar', '.data-panel', '.profile-panel', '.view-area']) expect(await overflowing(page, panel)).toEqual([]);
+  });
+});
+
 test.describe('equal scale', () => {
   test.use({ viewport: { width: 1280, height: 800 } });
 
