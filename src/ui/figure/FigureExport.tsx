@@ -73,3 +73,9 @@ export function FigureExport({ name, fileName, screenSize, figure, disabled }: F
 function clampSide(v: number): number {
   return Math.min(FIGURE_LIMITS.max, Math.max(FIGURE_LIMITS.min, Math.round(v)));
 }
+
+/** An element's CSS size now (for `screenSize`), or null before it is on the page. */
+export function sizeOf(el: Element | null): PixelSize | null {
+  const r = el?.getBoundingClientRect();
+  return r && r.width > 0 && r.height > 0 ? { width: Math.round(r.width), height: Math.round(r.height) } : null;
+}

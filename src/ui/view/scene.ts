@@ -25,6 +25,9 @@ export interface BaseLayer {
   title?: string;
 }
 
+/** Room the title plate leaves inside the frame: 2 px margin, 4 px padding each side. */
+export const TITLE_PLATE_INSET = 12;
+
 /** Contours, arrows, known points, axes and legend: everything that does not move while runs stream. */
 export function drawBase(ctx: DrawingContext & { measureText(text: string): { width: number } }, base: BaseLayer): void {
   const { layout, picture } = base;
@@ -48,16 +51,17 @@ export function drawBase(ctx: DrawingContext & { measureText(text: string): { wi
     drawLegend(ctx, picture.legend, { px: layout.frame.width + 24, py: 18, width: 14, height: Math.max(40, layout.frame.height - 24) }, 'loss');
   }
   if (base.title) {
-    // On a light plate so it reads over any contour colour; shortened with an ellipsis to the frame width.
+    // On a light plate in the frame's top-left corner so it reads over any contour colour; shortened
+    // with an ellipsis to the frame's width (the origin is the frame's corner here).
     ctx.font = '600 12px system-ui, sans-serif';
     ctx.textAlign = 'left';
     ctx.textBaseline = 'top';
-    const title = ellipsize(base.title, Math.max(0, layout.frame.width - 16), (t) => ctx.measureText(t).width);
+    const title = ellipsize(base.title, Math.max(0, layout.frame.width - TITLE_PLATE_INSET), (t) => ctx.measureText(t).width);
     const width = ctx.measureText(title).width;
     ctx.fillStyle = 'rgba(255,255,255,0.88)';
-    ctx.fillRect(layout.left + 2, layout.top + 2, width + 8, 17);
+    ctx.fillRect(2, 2, width + 8, 17);
     ctx.fillStyle = '#222222';
-    ctx.fillText(title, layout.left + 6, layout.top + 4);
+    ctx.fillText(title, 6, 4);
   }
   ctx.restore();
 }
