@@ -46,7 +46,7 @@ export interface FigureMeasures {
 export const FIGURE_PAD = 10;
 export const TITLE_LINE_HEIGHT = 19;
 export const TITLE_MAX_LINES = 2;
-export const KEY_LABEL_MAX = 260;
+export const KEY_LABEL_MAX = 380;
 /** Gap between entries on one row of a key below the body. */
 const KEY_COLUMN_GAP = 18;
 /** The body keeps at least this share of the width when the key goes to the right. */
