@@ -3,7 +3,7 @@
  * two lines, the second ending in an ellipsis when the title is longer), the key in a column to the
  * right when the body keeps most of the width, else in rows below the body, and the body (the view's
  * own drawing) in the rest. Every part lies inside the figure and no two overlap; labels longer than
- * KEY_LABEL_MAX are shortened, and entries that do not fit are replaced by "and N more".
+ * KEY_LABEL_MAX (a text-only note: than the width) are shortened, and entries that do not fit are replaced by "and N more".
  */
 import type { PixelSize } from '../plot';
 import { KEY_GLYPH_WIDTH, KEY_ROW_HEIGHT, type KeyEntry } from './key';
@@ -63,8 +63,11 @@ export function layoutFigure(size: PixelSize, text: FigureText, measure: FigureM
   const heading = text.keyHeading ? ellipsize(text.keyHeading, KEY_LABEL_MAX + KEY_GLYPH_WIDTH, measure.key) : null;
   if (!text.key.length) return { size, title, body: available, key: { placement: 'none', rect: { ...available, width: 0, height: 0 }, heading: null, entries: [] } };
 
-  const labels = text.key.map((e) => ellipsize(e.label, KEY_LABEL_MAX, measure.key));
-  const widths = text.key.map((e, k) => (e.kind === 'note' ? 0 : KEY_GLYPH_WIDTH) + measure.key(labels[k]));
+  // Notes (text-only lines) may take the whole width when the key goes below.
+  const labelsFor = (noteWidth: number, entryWidth: number) => text.key.map((e) => ellipsize(e.label, e.kind === 'note' ? noteWidth : entryWidth, measure.key));
+  const widthsOf = (labels: string[]) => text.key.map((e, k) => (e.kind === 'note' ? 0 : KEY_GLYPH_WIDTH) + measure.key(labels[k]));
+  let labels = labelsFor(KEY_LABEL_MAX, KEY_LABEL_MAX);
+  let widths = widthsOf(labels);
   const headingRows = heading ? 1 : 0;
 
   // Right column: as wide as its widest entry.
@@ -82,6 +85,8 @@ export function layoutFigure(size: PixelSize, text: FigureText, measure: FigureM
   }
 
   // Rows below: entries flow left to right, wrapping at the width.
+  labels = labelsFor(available.width, Math.min(KEY_LABEL_MAX, available.width - KEY_GLYPH_WIDTH));
+  widths = widthsOf(labels);
   const maxRows = Math.max(1, Math.floor((available.height * KEY_BELOW_MAX_SHARE) / KEY_ROW_HEIGHT) - headingRows);
   const spots: { x: number; row: number }[] = [];
   let x = 0;
