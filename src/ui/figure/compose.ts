@@ -15,6 +15,7 @@ export interface Figure {
   title: string;
   key: KeyEntry[];
   keyHeading?: string;
+  keyPlacement?: 'auto' | 'below';
   /** Draws the view in a `size` box whose top-left corner is the context's origin (clipped to it). */
   drawBody(ctx: FigureContext, size: PixelSize): void;
 }

@@ -1,9 +1,10 @@
 /**
  * Where the parts of an exported figure go, as plain data: a title band on top (wrapped to at most
- * two lines, the second ending in an ellipsis when the title is longer), the key in a column to the
- * right when the body keeps most of the width, else in rows below the body, and the body (the view's
- * own drawing) in the rest. Every part lies inside the figure and no two overlap; labels longer than
- * KEY_LABEL_MAX (a text-only note: than the width) are shortened, and entries that do not fit are replaced by "and N more".
+ * two lines, the second ending in an ellipsis when the title is longer); the key in a column to the
+ * right when the body keeps most of the width and the figure does not ask for it below, else in rows
+ * below the body; the body (the view's own drawing) in the rest. Every part lies inside the figure
+ * and no two overlap; key labels are shortened to KEY_LABEL_MAX (a text-only note to the width), and
+ * entries that do not fit are replaced by "and N more".
  */
 import type { PixelSize } from '../plot';
 import { KEY_GLYPH_WIDTH, KEY_ROW_HEIGHT, type KeyEntry } from './key';
@@ -36,6 +37,8 @@ export interface FigureText {
   title: string;
   key: readonly KeyEntry[];
   keyHeading?: string;
+  /** 'below' keeps the body's full width (panel grids); 'auto' (the default) prefers a right column. */
+  keyPlacement?: 'auto' | 'below';
 }
 
 export interface FigureMeasures {
@@ -72,7 +75,7 @@ export function layoutFigure(size: PixelSize, text: FigureText, measure: FigureM
 
   // Right column: as wide as its widest entry.
   const columnWidth = Math.ceil(Math.max(...widths, heading ? measure.key(heading) : 0)) + FIGURE_PAD;
-  if (available.width - columnWidth >= BODY_MIN_SHARE * available.width) {
+  if (text.keyPlacement !== 'below' && available.width - columnWidth >= BODY_MIN_SHARE * available.width) {
     const rows = Math.max(1, Math.floor(available.height / KEY_ROW_HEIGHT) - headingRows);
     const shown = fitCount(text.key.length, rows);
     const x = available.x + available.width - columnWidth + FIGURE_PAD;

@@ -49,6 +49,14 @@ describe('layoutFigure', () => {
     checkParts(layout);
   });
 
+  it('keeps the body at full width when the figure asks for its key below (panel grids)', () => {
+    const layout = layoutFigure({ width: 900, height: 600 }, { title: 'Rosenbrock', key: runs(['Plain descent', 'Momentum', 'Adam']), keyPlacement: 'below' }, measure);
+    expect(layout.key.placement).toBe('below');
+    expect(layout.body.width).toBe(900 - 2 * FIGURE_PAD);
+    expect(new Set(layout.key.entries.map((e) => e.y)).size).toBe(1); // three short entries on one row
+    checkParts(layout);
+  });
+
   it('wraps a long data-fit title to two lines ending in an ellipsis, clear of the body', () => {
     const title = 'Linear regression of response on dose (mean squared error) - reservoir-outflow-probe-calibration-second-field-season-after-the-housing-was-replaced.csv (L2 0.1, standardised inputs)';
     const layout = layoutFigure({ width: 520, height: 420 }, { title, key: runs(['Plain descent']) }, measure);

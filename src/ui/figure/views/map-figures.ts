@@ -45,6 +45,7 @@ function perRunFigure(s: AppState, live: LiveRuns): Figure {
   return {
     title: s.surfaceInfo.label,
     key: [...runKey(s, live, visible.map((r) => r.id)), ...knownKey(s)],
+    keyPlacement: 'below',
     drawBody: (ctx, size) => {
       const grid = { width: size.width - BAR_COLUMN, height: size.height };
       const rows = Math.max(1, Math.ceil(visible.length / columns));
@@ -63,6 +64,7 @@ function tableFigure(s: AppState, live: LiveRuns): Figure {
   return {
     title: s.surfaceInfo.label,
     key: [...runKey(s, live, cells.map((r) => r.id)), ...knownKey(s)],
+    keyPlacement: 'below',
     drawBody: (ctx, size) => {
       const grid = { width: size.width - BAR_COLUMN - ROW_HEAD_COLUMN, height: size.height - HEAD_ROW };
       const columns = Math.max(1, rates.length);
