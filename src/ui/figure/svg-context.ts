@@ -169,7 +169,7 @@ export class SvgContext implements DrawingContext {
     this.body.push(`<path d="${this.path}" fill="none"${this.strokeAttributes()}/>`);
   }
   clip(): void {
-    const id = `clip${++this.clipCount}`;
+    const id = `fall-line-clip${++this.clipCount}`;
     this.defs.push(`<clipPath id="${id}"><path d="${this.path || 'M0 0'}"/></clipPath>`);
     this.body.push(`<g clip-path="url(#${id})">`);
     this.openGroups++;

@@ -52,7 +52,7 @@ describe('SvgContext', () => {
     ctx.fillRect(0, 0, 1, 1); // back at the identity, black, outside the clip
     const svg = ctx.toSvg();
     expect(xmlProblems(svg)).toEqual([]);
-    expect(svg).toContain('<clipPath id="clip1"><path d="M5 5L15 5L15 15L5 15Z"/></clipPath>');
+    expect(svg).toContain('<clipPath id="fall-line-clip1"><path d="M5 5L15 5L15 15L5 15Z"/></clipPath>');
     const groupEnd = svg.indexOf('</g>');
     expect(svg.indexOf('M5 5L25 5L25 25L5 25Z')).toBeLessThan(groupEnd);
     expect(svg.indexOf('M0 0L1 0L1 1L0 1Z" fill="#000000"')).toBeGreaterThan(groupEnd);
@@ -113,7 +113,7 @@ describe('drawFigure on an SvgContext', () => {
     expect(texts).toEqual(expect.arrayContaining(['Bowl &amp; basin', 'Plain descent', 'known minimum', 'median', 'loss', ...model.ticks.map((t) => t.label)]));
     expect(layout.key.placement).toBe('right');
     // The body is clipped to its rectangle, offset by the figure's pad and title band.
-    expect(svg).toContain(`<clipPath id="clip1"><path d="M${layout.body.x} ${layout.body.y}L`);
+    expect(svg).toContain(`<clipPath id="fall-line-clip1"><path d="M${layout.body.x} ${layout.body.y}L`);
     expect(svg).toContain('stroke-dasharray="5 3"');
   });
 });
