@@ -79,7 +79,11 @@ test.describe('figure exports', () => {
   test('the single map: SVG with runs, key, axes and colour-bar values; PNG at the chosen size and ratio with the key drawn', async ({ page }) => {
     await openFresh(page);
     await waitForRunsToEnd(page, 3);
-    await setFigureSize(page, 'View', 900, 600, 3);
+    // A size outside the range is refused at its field, and the buttons wait for a good one.
+    await setFigureSize(page, 'View', 50, 600, 3);
+    await expect(page.getByRole('group', { name: 'View figure' }).getByRole('alert')).toHaveText('width: from 200 to 4000 pixels, got 50');
+    await expect(page.getByRole('button', { name: 'View PNG', exact: true })).toBeDisabled();
+    await page.getByLabel('View figure width').fill('900');
     const svg = await readSvg(page, await downloadOf(page, 'View SVG'));
     expect(svg.error).toBeNull();
     expect([svg.width, svg.height]).toEqual([900, 600]);
@@ -124,7 +128,8 @@ test.describe('figure exports', () => {
     const png = await downloadOf(page, 'View PNG');
     const size = pngSize(png);
     expect(size.width % 2).toBe(0); // default pixel ratio 2
-    expect(await colourInRegion(page, png, { x0: 0.75, x1: 1, y0: 0, y1: 1 }, ORANGE)).toBeGreaterThan(50);
+    // The key runs below the panels (they keep the view's width): the orange run's entry is in the bottom band.
+    expect(await colourInRegion(page, png, { x0: 0, x1: 1, y0: 0.9, y1: 1 }, ORANGE)).toBeGreaterThan(30);
   });
 
   test('a long data-fit title wraps to two lines, ends with an ellipsis and stays clear of the plot and colour bar', async ({ page }) => {
@@ -250,6 +255,12 @@ test.describe('figure exports', () => {
     const s = texts(await readSvg(page, await downloadOf(page, 'Sharpness SVG')));
     for (const label of ['largest Hessian eigenvalue', 'step', '2 / learning rate at that step']) expect(s).toContain(label);
     expect(s.some((t) => t.startsWith('λmax of the Hessian at '))).toBe(true);
+    await setFigureSize(page, 'Sharpness', 640, 360, 2);
+    const sPng = await downloadOf(page, 'Sharpness PNG');
+    expect(pngSize(sPng)).toEqual({ width: 1280, height: 720 });
+    // The key's dashed 2/lr line in its vermillion and the curve's blue are both drawn.
+    expect(await colourInRegion(page, sPng, { x0: 0, x1: 1, y0: 0, y1: 1 }, [0xd5, 0x5e, 0x00], 20)).toBeGreaterThan(30);
+    expect(await colourInRegion(page, sPng, { x0: 0, x1: 1, y0: 0, y1: 1 }, [0x00, 0x72, 0xb2], 20)).toBeGreaterThan(30);
 
     await page.getByRole('tab', { name: 'Critical points' }).click();
     const crit = page.getByTestId('critical-points');

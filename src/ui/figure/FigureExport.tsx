@@ -2,7 +2,7 @@ import { useId, useState } from 'react';
 import type { PixelSize } from '../plot';
 import { download } from '../export/download';
 import type { Figure } from './compose';
-import { FIGURE_LIMITS, figurePng, figureSideProblem, figureSvg, PIXEL_RATIOS, type PixelRatio } from './render';
+import { FIGURE_LIMITS, figurePng, figureSvg, parseFigureSide, PIXEL_RATIOS, type PixelRatio } from './render';
 
 export interface FigureExportProps {
   /** What is exported, e.g. "View" or "Loss chart": the buttons are named "<name> PNG" and "<name> SVG". */
@@ -27,15 +27,17 @@ export function FigureExport({ name, fileName, screenSize, figure, disabled }: F
   const [ratio, setRatio] = useState<PixelRatio>(2);
   const [problem, setProblem] = useState<string | null>(null);
   const screen = screenSize();
-  const side = (text: string, fallback: number | undefined) => (text.trim() === '' ? clampSide(fallback ?? 800) : Number(text));
-  const widthValue = side(width, screen?.width);
-  const heightValue = side(height, screen?.height);
-  const widthProblem = figureSideProblem('width', widthValue);
-  const heightProblem = figureSideProblem('height', heightValue);
+  const side = (name: 'width' | 'height', text: string, fallback: number | undefined) =>
+    text.trim() === '' ? { value: clampSide(fallback ?? 800) } : parseFigureSide(name, text);
+  const w = side('width', width, screen?.width);
+  const h = side('height', height, screen?.height);
+  const widthValue = 'value' in w ? w.value : null;
+  const heightValue = 'value' in h ? h.value : null;
+  const problems = [w, h].flatMap((r) => ('error' in r ? [r.error] : []));
 
   const run = async (kind: 'png' | 'svg') => {
     setProblem(null);
-    if (widthProblem || heightProblem) return;
+    if (widthValue === null || heightValue === null) return;
     try {
       const f = figure();
       if (!f) return setProblem(`${name}: nothing to export yet`);
@@ -49,20 +51,20 @@ export function FigureExport({ name, fileName, screenSize, figure, disabled }: F
 
   return (
     <div className="figure-export" role="group" aria-label={`${name} figure`}>
-      <button type="button" aria-label={`${name} PNG`} disabled={disabled} onClick={() => run('png')}>PNG</button>
-      <button type="button" aria-label={`${name} SVG`} disabled={disabled} onClick={() => run('svg')}>SVG</button>
+      <button type="button" aria-label={`${name} PNG`} disabled={disabled || problems.length > 0} onClick={() => run('png')}>PNG</button>
+      <button type="button" aria-label={`${name} SVG`} disabled={disabled || problems.length > 0} onClick={() => run('svg')}>SVG</button>
       <details>
         <summary>size</summary>
         <label htmlFor={`${id}-w`}>width</label>
-        <input id={`${id}-w`} type="text" inputMode="numeric" size={5} value={width} placeholder={String(widthValue)} aria-invalid={widthProblem ? true : undefined} aria-label={`${name} figure width`} onChange={(e) => setWidth(e.target.value)} />
+        <input id={`${id}-w`} type="text" inputMode="numeric" size={5} value={width} placeholder={screen ? String(clampSide(screen.width)) : ''} aria-invalid={'error' in w ? true : undefined} aria-label={`${name} figure width`} onChange={(e) => setWidth(e.target.value)} />
         <label htmlFor={`${id}-h`}>height</label>
-        <input id={`${id}-h`} type="text" inputMode="numeric" size={5} value={height} placeholder={String(heightValue)} aria-invalid={heightProblem ? true : undefined} aria-label={`${name} figure height`} onChange={(e) => setHeight(e.target.value)} />
+        <input id={`${id}-h`} type="text" inputMode="numeric" size={5} value={height} placeholder={screen ? String(clampSide(screen.height)) : ''} aria-invalid={'error' in h ? true : undefined} aria-label={`${name} figure height`} onChange={(e) => setHeight(e.target.value)} />
         px
         <label htmlFor={`${id}-r`}>PNG pixel ratio</label>
         <select id={`${id}-r`} value={ratio} aria-label={`${name} PNG pixel ratio`} onChange={(e) => setRatio(Number(e.target.value) as PixelRatio)}>
           {PIXEL_RATIOS.map((r) => <option key={r} value={r}>{r}</option>)}
         </select>
-        {(widthProblem || heightProblem) && <div className="field-error" role="alert">{[widthProblem, heightProblem].filter(Boolean).join('; ')}</div>}
+        {problems.length > 0 && <div className="field-error" role="alert">{problems.join('; ')}</div>}
       </details>
       {problem && <span className="field-error" role="alert">{problem}</span>}
     </div>

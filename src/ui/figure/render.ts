@@ -11,11 +11,13 @@ export const PIXEL_RATIOS = [1, 2, 3] as const;
 export type PixelRatio = (typeof PIXEL_RATIOS)[number];
 export const FIGURE_LIMITS = { min: 200, max: 4000 } as const;
 
-/** A message for a width or height that cannot be exported, else null. */
-export function figureSideProblem(name: 'width' | 'height', value: number): string | null {
-  if (!Number.isInteger(value)) return `${name}: a whole number of pixels, got ${Number.isNaN(value) ? 'nothing' : value}`;
-  if (value < FIGURE_LIMITS.min || value > FIGURE_LIMITS.max) return `${name}: from ${FIGURE_LIMITS.min} to ${FIGURE_LIMITS.max} pixels, got ${value}`;
-  return null;
+/** The width or height typed into a figure's size field, or the message saying what is wrong with it. */
+export function parseFigureSide(name: 'width' | 'height', text: string): { value: number } | { error: string } {
+  const t = text.trim();
+  const value = Number(t);
+  if (!/^\d+$/.test(t) || !Number.isSafeInteger(value)) return { error: `${name}: "${t}" is not a whole number of pixels` };
+  if (value < FIGURE_LIMITS.min || value > FIGURE_LIMITS.max) return { error: `${name}: from ${FIGURE_LIMITS.min} to ${FIGURE_LIMITS.max} pixels, got ${value}` };
+  return { value };
 }
 
 export function figurePng(figure: Figure, size: PixelSize, ratio: PixelRatio): Promise<Blob> {
