@@ -21,8 +21,11 @@ export function LossChart() {
   const runs = useApp((s) => s.runs);
   const knownPoints = useApp((s) => s.surfaceInfo.knownPoints);
   const study = useStudyStore();
-  const studyState = useStudy((s) => s);
-  const band = useMemo(() => multiStartBand(studyState), [studyState]);
+  // Only the fields the band needs, so study progress does not redraw the chart.
+  const studySpec = useStudy((s) => s.spec);
+  const studyBands = useStudy((s) => s.bands);
+  const studyLabel = useStudy((s) => s.configLabel);
+  const band = useMemo(() => multiStartBand({ spec: studySpec, bands: studyBands, configLabel: studyLabel }), [studySpec, studyBands, studyLabel]);
   const minimum = knownMinimumOf(knownPoints);
   const input = useRef({ runs, size, minimum, band });
   input.current = { runs, size, minimum, band };

@@ -10,7 +10,7 @@ import type { Figure } from '../compose';
 import type { KeyEntry } from '../key';
 
 /** The band of a finished multi-start study, with the words its legend entry uses; null otherwise. */
-export function multiStartBand(study: StudyState): (LossBand & { medianLabel: string; bandLabel: string }) | null {
+export function multiStartBand(study: Pick<StudyState, 'spec' | 'bands' | 'configLabel'>): (LossBand & { medianLabel: string; bandLabel: string }) | null {
   if (study.spec?.kind !== 'multi-start' || !study.bands || study.bands.length < 3) return null;
   return {
     quantiles: study.bands,
