@@ -100,6 +100,34 @@ test.describe('figure exports', () => {
     expect(await colourInRegion(page, png, { x0: 0.8, x1: 1, y0: 0, y1: 0.3 }, ORANGE)).toBeGreaterThan(100);
   });
 
+  test('the PNG and the SVG of a view are the same drawing', async ({ page }) => {
+    await openFresh(page);
+    await waitForRunsToEnd(page, 3);
+    await setFigureSize(page, 'View', 800, 520, 1);
+    const png = await downloadOf(page, 'View PNG');
+    const svg = await downloadOf(page, 'View SVG');
+    // The SVG rasterised by the browser against the PNG, pixel by pixel: only antialiasing may differ.
+    const differing = await page.evaluate(async ({ png64, svgText }) => {
+      const draw = async (blob: Blob) => {
+        const url = URL.createObjectURL(blob);
+        const img = new Image();
+        img.src = url;
+        await img.decode();
+        const c = new OffscreenCanvas(800, 520);
+        const ctx = c.getContext('2d')!;
+        ctx.drawImage(img, 0, 0, 800, 520);
+        URL.revokeObjectURL(url);
+        return ctx.getImageData(0, 0, 800, 520).data;
+      };
+      const a = await draw(await (await fetch(`data:image/png;base64,${png64}`)).blob());
+      const b = await draw(new Blob([svgText], { type: 'image/svg+xml' }));
+      let n = 0;
+      for (let k = 0; k < a.length; k += 4) if (Math.max(Math.abs(a[k] - b[k]), Math.abs(a[k + 1] - b[k + 1]), Math.abs(a[k + 2] - b[k + 2])) > 64) n++;
+      return n / (a.length / 4);
+    }, { png64: png.toString('base64'), svgText: svg.toString('utf8') });
+    expect(differing).toBeLessThan(0.02);
+  });
+
   test('per-run panels and the optimizer x learning-rate table export their panels, heads, colour bar and key', async ({ page }) => {
     await openFresh(page);
     await waitForRunsToEnd(page, 3);

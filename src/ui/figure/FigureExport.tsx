@@ -2,7 +2,7 @@ import { useId, useState } from 'react';
 import type { PixelSize } from '../plot';
 import { download } from '../export/download';
 import type { Figure } from './compose';
-import { FIGURE_LIMITS, figurePng, figureSvg, parseFigureSide, PIXEL_RATIOS, type PixelRatio } from './render';
+import { FIGURE_LIMITS, figurePng, figureSvg, parseFigureSide, PIXEL_RATIOS, pngSizeProblem, type PixelRatio } from './render';
 
 export interface FigureExportProps {
   /** What is exported, e.g. "View" or "Loss chart": the buttons are named "<name> PNG" and "<name> SVG". */
@@ -18,7 +18,8 @@ export interface FigureExportProps {
 
 /**
  * PNG and SVG buttons for one view, with the figure's size (CSS pixels, empty = the on-screen size)
- * and the PNG's pixel ratio under a "size" disclosure. A bad size is reported at its field.
+ * and the PNG's pixel ratio under a "size" disclosure. A bad size is reported beside the fields and
+ * holds the buttons back.
  */
 export function FigureExport({ name, fileName, screenSize, figure, disabled }: FigureExportProps) {
   const id = useId();
@@ -34,6 +35,7 @@ export function FigureExport({ name, fileName, screenSize, figure, disabled }: F
   const widthValue = 'value' in w ? w.value : null;
   const heightValue = 'value' in h ? h.value : null;
   const problems = [w, h].flatMap((r) => ('error' in r ? [r.error] : []));
+  const pngProblem = widthValue !== null && heightValue !== null ? pngSizeProblem({ width: widthValue, height: heightValue }, ratio) : null;
 
   const run = async (kind: 'png' | 'svg') => {
     setProblem(null);
@@ -51,7 +53,7 @@ export function FigureExport({ name, fileName, screenSize, figure, disabled }: F
 
   return (
     <div className="figure-export" role="group" aria-label={`${name} figure`}>
-      <button type="button" aria-label={`${name} PNG`} disabled={disabled || problems.length > 0} onClick={() => run('png')}>PNG</button>
+      <button type="button" aria-label={`${name} PNG`} disabled={disabled || problems.length > 0 || !!pngProblem} onClick={() => run('png')}>PNG</button>
       <button type="button" aria-label={`${name} SVG`} disabled={disabled || problems.length > 0} onClick={() => run('svg')}>SVG</button>
       <details>
         <summary>size</summary>
@@ -64,8 +66,8 @@ export function FigureExport({ name, fileName, screenSize, figure, disabled }: F
         <select id={`${id}-r`} value={ratio} aria-label={`${name} PNG pixel ratio`} onChange={(e) => setRatio(Number(e.target.value) as PixelRatio)}>
           {PIXEL_RATIOS.map((r) => <option key={r} value={r}>{r}</option>)}
         </select>
-        {problems.length > 0 && <div className="field-error" role="alert">{problems.join('; ')}</div>}
       </details>
+      {(problems.length > 0 || pngProblem) && <span className="field-error" role="alert">{[...problems, ...(pngProblem ? [pngProblem] : [])].join('; ')}</span>}
       {problem && <span className="field-error" role="alert">{problem}</span>}
     </div>
   );

@@ -20,7 +20,18 @@ export function parseFigureSide(name: 'width' | 'height', text: string): { value
   return { value };
 }
 
+/** Most device pixels a PNG may have (a canvas this large already needs 256 MB). */
+export const PNG_MAX_PIXELS = 64e6;
+
+/** A message when the PNG of `size` at `ratio` would be too large to draw, else null. */
+export function pngSizeProblem(size: PixelSize, ratio: PixelRatio): string | null {
+  const pixels = size.width * size.height * ratio * ratio;
+  return pixels > PNG_MAX_PIXELS ? `PNG pixel ratio: ${size.width} x ${size.height} at ${ratio} would be ${(pixels / 1e6).toFixed(0)} megapixels, at most ${PNG_MAX_PIXELS / 1e6}` : null;
+}
+
 export function figurePng(figure: Figure, size: PixelSize, ratio: PixelRatio): Promise<Blob> {
+  const problem = pngSizeProblem(size, ratio);
+  if (problem) return Promise.reject(new Error(problem));
   const canvas = document.createElement('canvas');
   canvas.width = Math.round(size.width * ratio);
   canvas.height = Math.round(size.height * ratio);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { defaultOptimizerSpec } from '../../../src/engine';
 import type { StudyState } from '../../../src/store/study-store';
-import { parseFigureSide } from '../../../src/ui/figure/render';
+import { parseFigureSide, pngSizeProblem } from '../../../src/ui/figure/render';
 import { lossFigure, multiStartBand } from '../../../src/ui/figure/views/loss-figure';
 import { criticalPointsFigure, rateSweepFigure } from '../../../src/ui/figure/views/study-figures';
 import { runStyle } from '../../../src/ui/plot';
@@ -64,5 +64,12 @@ describe('parseFigureSide', () => {
     expect(parseFigureSide('height', '4001')).toEqual({ error: 'height: from 200 to 4000 pixels, got 4001' });
     expect(parseFigureSide('width', '640.5')).toEqual({ error: 'width: "640.5" is not a whole number of pixels' });
     expect(parseFigureSide('width', 'abc')).toEqual({ error: 'width: "abc" is not a whole number of pixels' });
+  });
+});
+
+describe('pngSizeProblem', () => {
+  it('allows up to 64 megapixels and says how many a larger PNG would have', () => {
+    expect(pngSizeProblem({ width: 4000, height: 4000 }, 2)).toBeNull(); // exactly 64e6
+    expect(pngSizeProblem({ width: 4000, height: 4000 }, 3)).toBe('PNG pixel ratio: 4000 x 4000 at 3 would be 144 megapixels, at most 64');
   });
 });
