@@ -21,6 +21,7 @@ export interface Figure {
 }
 
 export const TITLE_FONT = canvasFont(PLOT_STYLE.titleFontSize + 1, 'bold');
+export const KEY_HEADING_FONT = canvasFont(PLOT_STYLE.tickFontSize + 1, 'bold');
 
 /** Lays out and draws the figure over a white background; returns the layout it used. */
 export function drawFigure(ctx: FigureContext, figure: Figure, size: PixelSize): FigureLayout {
@@ -29,7 +30,7 @@ export function drawFigure(ctx: FigureContext, figure: Figure, size: PixelSize):
     return ctx.measureText(text).width;
   };
   ctx.save();
-  const layout = layoutFigure(size, figure, { title: widthIn(TITLE_FONT), key: widthIn(KEY_FONT) });
+  const layout = layoutFigure(size, figure, { title: widthIn(TITLE_FONT), key: widthIn(KEY_FONT), heading: widthIn(KEY_HEADING_FONT) });
   ctx.fillStyle = '#ffffff';
   ctx.fillRect(0, 0, size.width, size.height);
 
@@ -52,7 +53,7 @@ export function drawFigure(ctx: FigureContext, figure: Figure, size: PixelSize):
 
   const { key } = layout;
   if (key.heading) {
-    ctx.font = canvasFont(PLOT_STYLE.tickFontSize + 1, 'bold');
+    ctx.font = KEY_HEADING_FONT;
     ctx.fillStyle = PLOT_STYLE.textColour;
     ctx.textBaseline = 'middle';
     ctx.fillText(key.heading, key.rect.x + (key.placement === 'right' ? 5 : 0), key.rect.y + KEY_ROW_HEIGHT / 2);

@@ -44,6 +44,8 @@ export interface FigureText {
 export interface FigureMeasures {
   title: WidthOf;
   key: WidthOf;
+  /** The key's heading (bold). */
+  heading: WidthOf;
 }
 
 export const FIGURE_PAD = 10;
@@ -63,7 +65,7 @@ export function layoutFigure(size: PixelSize, text: FigureText, measure: FigureM
   const top = lines.length ? FIGURE_PAD + lines.length * TITLE_LINE_HEIGHT + 4 : FIGURE_PAD;
   const title = { lines, x: FIGURE_PAD, firstBaseline: FIGURE_PAD + TITLE_LINE_HEIGHT - 5, lineHeight: TITLE_LINE_HEIGHT };
   const available = { x: FIGURE_PAD, y: top, width: inner, height: Math.max(0, size.height - top - FIGURE_PAD) };
-  const heading = text.keyHeading ? ellipsize(text.keyHeading, KEY_LABEL_MAX + KEY_GLYPH_WIDTH, measure.key) : null;
+  const heading = text.keyHeading ? ellipsize(text.keyHeading, Math.min(KEY_LABEL_MAX + KEY_GLYPH_WIDTH, inner), measure.heading) : null;
   if (!text.key.length) return { size, title, body: available, key: { placement: 'none', rect: { ...available, width: 0, height: 0 }, heading: null, entries: [] } };
 
   // Notes (text-only lines) may take the whole width when the key goes below.
@@ -74,7 +76,7 @@ export function layoutFigure(size: PixelSize, text: FigureText, measure: FigureM
   const headingRows = heading ? 1 : 0;
 
   // Right column: as wide as its widest entry.
-  const columnWidth = Math.ceil(Math.max(...widths, heading ? measure.key(heading) : 0)) + FIGURE_PAD;
+  const columnWidth = Math.ceil(Math.max(...widths, heading ? measure.heading(heading) : 0)) + FIGURE_PAD;
   if (text.keyPlacement !== 'below' && available.width - columnWidth >= BODY_MIN_SHARE * available.width) {
     const rows = Math.max(1, Math.floor(available.height / KEY_ROW_HEIGHT) - headingRows);
     const shown = fitCount(text.key.length, rows);

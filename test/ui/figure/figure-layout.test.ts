@@ -4,7 +4,7 @@ import { FIGURE_PAD, KEY_LABEL_MAX, layoutFigure, TITLE_LINE_HEIGHT, type Figure
 import { KEY_GLYPH_WIDTH, KEY_ROW_HEIGHT, type KeyEntry } from '../../../src/ui/figure/key';
 
 const mono = (t: string) => Array.from(t).length * 7;
-const measure = { title: (t: string) => Array.from(t).length * 9, key: mono };
+const measure = { title: (t: string) => Array.from(t).length * 9, key: mono, heading: (t: string) => Array.from(t).length * 8 };
 const runs = (labels: string[]): KeyEntry[] => labels.map((label, k) => ({ kind: 'run', style: runStyle(k), label }));
 
 const inside = (r: Rect, size: { width: number; height: number }) => r.x >= 0 && r.y >= 0 && r.x + r.width <= size.width + 1e-9 && r.y + r.height <= size.height + 1e-9;
@@ -47,6 +47,10 @@ describe('layoutFigure', () => {
     expect(new Set(layout.key.entries.map((e) => e.y)).size).toBe(3); // one entry per row at this width
     expect(layout.body.width).toBe(500 - 2 * FIGURE_PAD);
     checkParts(layout);
+    // A heading wider than the figure is shortened to it (bold: 8 px per character here).
+    const narrow = layoutFigure({ width: 220, height: 400 }, { title: '', key: runs(['a']), keyHeading: 'Where the runs ended (3000 steps at most; lighter = more steps)' }, measure);
+    expect(narrow.key.heading!.endsWith('\u2026')).toBe(true);
+    expect(measure.heading(narrow.key.heading!)).toBeLessThanOrEqual(220 - 2 * FIGURE_PAD);
   });
 
   it('keeps the body at full width when the figure asks for its key below (panel grids)', () => {
