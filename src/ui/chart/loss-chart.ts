@@ -1,5 +1,10 @@
+/**
+ * The loss chart: every visible run's loss against step (log axis of the gap above the known minimum
+ * when there is one), over the median and quartile band of a multi-start study when one has results.
+ */
 import { scaleLinear, scaleLog } from 'd3';
-import { beginChart, canvasFont, drawMarker, drawVerticalTitle, formatValue, niceTicks, PLOT_STYLE, strokeChartFrame, type DrawingContext, type PixelSize, type RunStyle } from '../plot';
+import type { LiveRuns } from '../../store/live-runs';
+import { beginChart, canvasFont, drawMarker, drawVerticalTitle, formatValue, niceTicks, PLOT_STYLE, runStyle, strokeChartFrame, type DrawingContext, type PixelSize, type RunStyle } from '../plot';
 
 export interface LossSeries {
   loss: Float64Array;
@@ -31,21 +36,33 @@ export function axisValue(axis: LossAxis, loss: number): number {
 
 export const CHART_MARGIN = { left: 70, right: 24, top: 10, bottom: 40 } as const;
 
-/** Draws every run's loss against step. */
-export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: readonly LossSeries[], axis: LossAxis): void {
+/**
+ * The multi-start band drawn under the runs: the 25%, 50% and 75% quantiles of the loss across the
+ * starts per step (engine/study/quantiles.ts), filled between the quartiles with the median as a line.
+ */
+export interface LossBand {
+  quantiles: readonly Float64Array[];
+}
+
+export const BAND_STYLE = { fill: 'rgba(0, 114, 178, 0.22)', median: '#0072b2', medianDash: [5, 3] } as const;
+
+/** Draws every run's loss against step, over the multi-start band when one is given. */
+export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: readonly LossSeries[], axis: LossAxis, band: LossBand | null = null): void {
   const { w, h } = beginChart(ctx, size, CHART_MARGIN);
   let maxStep = 1;
   let lo = Infinity;
   let hi = -Infinity;
-  for (const s of series) {
-    maxStep = Math.max(maxStep, s.count - 1);
-    for (let k = 0; k < s.count; k++) {
-      const v = axisValue(axis, s.loss[k]);
+  const include = (loss: ArrayLike<number>, count: number) => {
+    maxStep = Math.max(maxStep, count - 1);
+    for (let k = 0; k < count; k++) {
+      const v = axisValue(axis, loss[k]);
       if (!Number.isFinite(v) || (axis.kind !== 'linear' && v <= 0)) continue;
       lo = Math.min(lo, v);
       hi = Math.max(hi, v);
     }
-  }
+  };
+  for (const s of series) include(s.loss, s.count);
+  for (const q of band?.quantiles ?? []) include(q, q.length);
   if (!Number.isFinite(lo)) [lo, hi] = axis.kind === 'linear' ? [0, 1] : [1e-3, 1];
   if (hi <= lo) hi = axis.kind === 'linear' ? lo + 1 : lo * 10;
   const x = scaleLinear().domain([0, maxStep]).range([0, w]);
@@ -86,6 +103,7 @@ export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: read
   ctx.beginPath();
   ctx.rect(0, 0, w, h);
   ctx.clip();
+  if (band) drawBand(ctx, band, axis, x, y, w);
   for (const s of series) {
     const stride = Math.max(1, Math.floor(s.count / (2 * w)));
     ctx.beginPath();
@@ -114,6 +132,61 @@ export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: read
     }
   }
   ctx.restore();
+}
+
+/** The band between the quartiles, filled, and the median as a dashed line (so it is not taken for a run). */
+function drawBand(ctx: DrawingContext, band: LossBand, axis: LossAxis, x: (v: number) => number, y: (v: number) => number, w: number): void {
+  const [q1, median, q3] = band.quantiles;
+  const steps = median.length;
+  if (!steps) return;
+  const at = (v: number) => {
+    const a = axisValue(axis, v);
+    return Number.isFinite(a) && (axis.kind === 'linear' || a > 0) ? Math.max(-1e4, Math.min(1e4, y(a))) : Number.NaN;
+  };
+  const stride = Math.max(1, Math.floor(steps / (2 * w)));
+  const last = steps - 1;
+  const indices: number[] = [];
+  for (let t = 0; t < last; t += stride) indices.push(t);
+  indices.push(last);
+  ctx.save();
+  ctx.beginPath();
+  for (const t of indices) if (Number.isFinite(at(q3[t]))) ctx.lineTo(x(t), at(q3[t]));
+  for (const t of [...indices].reverse()) if (Number.isFinite(at(q1[t]))) ctx.lineTo(x(t), at(q1[t]));
+  ctx.closePath();
+  ctx.fillStyle = BAND_STYLE.fill;
+  ctx.fill();
+  ctx.beginPath();
+  let pen = false;
+  for (const t of indices) {
+    const py = at(median[t]);
+    if (!Number.isFinite(py)) pen = false;
+    else if (pen) ctx.lineTo(x(t), py);
+    else {
+      ctx.moveTo(x(t), py);
+      pen = true;
+    }
+  }
+  ctx.strokeStyle = BAND_STYLE.median;
+  ctx.lineWidth = 2;
+  ctx.setLineDash([...BAND_STYLE.medianDash]);
+  ctx.stroke();
+  ctx.restore();
+}
+
+/** The visible runs' loss series, read from the live buffers. */
+export function lossSeriesOf(runs: readonly { id: string; hidden?: boolean; style: number; label: string }[], live: Pick<LiveRuns, 'trajectory'>): LossSeries[] {
+  const series: LossSeries[] = [];
+  for (const r of runs) {
+    const b = live.trajectory(r.id);
+    if (!r.hidden && b && b.count) series.push({ loss: b.loss, count: b.count, style: runStyle(r.style), label: r.label });
+  }
+  return series;
+}
+
+/** The lowest known global-minimum value, or null when the surface lists none. */
+export function knownMinimumOf(points: readonly { kind: string; value: number }[]): number | null {
+  const minima = points.filter((p) => p.kind === 'global-min').map((p) => p.value);
+  return minima.length ? Math.min(...minima) : null;
 }
 
 function logDecades([lo, hi]: [number, number]): number[] {

@@ -3,10 +3,7 @@ import { parseWorkspace } from '../../io/workspace-schema';
 import { workspaceOf } from '../../store/app-store';
 import { useActions, useLiveRuns, useStoreApi } from '../app-context';
 import { download } from './download';
-import { resultsCsv, trajectoriesCsv, viewPng, viewSvg } from './exports';
-
-/** Size of exported figures in CSS pixels (PNG at twice this). */
-const FIGURE_SIZE = { width: 960, height: 640 };
+import { resultsCsv, trajectoriesCsv } from './exports';
 
 export function ExportMenu() {
   const store = useStoreApi();
@@ -27,12 +24,6 @@ export function ExportMenu() {
       </button>
       <button type="button" onClick={guard(() => download('fall-line-results.csv', resultsCsv(store.getState()), 'text/csv'))}>
         Results CSV
-      </button>
-      <button type="button" onClick={guard(async () => download('fall-line-view.png', await viewPng(store.getState(), live, FIGURE_SIZE)))}>
-        View PNG
-      </button>
-      <button type="button" onClick={guard(() => download('fall-line-view.svg', viewSvg(store.getState(), live, FIGURE_SIZE), 'image/svg+xml'))}>
-        View SVG
       </button>
       <button type="button" onClick={guard(() => download('experiment.fall.json', JSON.stringify(workspaceOf(store.getState()), null, 2), 'application/json'))}>
         Save experiment

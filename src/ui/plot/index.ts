@@ -12,3 +12,4 @@ export * from './arrows';
 export * from './trajectory';
 export * from './svg';
 export * from './chart-frame';
+export * from './text-fit';

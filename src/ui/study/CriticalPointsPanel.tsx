@@ -1,17 +1,13 @@
 import { useEffect, useRef, useState } from 'react';
 import { startGrid, type CriticalPoint } from '../../engine';
 import { useApp } from '../app-context';
-import { drawMarker, type MarkerShape } from '../plot';
+import { CRITICAL_GLYPHS, drawCriticalPoints } from './critical-chart';
 import { useStudyStore } from './study-context';
 import { useWorkerTask } from './use-worker-task';
+import { FigureExport, sizeOf } from '../figure/FigureExport';
+import { criticalPointsFigure } from '../figure/views/study-figures';
 
 const SIDE = 280;
-const GLYPH: Record<string, { shape: MarkerShape; colour: string; key: string }> = {
-  minimum: { shape: 'circle', colour: '#009e73', key: 'minimum' },
-  saddle: { shape: 'cross', colour: '#d55e00', key: 'saddle' },
-  maximum: { shape: 'triangle', colour: '#cc79a7', key: 'maximum' },
-  degenerate: { shape: 'diamond', colour: '#7f7f7f', key: 'degenerate' },
-};
 const fmt = (v: number) => String(+v.toPrecision(6));
 
 /**
@@ -29,6 +25,7 @@ export function CriticalPointsPanel() {
   const [found, setFound] = useState<{ points: CriticalPoint[]; converged: number; failed: number; box: typeof view; axes: [number, number] } | null>(null);
   const { busy, problem, run } = useWorkerTask(slice.plane ? 'Critical points are searched in a slice through two parameters, not a random or principal-direction plane.' : null);
   const canvas = useRef<HTMLCanvasElement>(null);
+  const body = useRef<HTMLDivElement>(null);
 
   const search = async () => {
     const { starts } = startGrid(view, side, { base: slice.at, axes: slice.axes });
@@ -46,13 +43,7 @@ export function CriticalPointsPanel() {
     ctx.fillRect(0, 0, c.width, c.height);
     ctx.strokeStyle = '#999';
     ctx.strokeRect(0.5, 0.5, c.width - 1, c.height - 1);
-    const { box, axes } = found;
-    for (const p of found.points) {
-      const px = ((p.point[axes[0]] - box.a[0]) / (box.a[1] - box.a[0])) * c.width;
-      const py = (1 - (p.point[axes[1]] - box.b[0]) / (box.b[1] - box.b[0])) * c.height;
-      const g = GLYPH[p.classification?.kind ?? 'degenerate'];
-      if (px >= 0 && px <= c.width && py >= 0 && py <= c.height) drawMarker(ctx, g.shape, { px, py }, 11, { fill: g.colour, outline: '#000', outlineWidth: 1 });
-    }
+    drawCriticalPoints(ctx, found.points, found.box, found.axes, { width: c.width, height: c.height });
   }, [found]);
 
   const [xName, yName] = [info.variables[slice.axes[0]], info.variables[slice.axes[1]]];
@@ -70,16 +61,20 @@ export function CriticalPointsPanel() {
           </select>
         </label>
         <button type="button" onClick={search} disabled={busy || !!slice.plane}>{busy ? 'Searching…' : 'Find critical points'}</button>
+        <FigureExport
+          name="Critical points" fileName="fall-line-critical-points" disabled={!found} screenSize={() => sizeOf(body.current)}
+          figure={() => (found ? criticalPointsFigure({ ...found, labels: { a: info.variables[found.axes[0]], b: info.variables[found.axes[1]] }, surfaceLabel: info.label }) : null)}
+        />
         {found && <span data-testid="critical-summary">{found.points.length} points from {found.converged} converged starts ({found.failed} did not converge)</span>}
       </div>
       {problem && <p className="field-error" role="alert">{problem}</p>}
       {found && (
-        <div className="study-body">
+        <div className="study-body" ref={body}>
           <figure className="start-map-figure" style={{ width: SIDE + 2 }}>
             <canvas ref={canvas} width={SIDE} height={SIDE} data-testid="critical-canvas" aria-label="Critical points in the view" />
             <figcaption className="start-map-axes">
               {xName} across, {yName} up, over the current view. Key:{' '}
-              {Object.values(GLYPH).map((g) => <span key={g.key} className="critical-key"><span className="swatch" style={{ background: g.colour }} /> {g.key} </span>)}
+              {Object.values(CRITICAL_GLYPHS).map((g) => <span key={g.key} className="critical-key"><span className="swatch" style={{ background: g.colour }} /> {g.key} </span>)}
             </figcaption>
           </figure>
           <table className="study-legend" data-testid="critical-table">

@@ -8,6 +8,8 @@ import { useMainThreadSurface } from '../view/use-surface';
 import { drawBandChart } from './band-chart';
 import { basinRadiusOf, knownMinima } from './basin-inputs';
 import { useStudy, useStudyStore } from './study-context';
+import { FigureExport, sizeOf } from '../figure/FigureExport';
+import { multiStartFigure } from '../figure/views/study-figures';
 
 type DistributionChoice = 'uniform' | 'gaussian' | 'glorot' | 'he';
 
@@ -30,6 +32,7 @@ export function MultiStartPanel() {
   const [sd, setSd] = useState(0.5);
   const [startSeed, setStartSeed] = useState(1);
   const canvas = useRef<HTMLCanvasElement>(null);
+  const body = useRef<HTMLDivElement>(null);
   const config = runs.find((r) => r.id === selected) ?? runs[0];
   const network = !!surface && hasParameterGroups(surface);
   const mine = all.spec?.kind === 'multi-start';
@@ -128,6 +131,10 @@ export function MultiStartPanel() {
           <button type="button" onClick={start} disabled={!!problem}>Run starts</button>
         )}
         <button type="button" onClick={exportCsv} disabled={!mine || !all.cells || all.done === 0}>Starts CSV</button>
+        <FigureExport
+          name="Multi-start" fileName="fall-line-multi-start" disabled={!mine || !all.bands || !summary} screenSize={() => sizeOf(body.current)}
+          figure={() => mine && spec && all.bands && summary ? multiStartFigure({ bands: all.bands, axis: chooseLossAxis([], knownMinimum), summary: summaryLines(summary, tolerance, all.cells!.basin, all.basinLabels), count: spec.count, configLabel: all.configLabel, surfaceLabel: info.label }) : null}
+        />
         {mine && all.total > 0 && (
           <span className="study-progress" data-status={all.status}>
             <progress max={all.total} value={all.done} aria-label="Starts done" /> {all.done} / {all.total} runs
@@ -138,7 +145,7 @@ export function MultiStartPanel() {
       {problem && <p className="field-error">{problem}</p>}
       {mine && all.message && <p className="field-error" role="alert">{all.message}</p>}
       {summary && (
-        <div className="study-body">
+        <div className="study-body" ref={body}>
           <table className="study-legend" data-testid="multi-start-summary">
             <caption>Over {summary.runs} starts (tolerance {tolerance} above the {summary.target.source})</caption>
             <tbody>
@@ -157,6 +164,17 @@ export function MultiStartPanel() {
       )}
     </section>
   );
+}
+
+/** The summary table's rows as lines of text, for the figure's key. */
+function summaryLines(summary: NonNullable<ReturnType<typeof summariseStarts>>, tolerance: number, basin: Int32Array, labels: readonly string[]): string[] {
+  const v = (x: number) => (Number.isFinite(x) ? String(+x.toPrecision(3)) : String(x));
+  return [
+    `success rate ${(100 * summary.successRate).toFixed(1)}% (${summary.successes} of ${summary.runs} within ${tolerance} of ${v(summary.target.loss)}, the ${summary.target.source})`,
+    `final loss: min ${v(summary.finalLoss.min)}, quartiles ${v(summary.finalLoss.q1)} / ${v(summary.finalLoss.median)} / ${v(summary.finalLoss.q3)}, max ${v(summary.finalLoss.max)}`,
+    `outcomes: ${Object.entries(summary.outcomes).map(([k, c]) => `${k} ${c}`).join(', ')}`,
+    `ended in: ${countBasins(basin, labels)}`,
+  ];
 }
 
 function countBasins(basin: Int32Array, labels: readonly string[]): string {

@@ -6,6 +6,8 @@ import { download } from '../export/download';
 import { runStyle } from '../plot';
 import { drawRateChart, type RateCurve } from './rate-chart';
 import { useStudy, useStudyStore } from './study-context';
+import { FigureExport, sizeOf } from '../figure/FigureExport';
+import { rateSweepFigure } from '../figure/views/study-figures';
 
 const COUNTS = [16, 32, 64, 128, 256] as const;
 const fmt = (v: number) => String(+v.toPrecision(4));
@@ -26,6 +28,7 @@ export function RateSweepPanel() {
   const [range, setRange] = useState<[number, number]>([1e-4, 1]);
   const [count, setCount] = useState(64);
   const canvas = useRef<HTMLCanvasElement>(null);
+  const body = useRef<HTMLDivElement>(null);
   const startRun = runs.find((r) => r.id === selected) ?? runs[0];
   const picked = runs.filter((r) => chosen.includes(r.id));
   const mine = all.spec?.kind === 'lr-sweep';
@@ -115,6 +118,10 @@ export function RateSweepPanel() {
           <button type="button" onClick={start} disabled={!!problem}>Sweep learning rates</button>
         )}
         <button type="button" onClick={exportCsv} disabled={!mine || !all.cells || all.done === 0}>Sweep CSV</button>
+        <FigureExport
+          name="Learning-rate sweep" fileName="fall-line-learning-rates" disabled={!mine || !curves.length || all.done === 0} screenSize={() => sizeOf(body.current)}
+          figure={() => rates && curves.length ? rateSweepFigure({ rates, curves, surfaceLabel: info.label, startLabel: all.configLabel }) : null}
+        />
         {mine && all.total > 0 && (
           <span className="study-progress" data-status={all.status}>
             <progress max={all.total} value={all.done} aria-label="Rates done" /> {all.done} / {all.total} runs
@@ -125,7 +132,7 @@ export function RateSweepPanel() {
       {problem && <p className="field-error">{problem}</p>}
       {mine && all.message && <p className="field-error" role="alert">{all.message}</p>}
       {mine && (
-        <div className="study-body">
+        <div className="study-body" ref={body}>
           <canvas ref={canvas} width={520} height={280} data-testid="rate-chart" aria-label="Final loss against learning rate" />
           <table className="study-legend" data-testid="rate-thresholds">
             <caption>Divergence thresholds (λmax of the Hessian at the start: {all.thresholds ? fmt(all.thresholds[0].lambdaMax) : '…'})</caption>

@@ -4,6 +4,8 @@ import { useApp, useLiveRuns } from '../app-context';
 import { drawSharpnessChart } from './sharpness-chart';
 import { useStudyStore } from './study-context';
 import { useWorkerTask } from './use-worker-task';
+import { FigureExport, sizeOf } from '../figure/FigureExport';
+import { sharpnessFigure } from '../figure/views/study-figures';
 
 /** Most trajectory points sampled for the sharpness curve. */
 const MAX_SAMPLES = 300;
@@ -33,6 +35,8 @@ export function SharpnessPanel() {
   const [sample, setSample] = useState<Sample | null>(null);
   const { busy, problem, setProblem, run: runTask } = useWorkerTask();
   const canvas = useRef<HTMLCanvasElement>(null);
+  const body = useRef<HTMLElement>(null);
+  const info = useApp((s) => s.surfaceInfo);
   const steps = run ? status[run.id]?.summary.steps ?? 0 : 0;
 
   const measure = async () => {
@@ -72,6 +76,7 @@ export function SharpnessPanel() {
       </p>
       <div className="study-controls">
         <button type="button" onClick={measure} disabled={!run || busy}>{busy ? 'Measuring…' : 'Measure sharpness'}</button>
+        <FigureExport name="Sharpness" fileName="fall-line-sharpness" disabled={!sample} screenSize={() => sizeOf(body.current)} figure={() => (sample ? sharpnessFigure({ ...sample, surfaceLabel: info.label }) : null)} />
         {sample && (
           <span data-testid="sharpness-last" data-value={last}>
             at step {sample.steps[sample.steps.length - 1]}: λmax = {String(+last.toPrecision(5))}
@@ -81,7 +86,7 @@ export function SharpnessPanel() {
       </div>
       {problem && <p className="field-error" role="alert">{problem}</p>}
       {sample && (
-        <figure className="start-map-figure" style={{ width: 480 }}>
+        <figure className="start-map-figure" style={{ width: 480 }} ref={body}>
           <canvas ref={canvas} width={480} height={240} data-testid="sharpness-chart" aria-label={`Largest Hessian eigenvalue along ${sample.runLabel}`} />
           <figcaption className="start-map-axes">solid: λmax at {sample.steps.length} sampled steps; dashed: 2 / (learning rate at that step)</figcaption>
         </figure>

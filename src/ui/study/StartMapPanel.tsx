@@ -4,9 +4,12 @@ import { studyCsv } from '../../io/study-csv';
 import { useActions, useApp } from '../app-context';
 import { download } from '../export/download';
 import { mapLegend, paintStartMap } from './paint-map';
+import { drawMapCells, drawMapMinima } from './start-map-drawing';
 import { basinColour, cssColour, OUTCOME_COLOURS } from './study-colours';
 import { basinRadiusOf, knownMinima } from './basin-inputs';
 import { useStudy, useStudyStore } from './study-context';
+import { FigureExport, sizeOf } from '../figure/FigureExport';
+import { startMapFigure } from '../figure/views/study-figures';
 
 const SIDE = 320;
 const fmt = (v: number) => String(+v.toPrecision(4));
@@ -33,6 +36,7 @@ export function StartMapPanel() {
   const actions = useActions();
   const [resolution, setResolution] = useState(64);
   const canvas = useRef<HTMLCanvasElement>(null);
+  const body = useRef<HTMLDivElement>(null);
   const config = runs.find((r) => r.id === selected) ?? runs[0];
 
   const problem = !config ? 'Add a run first: the map uses its optimizer and stop rules.' : slice.plane ? 'Start-point maps need a slice through two parameters (not a random or principal-direction plane).' : null;
@@ -53,26 +57,9 @@ export function StartMapPanel() {
     ctx.clearRect(0, 0, c.width, c.height);
     if (!state.cells || !state.spec) return;
     const r = state.spec.resolution;
-    const image = new ImageData(paintStartMap(state.cells, r, state.spec.stop.maxSteps), r, r);
-    const off = new OffscreenCanvas(r, r);
-    off.getContext('2d')!.putImageData(image, 0, 0);
-    ctx.imageSmoothingEnabled = false;
-    ctx.drawImage(off, 0, 0, c.width, c.height);
-    // The known minima, as rings at their places in the map's plane.
-    const { box, axes } = state.spec;
-    for (const k of state.known) {
-      const px = ((k.point[axes[0]] - box.a[0]) / (box.a[1] - box.a[0])) * c.width;
-      const py = (1 - (k.point[axes[1]] - box.b[0]) / (box.b[1] - box.b[0])) * c.height;
-      if (!(px >= 0 && px <= c.width && py >= 0 && py <= c.height)) continue;
-      ctx.beginPath();
-      ctx.arc(px, py, 5, 0, 2 * Math.PI);
-      ctx.lineWidth = 2;
-      ctx.strokeStyle = '#fff';
-      ctx.stroke();
-      ctx.lineWidth = 1;
-      ctx.strokeStyle = '#000';
-      ctx.stroke();
-    }
+    const size = { width: c.width, height: c.height };
+    drawMapCells(ctx, paintStartMap(state.cells, r, state.spec.stop.maxSteps), r, size);
+    drawMapMinima(ctx, state.known, state.spec.box, state.spec.axes, size);
   }, [state.version, state.cells, state.spec, state.known]);
 
   const openCell = (e: React.MouseEvent<HTMLCanvasElement>) => {
@@ -128,6 +115,10 @@ export function StartMapPanel() {
           <button type="button" onClick={start} disabled={!!problem}>Map start points</button>
         )}
         <button type="button" onClick={exportCsv} disabled={!state.cells || state.done === 0}>Map CSV</button>
+        <FigureExport
+          name="Start-point map" fileName="fall-line-start-map" disabled={!state.cells || state.done === 0} screenSize={() => sizeOf(body.current)}
+          figure={() => state.cells && state.spec ? startMapFigure({ spec: state.spec, cells: state.cells, known: state.known, legend, labels: { a: xName, b: yName }, configLabel: state.configLabel, surfaceLabel: info.label }) : null}
+        />
         {state.total > 0 && (
           <span className="study-progress" data-status={state.status}>
             <progress max={state.total} value={state.done} aria-label="Runs done" /> {state.done} / {state.total} runs
@@ -138,7 +129,7 @@ export function StartMapPanel() {
       </div>
       {problem && <p className="field-error">{problem}</p>}
       {state.message && <p className="field-error" role="alert">{state.message}</p>}
-      <div className="study-body">
+      <div className="study-body" ref={body}>
         <figure className="start-map-figure">
         <canvas ref={canvas} width={SIDE} height={SIDE} className="start-map-canvas" data-testid="start-map-canvas" data-version={state.version}
           aria-label={`Start-point map picture, ${state.spec?.resolution ?? 0} by ${state.spec?.resolution ?? 0} cells`} onClick={openCell} />

@@ -7,6 +7,9 @@ import { beginChart, canvasFont, drawVerticalTitle, formatValue, niceTicks, PLOT
  * quantiles filled, the median drawn as a line (bands from engine/study/quantiles.ts). Log axis of
  * the loss, or of the gap above the known minimum when there is one, as on the loss chart.
  */
+/** The band's fill and the median's colour (the figure's key uses the same). */
+export const BAND_CHART_STYLE = { fill: 'rgba(0, 114, 178, 0.25)', median: '#0072b2' } as const;
+
 export function drawBandChart(ctx: DrawingContext, size: PixelSize, bands: readonly Float64Array[], axis: LossAxis): void {
   const [q1, median, q3] = bands;
   const { w, h } = beginChart(ctx, size, CHART_MARGIN);
@@ -45,11 +48,11 @@ export function drawBandChart(ctx: DrawingContext, size: PixelSize, bands: reado
   for (let t = 0; t < steps; t += stride) ctx.lineTo(x(t), py(q3[t]));
   for (let t = (Math.ceil(steps / stride) - 1) * stride; t >= 0; t -= stride) ctx.lineTo(x(t), py(q1[t]));
   ctx.closePath();
-  ctx.fillStyle = 'rgba(0, 114, 178, 0.25)';
+  ctx.fillStyle = BAND_CHART_STYLE.fill;
   ctx.fill();
   ctx.beginPath();
   for (let t = 0; t < steps; t += stride) ctx.lineTo(x(t), py(median[t]));
-  ctx.strokeStyle = '#0072b2';
+  ctx.strokeStyle = BAND_CHART_STYLE.median;
   ctx.lineWidth = 2;
   ctx.stroke();
   ctx.restore();

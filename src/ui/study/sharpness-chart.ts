@@ -8,6 +8,9 @@ import { beginChart, canvasFont, drawVerticalTitle, formatValue, niceTicks, PLOT
  * (dashed; Cohen et al., ICLR 2021, "Gradient descent on neural networks typically occurs at the edge
  * of stability"). Log vertical axis when every value is positive, linear otherwise.
  */
+/** Colours of the sharpness curve and of the 2 / lr line (the figure's key uses the same). */
+export const SHARPNESS_STYLE = { sharpness: '#0072b2', limit: '#d55e00' } as const;
+
 export function drawSharpnessChart(ctx: DrawingContext, size: PixelSize, steps: ArrayLike<number>, sharpness: ArrayLike<number>, limit: { steps: ArrayLike<number>; values: ArrayLike<number> } | null): void {
   const { w, h } = beginChart(ctx, size, CHART_MARGIN);
   const all = [...Array.from(sharpness), ...(limit ? Array.from(limit.values) : [])].filter(Number.isFinite);
@@ -37,17 +40,17 @@ export function drawSharpnessChart(ctx: DrawingContext, size: PixelSize, steps: 
     ctx.setLineDash([6, 4]);
     ctx.beginPath();
     for (let k = 0; k < limit.steps.length; k++) if (Number.isFinite(limit.values[k])) ctx.lineTo(x(limit.steps[k]), y(limit.values[k]));
-    ctx.strokeStyle = '#d55e00';
+    ctx.strokeStyle = SHARPNESS_STYLE.limit;
     ctx.lineWidth = 1.5;
     ctx.stroke();
     ctx.setLineDash([]);
   }
   ctx.beginPath();
   for (let k = 0; k < steps.length; k++) if (Number.isFinite(sharpness[k])) ctx.lineTo(x(steps[k]), y(sharpness[k]));
-  ctx.strokeStyle = '#0072b2';
+  ctx.strokeStyle = SHARPNESS_STYLE.sharpness;
   ctx.lineWidth = 2;
   ctx.stroke();
-  ctx.fillStyle = '#0072b2';
+  ctx.fillStyle = SHARPNESS_STYLE.sharpness;
   for (let k = 0; k < steps.length; k++) if (Number.isFinite(sharpness[k])) ctx.fillRect(x(steps[k]) - 1.5, y(sharpness[k]) - 1.5, 3, 3);
   ctx.restore();
 }

@@ -1,9 +1,10 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from 'react';
 import { equalScaleOn, shownView } from '../../store/equal-scale';
-import { slicePlane, slicePoint } from '../../store/slice-plane';
+import { slicePoint } from '../../store/slice-plane';
 import { reportedUnits } from '../../store/units';
 import { axisTitles } from './axis-titles';
-import { gradientArrows, panBy, zoomAt, type Arrow } from '../plot';
+import { panBy, zoomAt, type Arrow } from '../plot';
+import { ARROW_SPACING, COMPACT_ARROW_SPACING, planeArrows } from './plane-arrows';
 import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
 import { canvasToFrame, frameLayout, frameTransform, insideFrame, roundToView } from './frame';
 import { useSurfacePicture } from './picture';
@@ -66,20 +67,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
 
   const arrows: Arrow[] = useMemo(() => {
     if (!display.showArrows || !surface || !layout || surface.dimension !== n) return [];
-    const t = frameTransform(view, layout);
-    const plane = slicePlane(slice, n);
-    const g = new Float64Array(n);
-    // The gradient restricted to the plane: (u . grad, v . grad).
-    return gradientArrows((p) => {
-      surface.valueGradient(slicePoint(slice, n, p.a, p.b), g);
-      let da = 0;
-      let db = 0;
-      for (let k = 0; k < n; k++) {
-        da += plane.u[k] * g[k];
-        db += plane.v[k] * g[k];
-      }
-      return { da, db };
-    }, t, compact ? 28 : 36);
+    return planeArrows(surface, slice, frameTransform(view, layout), compact ? COMPACT_ARROW_SPACING : ARROW_SPACING);
   }, [display.showArrows, surface, layout, view, slice, n, compact]);
 
   // Base layer.

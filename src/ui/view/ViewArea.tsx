@@ -1,10 +1,13 @@
-import { useId, useState } from 'react';
+import { useId, useRef, useState } from 'react';
 import { OPTIMIZERS, type OptimizerKind } from '../../engine';
 import type { PanelMode } from '../../store/workspace';
-import { useActions, useApp } from '../app-context';
+import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
+import { FigureExport } from '../figure/FigureExport';
+import { mapFigure } from '../figure/views/map-figures';
 import { DisplayControls } from './DisplayControls';
 import { PanelGrid } from './PanelGrid';
 import { SurfaceView } from './SurfaceView';
+import { useElementSize } from './use-canvas-size';
 
 const MODES: { mode: PanelMode; label: string }[] = [
   { mode: 'single', label: 'All runs on one map' },
@@ -17,6 +20,10 @@ export function ViewArea() {
   const actions = useActions();
   const panels = useApp((s) => s.panels);
   const id = useId();
+  const store = useStoreApi();
+  const live = useLiveRuns();
+  const drawing = useRef<HTMLDivElement>(null);
+  const size = useElementSize(drawing);
   return (
     <section className="view-area" aria-label="Surface view">
       <div className="view-toolbar">
@@ -28,9 +35,10 @@ export function ViewArea() {
           ))}
         </div>
         <DisplayControls />
+        <FigureExport name="View" fileName={`fall-line-${panels.mode === 'single' ? 'view' : panels.mode === 'per-run' ? 'panels' : 'table'}`} screenSize={() => size} figure={() => mapFigure(store.getState(), live)} />
       </div>
       {panels.mode === 'table' && <TableSettings id={id} />}
-      {panels.mode === 'single' ? <SurfaceView /> : <PanelGrid />}
+      <div ref={drawing}>{panels.mode === 'single' ? <SurfaceView /> : <PanelGrid />}</div>
     </section>
   );
 }

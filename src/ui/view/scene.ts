@@ -5,6 +5,7 @@ import {
   drawLegend,
   drawTrajectory,
   drawArrows,
+  ellipsize,
   type Arrow,
   type AxesModel,
   type DrawingContext,
@@ -25,8 +26,11 @@ export interface BaseLayer {
   title?: string;
 }
 
+/** Room the title plate leaves inside the frame: 2 px margin, 4 px padding each side. */
+export const TITLE_PLATE_INSET = 12;
+
 /** Contours, arrows, known points, axes and legend: everything that does not move while runs stream. Returns the axes drawn. */
-export function drawBase(ctx: DrawingContext & Pick<CanvasRenderingContext2D, 'measureText'>, base: BaseLayer): AxesModel {
+export function drawBase(ctx: DrawingContext & { measureText(text: string): { width: number } }, base: BaseLayer): AxesModel {
   const { layout, picture } = base;
   const t = frameTransform(base.view, layout);
   ctx.save();
@@ -48,20 +52,17 @@ export function drawBase(ctx: DrawingContext & Pick<CanvasRenderingContext2D, 'm
     drawLegend(ctx, picture.legend, { px: layout.frame.width + 24, py: 18, width: 14, height: Math.max(40, layout.frame.height - 24) }, 'loss');
   }
   if (base.title) {
-    // On a light plate so it reads over any contour colour; clipped to the frame width.
+    // On a light plate in the frame's top-left corner so it reads over any contour colour; shortened
+    // with an ellipsis to the frame's width (the origin is the frame's corner here).
     ctx.font = '600 12px system-ui, sans-serif';
     ctx.textAlign = 'left';
     ctx.textBaseline = 'top';
-    const width = Math.min(ctx.measureText(base.title).width, layout.frame.width - 8);
+    const title = ellipsize(base.title, Math.max(0, layout.frame.width - TITLE_PLATE_INSET), (t) => ctx.measureText(t).width);
+    const width = ctx.measureText(title).width;
     ctx.fillStyle = 'rgba(255,255,255,0.88)';
-    ctx.fillRect(layout.left + 2, layout.top + 2, width + 8, 17);
+    ctx.fillRect(2, 2, width + 8, 17);
     ctx.fillStyle = '#222222';
-    ctx.save();
-    ctx.beginPath();
-    ctx.rect(layout.left + 2, layout.top + 2, width + 8, 17);
-    ctx.clip();
-    ctx.fillText(base.title, layout.left + 6, layout.top + 4);
-    ctx.restore();
+    ctx.fillText(title, 6, 4);
   }
   ctx.restore();
   return axes;
