@@ -1,3 +1,4 @@
+import { useShownView } from '../view/use-shown-view';
 import { useEffect, useRef, useState } from 'react';
 import { startGrid, type CriticalPoint } from '../../engine';
 import { useApp } from '../app-context';
@@ -19,7 +20,7 @@ export function CriticalPointsPanel() {
   const study = useStudyStore();
   const surface = useApp((s) => s.surface);
   const info = useApp((s) => s.surfaceInfo);
-  const view = useApp((s) => s.view);
+  const view = useShownView();
   const slice = useApp((s) => s.slice);
   const [side, setSide] = useState(12);
   const [found, setFound] = useState<{ points: CriticalPoint[]; converged: number; failed: number; box: typeof view; axes: [number, number] } | null>(null);

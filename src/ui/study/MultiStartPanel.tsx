@@ -1,3 +1,4 @@
+import { useShownView } from '../view/use-shown-view';
 import { useEffect, useRef, useState } from 'react';
 import { drawStarts, hasParameterGroups, summariseStarts, type MultiStartSpec, type StartDistribution, type StartResult } from '../../engine';
 import { studyCsv } from '../../io/study-csv';
@@ -24,7 +25,7 @@ export function MultiStartPanel() {
   const selected = useApp((s) => s.selectedRunId);
   const surfaceSpec = useApp((s) => s.surface);
   const info = useApp((s) => s.surfaceInfo);
-  const view = useApp((s) => s.view);
+  const view = useShownView();
   const tolerance = useApp((s) => s.tolerance);
   const surface = useMainThreadSurface(surfaceSpec);
   const [choice, setChoice] = useState<DistributionChoice>('uniform');

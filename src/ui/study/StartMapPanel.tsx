@@ -1,3 +1,4 @@
+import { useShownView } from '../view/use-shown-view';
 import { useEffect, useRef, useState } from 'react';
 import { cellStart, OUTCOME_KINDS, START_MAP_RESOLUTIONS, type StartMapSpec } from '../../engine';
 import { studyCsv } from '../../io/study-csv';
@@ -29,7 +30,7 @@ export function StartMapPanel() {
     : { ...all, spec: null, cells: null, status: 'idle' as const, total: 0, done: 0, message: null, known: [] };
   const runs = useApp((s) => s.runs);
   const selected = useApp((s) => s.selectedRunId);
-  const view = useApp((s) => s.view);
+  const view = useShownView();
   const slice = useApp((s) => s.slice);
   const surface = useApp((s) => s.surface);
   const info = useApp((s) => s.surfaceInfo);
