@@ -1,7 +1,7 @@
 import {
-  buildOptimizer, cellStart, coarseToFineOrder, drawStarts, hasParameterGroups, logSpaced, lossBands, predictedStabilityLimit, refineDivergenceThreshold,
-  RunCursor, sharpnessAlong, Sweep, validateLearningRateSweep, validateMultiStart, validateStartMap,
-  type LearningRateSweepSpec, type MultiStartSpec, type OptimizerSpec, type RunOutcome, type StartMapSpec, type StopRules, type StudySpec, type Surface,
+  buildOptimizer, cellPlans, coarseToFineOrder, drawStarts, hasParameterGroups, logSpaced, lossBands, predictedStabilityLimit, refineDivergenceThreshold,
+  RunCursor, sharpnessAlong, Sweep, validateMultiStart,
+  type LearningRateSweepSpec, type MultiStartSpec, type RunOutcome, type StartMapSpec, type StudySpec, type Surface, type SweepPlan,
 } from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
 import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
@@ -128,14 +128,10 @@ function planWork(spec: StudySpec, surface: Surface): StudyWork {
   }
 }
 
-/** One wave: a sweep of one optimizer over some cells. */
+/** One wave: a sweep of one optimizer over some cells (engine/study/cells.ts cellPlans). */
 interface Wave {
   indices: Int32Array;
-  optimizer: OptimizerSpec;
-  stop: StopRules;
-  seed: number;
-  starts: Float64Array;
-  learningRates?: Float64Array;
+  plan: SweepPlan;
 }
 
 /** Waves run one after another on the sweep engine; a cell is reported when its run ends. */
@@ -146,7 +142,6 @@ class SweepWork implements StudyWork {
   readonly total: number;
 
   constructor(
-    private readonly surface: Surface,
     private readonly waves: Wave[],
     private readonly onFinish: () => ReturnType<StudyWork['finish']> = () => ({}),
   ) {
@@ -163,7 +158,7 @@ class SweepWork implements StudyWork {
       if (!this.sweep || this.sweep.finished) {
         if (this.wave >= this.waves.length - 1) break;
         const w = this.waves[++this.wave];
-        this.sweep = new Sweep({ surface: this.surface, optimizer: w.optimizer, stop: w.stop, seed: w.seed, starts: w.starts, learningRates: w.learningRates });
+        this.sweep = new Sweep(w.plan);
         this.reported = new Uint8Array(w.indices.length);
       }
       this.sweep.advanceFor(Math.max(1, deadline - now()), now);
@@ -188,8 +183,6 @@ class SweepWork implements StudyWork {
 
 /** A map's cells in coarse-to-fine order, cut into waves at the full grids of stride 8, 4, 2 and 1. */
 function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
-  const n = surface.dimension;
-  validateStartMap(spec, n);
   const r = spec.resolution;
   const order = coarseToFineOrder(r, r);
   const cuts = [8, 4, 2, 1].map((s) => Math.ceil(r / s) ** 2);
@@ -197,14 +190,10 @@ function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
   let from = 0;
   for (const to of cuts) {
     if (to <= from) continue;
-    const indices = order.slice(from, to);
-    const starts = new Float64Array(indices.length * n);
-    const cell = new Float64Array(n);
-    indices.forEach((c, k) => starts.set(cellStart(spec, c, cell), k * n));
-    waves.push({ indices, optimizer: spec.optimizer, stop: spec.stop, seed: spec.seed, starts });
+    waves.push(...cellPlans(spec, surface, order.slice(from, to)));
     from = to;
   }
-  return new SweepWork(surface, waves);
+  return new SweepWork(waves);
 }
 
 /**
@@ -214,17 +203,10 @@ function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
  * prediction from the largest Hessian eigenvalue at the start.
  */
 function learningRateWork(spec: LearningRateSweepSpec, surface: Surface): StudyWork {
-  const n = surface.dimension;
-  validateLearningRateSweep(spec, n);
-  spec.optimizers.forEach((o) => buildOptimizer(o.spec));
   const rates = logSpaced(spec.range[0], spec.range[1], spec.count);
-  const starts = new Float64Array(spec.count * n);
-  for (let k = 0; k < spec.count; k++) starts.set(spec.start, k * n);
-  const waves: Wave[] = spec.optimizers.map((o, q) => ({
-    indices: Int32Array.from({ length: spec.count }, (_, k) => q * spec.count + k), optimizer: o.spec, stop: spec.stop, seed: spec.seed, starts, learningRates: rates,
-  }));
+  const waves: Wave[] = cellPlans(spec, surface, Int32Array.from({ length: spec.optimizers.length * spec.count }, (_, c) => c));
   const outcomes: (RunOutcome | undefined)[] = [];
-  const work = new SweepWork(surface, waves, () => {
+  const work = new SweepWork(waves, () => {
     const lambdaMax = sharpnessAlong(surface, Float64Array.from(spec.start), 1)[0];
     const thresholds: StudyThreshold[] = spec.optimizers.map((o, q) => {
       const predicted = predictedStabilityLimit(o.spec, lambdaMax);
