@@ -18,7 +18,7 @@ export function demoWorkspace(): Workspace {
     settings: { start: start.slice(), seed: 1, stop: { ...DEFAULT_STOP } },
   });
   return {
-    version: 2,
+    version: 3,
     surface: { kind: 'catalogue', id: 'rosenbrock' },
     slice: { axes: [0, 1], at: [0, 0] },
     view: { a: [-2, 2], b: [-1, 3] },

@@ -135,8 +135,8 @@ describe('fall run --shard and fall merge', () => {
 describe('bad input: a clear message, exit 1, nothing written', () => {
   const cases: [string, (dir: string) => string[], RegExp][] = [
     ['not JSON', (d) => ['run', writeJson(d, 'x.fall.json', '{\n  "version": 2,\n  oops\n}'), '--out', join(d, 'out')], /x\.fall\.json:3:3: \$: not valid JSON: expected a field name in double quotes, found "o"/],
-    ['a future version', (d) => ['run', writeJson(d, 'x.fall.json', { ...sweepExperiment(), version: 9 }), '--out', join(d, 'out')], /x\.fall\.json:\d+:\d+: \$\.version: version 9 is newer than this program reads \(1 to 2\)/],
-    ['a wrong version', (d) => ['run', writeJson(d, 'x.fall.json', { ...sweepExperiment(), version: 'two' }), '--out', join(d, 'out')], /\$\.version: expected a whole number from 1 to 2, got "two"/],
+    ['a future version', (d) => ['run', writeJson(d, 'x.fall.json', { ...sweepExperiment(), version: 9 }), '--out', join(d, 'out')], /x\.fall\.json:\d+:\d+: \$\.version: version 9 is newer than this program reads \(1 to 3\)/],
+    ['a wrong version', (d) => ['run', writeJson(d, 'x.fall.json', { ...sweepExperiment(), version: 'two' }), '--out', join(d, 'out')], /\$\.version: expected a whole number from 1 to 3, got "two"/],
     ['an unknown field', (d) => ['run', writeJson(d, 'x.fall.json', { ...sweepExperiment(), runs: [{ ...sweepExperiment().runs[0], colour: 'red' }] }), '--out', join(d, 'out')], /x\.fall\.json:\d+:\d+: \$\.runs\[0\]\.colour: unknown field/],
     ['a formula that does not parse', (d) => ['run', writeJson(d, 'x.fall.json', { ...sweepExperiment(), surface: { kind: 'formula', text: 'x^2 + sinn(y)' } }), '--out', join(d, 'out')], /x\.fall\.json:\d+:\d+: \$\.surface\.text: formula: unknown function 'sinn' at column 7; did you mean 'sin'\?/],
     ['--shard 5/4', (d) => ['run', writeJson(d, 'x.fall.json', sweepExperiment()), '--out', join(d, 'out'), '--shard', '5/4'], /--shard 5\/4: shard index 5 is out of range; shards of 4 are numbered 0 to 3/],

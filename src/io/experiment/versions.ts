@@ -6,20 +6,30 @@
  *   1  the workspace as the page first saved it.
  *   2  adds an optional `$schema` (the JSON Schema address, for editors) and `title` (a name for the
  *      experiment, carried into the command line's summary.json); fields otherwise as in version 1.
+ *   3  adds an optional `studies` list (start-point maps, multi-start, learning-rate sweeps as plain
+ *      data, engine/study/spec.ts), run by the page's study panels and by `fall run`.
  */
 import { z } from 'zod';
-import { workspaceFields } from './fields';
+import { MAX_STUDIES, studySpec, workspaceFields } from './fields';
 import type { Workspace } from './types';
 
-export const CURRENT_VERSION = 2;
+export const CURRENT_VERSION = 3;
 
 const version1 = z.strictObject({ version: z.literal(1), ...workspaceFields });
+
+const version2 = z.strictObject({
+  $schema: z.string().optional(),
+  version: z.literal(2),
+  title: z.string().max(200).optional(),
+  ...workspaceFields,
+});
 
 export const experimentSchema = z.strictObject({
   $schema: z.string().optional(),
   version: z.literal(CURRENT_VERSION),
   title: z.string().max(200).optional(),
   ...workspaceFields,
+  studies: z.array(studySpec).max(MAX_STUDIES).optional(),
 });
 
 /** A file that passed the current schema: the workspace, plus the editor hint `$schema`. */
@@ -34,4 +44,5 @@ interface VersionStep {
 /** Schemas of earlier versions and their one-step migration, keyed by version. */
 export const EARLIER_VERSIONS: Readonly<Record<number, VersionStep>> = {
   1: { schema: version1, upgrade: (file: z.infer<typeof version1>) => ({ ...file, version: 2 }) },
+  2: { schema: version2, upgrade: (file: z.infer<typeof version2>) => ({ ...file, version: 3 }) },
 };
