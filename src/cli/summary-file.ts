@@ -3,7 +3,7 @@
  * so a merged summary is byte-identical to the one a single process writes.
  */
 import type { Experiment } from '../io/experiment';
-import { OUTCOME_KINDS, outcomeDetail, type RunOutcome } from '../engine';
+import { OUTCOME_KINDS, outcomeDetail, type RunOutcome, type StudySpec } from '../engine';
 import type { RunResult } from './run-one';
 import type { Shard } from './work-units';
 
@@ -18,13 +18,23 @@ export interface RunLine {
   finalLoss: number | null;
 }
 
+/** One study of the file: where its rows are and how its cells ended (this shard's cells, for a shard). */
+export interface StudyLine {
+  kind: StudySpec['kind'];
+  /** The study's CSV, or for a shard the file holding its raw cells. */
+  file: string;
+  cells: number;
+  totals: Record<RunOutcome['kind'], number>;
+}
+
 export interface SummaryFile {
   format: 'fall-line-summary';
-  experiment: { hash: string; title: string | null; runs: number };
+  experiment: { hash: string; title: string | null; runs: number; studies: number };
   /** Null for a whole run or a merge of all shards. */
   shard: Shard | null;
   totals: Record<RunLine['outcome'], number>;
   runs: RunLine[];
+  studies: StudyLine[];
 }
 
 export function runLine(id: string, label: string, r: RunResult): RunLine {
@@ -41,8 +51,20 @@ export function runLine(id: string, label: string, r: RunResult): RunLine {
   };
 }
 
-export function summaryFile(experiment: Experiment, hash: string, shard: Shard | null, runs: RunLine[]): SummaryFile {
-  return { format: 'fall-line-summary', experiment: { hash, title: experiment.title ?? null, runs: experiment.runs.length }, shard, totals: totalsOf(runs), runs };
+export function summaryFile(experiment: Experiment, hash: string, shard: Shard | null, runs: RunLine[], studies: StudyLine[]): SummaryFile {
+  return { format: 'fall-line-summary', experiment: { hash, title: experiment.title ?? null, runs: experiment.runs.length, studies: experiment.studies?.length ?? 0 }, shard, totals: totalsOf(runs), runs, studies };
+}
+
+/** A study's line from the outcomes of its cells (those computed here). */
+export function studyLine(kind: StudySpec['kind'], file: string, outcomes: readonly (RunOutcome | undefined)[]): StudyLine {
+  const totals = Object.fromEntries(OUTCOME_KINDS.map((k) => [k, 0])) as StudyLine['totals'];
+  let cells = 0;
+  for (const o of outcomes)
+    if (o) {
+      totals[o.kind] += 1;
+      cells++;
+    }
+  return { kind, file, cells, totals };
 }
 
 export function totalsOf(runs: readonly RunLine[]): SummaryFile['totals'] {

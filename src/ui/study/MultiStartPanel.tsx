@@ -1,6 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
 import { drawStarts, hasParameterGroups, summariseStarts, type MultiStartSpec, type StartDistribution, type StartResult } from '../../engine';
-import { studyCsv } from '../../io/study-csv';
+import { STUDY_CSV, studyCsv, studyRows } from '../../io/study-csv';
 import { useApp } from '../app-context';
 import { chooseLossAxis } from '../chart/loss-chart';
 import { download } from '../export/download';
@@ -25,6 +25,8 @@ export function MultiStartPanel() {
   const view = useApp((s) => s.view);
   const tolerance = useApp((s) => s.tolerance);
   const surface = useMainThreadSurface(surfaceSpec);
+  // The surface the shown study ran on (the page's may have changed since).
+  const studySurface = useMainThreadSurface(all.surface ?? surfaceSpec);
   const [choice, setChoice] = useState<DistributionChoice>('uniform');
   const [count, setCount] = useState(100);
   const [sd, setSd] = useState(0.5);
@@ -77,20 +79,10 @@ export function MultiStartPanel() {
   }, [mine, all.bands, knownMinimum]);
 
   const exportCsv = () => {
-    if (!spec || !all.cells) return;
-    const n = all.variables.length;
-    const starts = drawStarts(spec.distribution, n, spec.count, spec.startSeed, surface && hasParameterGroups(surface) ? surface.parameterGroups : undefined);
-    const rows = [];
-    for (let c = 0; c < all.cells.filled.length; c++) {
-      const outcome = all.cells.outcomes[c];
-      if (!all.cells.filled[c] || !outcome) continue;
-      rows.push({
-        index: c, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: starts.subarray(c * n, (c + 1) * n), outcome,
-        steps: all.cells.steps[c], finalLoss: all.cells.loss[c], endPoint: all.cells.endPoints.subarray(c * n, (c + 1) * n),
-        basin: all.cells.basin[c] >= 0 ? all.basinLabels[all.cells.basin[c]] : null, stepsToTolerance: null,
-      });
-    }
-    download('fall-line-multi-start.csv', studyCsv('multi-start', all.variables, rows), 'text/csv');
+    const cells = all.cells;
+    if (!spec || !cells || !studySurface) return;
+    const rows = studyRows(spec, studySurface, cells, (c) => (cells.basin[c] >= 0 ? all.basinLabels[cells.basin[c]] : null));
+    download(`${STUDY_CSV['multi-start'].file}.csv`, studyCsv(STUDY_CSV['multi-start'].name, all.variables, rows), 'text/csv');
   };
 
   const pct = (v: number) => `${(100 * v).toFixed(1)}%`;

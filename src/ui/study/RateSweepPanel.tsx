@@ -1,8 +1,9 @@
 import { useEffect, useRef, useState } from 'react';
 import { logSpaced, OUTCOME_KINDS, type LearningRateSweepSpec } from '../../engine';
-import { studyCsv } from '../../io/study-csv';
+import { STUDY_CSV, studyCsv, studyRows } from '../../io/study-csv';
 import { useApp } from '../app-context';
 import { download } from '../export/download';
+import { useMainThreadSurface } from '../view/use-surface';
 import { runStyle } from '../plot';
 import { drawRateChart, type RateCurve } from './rate-chart';
 import { useStudy, useStudyStore } from './study-context';
@@ -22,6 +23,7 @@ export function RateSweepPanel() {
   const selected = useApp((s) => s.selectedRunId);
   const surface = useApp((s) => s.surface);
   const info = useApp((s) => s.surfaceInfo);
+  const studySurface = useMainThreadSurface(all.surface ?? surface);
   const [chosen, setChosen] = useState<string[]>(() => runs.slice(0, 3).map((r) => r.id));
   const [range, setRange] = useState<[number, number]>([1e-4, 1]);
   const [count, setCount] = useState(64);
@@ -67,19 +69,10 @@ export function RateSweepPanel() {
   });
 
   const exportCsv = () => {
-    if (!spec || !all.cells || !rates) return;
-    const n = all.variables.length;
-    const rows = [];
-    for (let c = 0; c < all.cells.filled.length; c++) {
-      const outcome = all.cells.outcomes[c];
-      if (!all.cells.filled[c] || !outcome) continue;
-      const q = Math.floor(c / spec.count);
-      rows.push({
-        index: c, optimizer: spec.optimizers[q].label, learningRate: rates[c % spec.count], start: spec.start, outcome,
-        steps: all.cells.steps[c], finalLoss: all.cells.loss[c], endPoint: all.cells.endPoints.subarray(c * n, (c + 1) * n), basin: null, stepsToTolerance: null,
-      });
-    }
-    download('fall-line-learning-rates.csv', studyCsv('learning-rate sweep', all.variables, rows), 'text/csv');
+    const cells = all.cells;
+    if (!spec || !cells || !studySurface) return;
+    const rows = studyRows(spec, studySurface, cells, () => null);
+    download(`${STUDY_CSV['lr-sweep'].file}.csv`, studyCsv(STUDY_CSV['lr-sweep'].name, all.variables, rows), 'text/csv');
   };
 
   return (

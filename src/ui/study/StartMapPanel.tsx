@@ -1,8 +1,9 @@
 import { useEffect, useRef, useState } from 'react';
 import { cellStart, OUTCOME_KINDS, START_MAP_RESOLUTIONS, type StartMapSpec } from '../../engine';
-import { studyCsv } from '../../io/study-csv';
+import { STUDY_CSV, studyCsv, studyRows } from '../../io/study-csv';
 import { useActions, useApp } from '../app-context';
 import { download } from '../export/download';
+import { useMainThreadSurface } from '../view/use-surface';
 import { mapLegend, paintStartMap } from './paint-map';
 import { basinColour, cssColour, OUTCOME_COLOURS } from './study-colours';
 import { basinRadiusOf, knownMinima } from './basin-inputs';
@@ -31,6 +32,7 @@ export function StartMapPanel() {
   const surface = useApp((s) => s.surface);
   const info = useApp((s) => s.surfaceInfo);
   const actions = useActions();
+  const builtSurface = useMainThreadSurface(state.surface ?? surface);
   const [resolution, setResolution] = useState(64);
   const canvas = useRef<HTMLCanvasElement>(null);
   const config = runs.find((r) => r.id === selected) ?? runs[0];
@@ -90,19 +92,9 @@ export function StartMapPanel() {
 
   const exportCsv = () => {
     const { cells, spec, variables } = state;
-    if (!cells || !spec) return;
-    const rows = [];
-    for (let c = 0; c < cells.filled.length; c++) {
-      const outcome = cells.outcomes[c];
-      if (!cells.filled[c] || !outcome) continue;
-      const n = variables.length;
-      rows.push({
-        index: c, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: cellStart(spec, c, new Float64Array(n)), outcome,
-        steps: cells.steps[c], finalLoss: cells.loss[c], endPoint: cells.endPoints.subarray(c * n, (c + 1) * n),
-        basin: cells.basin[c] >= 0 ? state.basinLabels[cells.basin[c]] : null, stepsToTolerance: null,
-      });
-    }
-    download('fall-line-start-map.csv', studyCsv('start-map', variables, rows), 'text/csv');
+    if (!cells || !spec || !builtSurface) return;
+    const rows = studyRows(spec, builtSurface, cells, (c) => (cells.basin[c] >= 0 ? state.basinLabels[cells.basin[c]] : null));
+    download(`${STUDY_CSV['start-map'].file}.csv`, studyCsv(STUDY_CSV['start-map'].name, variables, rows), 'text/csv');
   };
 
   const legend = state.cells ? mapLegend(state.cells, state.basinLabels) : [];
