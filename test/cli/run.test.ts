@@ -221,7 +221,7 @@ describe('fall schema', () => {
     const schema = JSON.parse(r.stdout);
     expect(schema.$schema).toMatch(/json-schema\.org/);
     expect(schema.additionalProperties).toBe(false);
-    expect(schema.properties.version).toMatchObject({ const: 2 });
+    expect(schema.properties.version).toMatchObject({ const: 3 });
   });
 });
 
