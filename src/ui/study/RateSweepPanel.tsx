@@ -1,7 +1,8 @@
 import { useEffect, useRef, useState } from 'react';
 import { logSpaced, OUTCOME_KINDS, type LearningRateSweepSpec } from '../../engine';
 import { STUDY_CSV, studyCsv, studyRows } from '../../io/study-csv';
-import { useApp } from '../app-context';
+import { studyOfKind } from '../../store/app-store';
+import { useActions, useApp } from '../app-context';
 import { download } from '../export/download';
 import { useMainThreadSurface } from '../view/use-surface';
 import { runStyle } from '../plot';
@@ -14,7 +15,9 @@ const fmt = (v: number) => String(+v.toPrecision(4));
 /**
  * Learning-rate sweep: chosen runs' optimizers at log-spaced learning rates from one start; final loss
  * against learning rate, the observed divergence threshold (refined by bisection) and, for gradient
- * descent and heavy-ball momentum, the threshold predicted from the Hessian at the start.
+ * descent and heavy-ball momentum, the threshold predicted from the Hessian at the start. The sweep
+ * last started here, or opened from a file, is the workspace's set-up sweep (saved in the experiment
+ * file, with this panel's current range and count); "Run as set up" runs it exactly as written.
  */
 export function RateSweepPanel() {
   const study = useStudyStore();
@@ -25,8 +28,25 @@ export function RateSweepPanel() {
   const info = useApp((s) => s.surfaceInfo);
   const studySurface = useMainThreadSurface(all.surface ?? surface);
   const [chosen, setChosen] = useState<string[]>(() => runs.slice(0, 3).map((r) => r.id));
-  const [range, setRange] = useState<[number, number]>([1e-4, 1]);
-  const [count, setCount] = useState(64);
+  const actions = useActions();
+  const setUp = useApp((s) => studyOfKind(s.studies, 'lr-sweep'));
+  const [range, setRangeState] = useState<[number, number]>(setUp?.range ?? [1e-4, 1]);
+  const [count, setCountState] = useState(setUp?.count ?? 64);
+  useEffect(() => {
+    if (!setUp) return;
+    setRangeState(setUp.range);
+    setCountState(setUp.count);
+  }, [setUp]);
+  /** A changed range or count also changes the set-up sweep, so the saved experiment has the panel's settings. */
+  const setRange = (r: [number, number]) => {
+    setRangeState(r);
+    if (setUp && r[0] > 0 && r[1] > r[0] && Number.isFinite(r[1])) actions.setStudy({ ...setUp, range: r });
+  };
+  const setCount = (c: number) => {
+    setCountState(c);
+    if (setUp) actions.setStudy({ ...setUp, count: c });
+  };
+  const counts = COUNTS.includes(count as never) ? COUNTS : [...COUNTS, count].sort((x, y) => x - y);
   const canvas = useRef<HTMLCanvasElement>(null);
   const startRun = runs.find((r) => r.id === selected) ?? runs[0];
   const picked = runs.filter((r) => chosen.includes(r.id));
@@ -40,7 +60,11 @@ export function RateSweepPanel() {
       kind: 'lr-sweep', optimizers: picked.map((r) => ({ label: r.label, spec: r.optimizer })), stop: startRun.settings.stop, seed: startRun.settings.seed,
       start: startRun.settings.start.slice(), range, count,
     };
+    actions.setStudy(s);
     study.start({ surface, variables: info.variables, spec: s, configLabel: startRun.label, known: [], basinRadius: 1 });
+  };
+  const runSetUp = () => {
+    if (setUp) study.start({ surface, variables: info.variables, spec: setUp, configLabel: 'the set-up sweep', known: [], basinRadius: 1 });
   };
 
   const rates = spec ? logSpaced(spec.range[0], spec.range[1], spec.count) : null;
@@ -99,7 +123,7 @@ export function RateSweepPanel() {
         <label>
           rates{' '}
           <select value={count} onChange={(e) => setCount(Number(e.target.value))}>
-            {COUNTS.map((c) => <option key={c} value={c}>{c}</option>)}
+            {counts.map((c) => <option key={c} value={c}>{c}</option>)}
           </select>
         </label>
         {mine && all.status === 'running' ? (
@@ -107,6 +131,7 @@ export function RateSweepPanel() {
         ) : (
           <button type="button" onClick={start} disabled={!!problem}>Sweep learning rates</button>
         )}
+        {setUp && !(mine && all.status === 'running') && <button type="button" onClick={runSetUp} data-testid="rate-sweep-run-set-up">Run as set up</button>}
         <button type="button" onClick={exportCsv} disabled={!mine || !all.cells || all.done === 0}>Sweep CSV</button>
         {mine && all.total > 0 && (
           <span className="study-progress" data-status={all.status}>
@@ -115,6 +140,11 @@ export function RateSweepPanel() {
           </span>
         )}
       </div>
+      {setUp && (
+        <p className="study-help" data-testid="rate-sweep-set-up">
+          Set up (saved with the experiment): {setUp.optimizers.map((o) => o.label).join(', ')} at {setUp.count} rates from {fmt(setUp.range[0])} to {fmt(setUp.range[1])}, from ({setUp.start.map(fmt).join(', ')}), at most {setUp.stop.maxSteps} steps
+        </p>
+      )}
       {problem && <p className="field-error">{problem}</p>}
       {mine && all.message && <p className="field-error" role="alert">{all.message}</p>}
       {mine && (
