@@ -121,7 +121,7 @@ function mergeStudies(shards: readonly FoundShard[]): { files: [string, FileCont
     }
     const name = studyCsvName(spec, k);
     files.push([name, studyCsvOf(spec, surface, info, experiment.view, table)]);
-    return studyLine(spec.kind, name, table.outcomes);
+    return studyLine(spec, name, table.outcomes, surface);
   });
   return { files, lines };
 }

@@ -1,5 +1,5 @@
 /** `fall run FILE --out DIR [--shard i/n] [--threads N] [--force] [--json]`. */
-import type { StudyCellResults } from '../engine';
+import type { StudyCellResults, StudySpec } from '../engine';
 import { buildSurface, describeSurface } from '../problems';
 import { reportedUnits } from '../io/units';
 import { resultsCsvOf, referenceMinima, trajectoriesCsvPieces } from '../io/run-exports';
@@ -88,11 +88,11 @@ export async function runCommand(o: RunOptions, log: (line: string) => void): Pr
     // A shard keeps its cells raw; the merge assigns basins once every cell is in (study-exports.ts).
     const mine = pieces.map((p) => joinPieces(p, surface.dimension));
     files.push([names.studyCells, studyShardText({ format: 'fall-line-study-cells', hash, shard: o.shard, experiment, studies: mine })]);
-    studyLines = studies.map((s, k) => studyLine(s.kind, names.studyCells, mine[k].outcomes));
+    studyLines = studies.map((s, k) => studyLine(s, names.studyCells, mine[k].outcomes));
   } else {
     const tables = studies.map((s, k) => cellTable(s, surface.dimension, pieces[k]));
     studies.forEach((s, k) => files.push([studyFiles[k], studyCsvOf(s, surface, info, experiment.view, tables[k])]));
-    studyLines = studies.map((s, k) => studyLine(s.kind, studyFiles[k], tables[k].outcomes));
+    studyLines = studies.map((s, k) => studyLine(s, studyFiles[k], tables[k].outcomes, surface));
   }
   files.push([names.summary, summaryText(summaryFile(experiment, hash, o.shard, lines, studyLines))]);
   writeAtomically(o.out, files);
@@ -100,7 +100,7 @@ export async function runCommand(o: RunOptions, log: (line: string) => void): Pr
   const seconds = (Date.now() - started) / 1000;
   const shardText = o.shard ? ` (shard ${o.shard.index}/${o.shard.count}: ${runs.length} of ${experiment.runs.length} runs${studies.length ? `, ${totalCells} study cells` : ''})` : '';
   log(`wrote ${files.map(([name]) => name).join(', ')} to ${o.out}${shardText} in ${seconds.toFixed(2)} s`);
-  for (const [k, line] of studyLines.entries()) log(`study ${k} (${STUDY_CSV[line.kind].name}): ${line.cells} runs; ${outcomeCounts(line)}`);
+  for (const [k, line] of studyLines.entries()) log(`study ${k} (${STUDY_CSV[line.kind].name}): ${line.cells} runs; ${outcomeCounts(line)}${thresholdText(studies[k], line)}`);
   const bad = troubled(lines);
   for (const b of bad) log(`run ${b.id} (${b.label}) ${b.outcome}${b.step === null ? '' : ` at step ${b.step}`}${b.detail ? `: ${b.detail}` : ''}`);
   return bad.length ? EXIT.someRunsTroubled : EXIT.done;
@@ -120,6 +120,14 @@ function joinPieces(pieces: readonly StudyCellResults[], n: number): StudyCellRe
     at += p.indices.length;
   }
   return out;
+}
+
+/** `; diverges above: gd between 0.0999 and 0.1 (predicted 0.1), ...` for a sweep with thresholds. */
+function thresholdText(spec: StudySpec, line: StudyLine): string {
+  if (spec.kind !== 'lr-sweep' || !line.thresholds) return '';
+  const f = (v: number) => String(+v.toPrecision(4));
+  const parts = line.thresholds.map((t, q) => `${spec.optimizers[q].label} ${t.observed ? `between ${f(t.observed.lo)} and ${f(t.observed.hi)}` : 'not in range'}${t.predicted ? ` (predicted ${f(t.predicted)})` : ''}`);
+  return `; diverges at rates: ${parts.join(', ')}`;
 }
 
 export function outcomeCounts(line: StudyLine): string {

@@ -3,7 +3,7 @@
  * so a merged summary is byte-identical to the one a single process writes.
  */
 import type { Experiment } from '../io/experiment';
-import { OUTCOME_KINDS, outcomeDetail, type RunOutcome, type StudySpec } from '../engine';
+import { OUTCOME_KINDS, outcomeDetail, sweepThresholds, type RunOutcome, type StudySpec, type Surface, type SweepThreshold } from '../engine';
 import type { RunResult } from './run-one';
 import type { Shard } from './work-units';
 
@@ -25,6 +25,8 @@ export interface StudyLine {
   file: string;
   cells: number;
   totals: Record<RunOutcome['kind'], number>;
+  /** Learning-rate sweeps, once every cell is in (a whole run or a merge): per optimizer, as the page's table shows them. */
+  thresholds?: SweepThreshold[];
 }
 
 export interface SummaryFile {
@@ -55,8 +57,12 @@ export function summaryFile(experiment: Experiment, hash: string, shard: Shard |
   return { format: 'fall-line-summary', experiment: { hash, title: experiment.title ?? null, runs: experiment.runs.length, studies: experiment.studies?.length ?? 0 }, shard, totals: totalsOf(runs), runs, studies };
 }
 
-/** A study's line from the outcomes of its cells (those computed here). */
-export function studyLine(kind: StudySpec['kind'], file: string, outcomes: readonly (RunOutcome | undefined)[]): StudyLine {
+/**
+ * A study's line from the outcomes of its cells (those computed here); with the surface (all cells in),
+ * a learning-rate sweep's divergence thresholds too (engine/study/thresholds.ts, as on the page).
+ */
+export function studyLine(spec: StudySpec, file: string, outcomes: readonly (RunOutcome | undefined)[], surface?: Surface): StudyLine {
+  const kind = spec.kind;
   const totals = Object.fromEntries(OUTCOME_KINDS.map((k) => [k, 0])) as StudyLine['totals'];
   let cells = 0;
   for (const o of outcomes)
@@ -64,7 +70,7 @@ export function studyLine(kind: StudySpec['kind'], file: string, outcomes: reado
       totals[o.kind] += 1;
       cells++;
     }
-  return { kind, file, cells, totals };
+  return { kind, file, cells, totals, ...(spec.kind === 'lr-sweep' && surface ? { thresholds: sweepThresholds(spec, surface, outcomes) } : {}) };
 }
 
 export function totalsOf(runs: readonly RunLine[]): SummaryFile['totals'] {

@@ -1,10 +1,9 @@
 import {
-  buildOptimizer, cellPlans, coarseToFineOrder, drawStarts, hasParameterGroups, logSpaced, lossBands, predictedStabilityLimit, refineDivergenceThreshold,
-  RunCursor, sharpnessAlong, Sweep, validateMultiStart,
+  buildOptimizer, cellPlans, coarseToFineOrder, drawStarts, hasParameterGroups, lossBands, RunCursor, Sweep, sweepThresholds, validateMultiStart,
   type LearningRateSweepSpec, type MultiStartSpec, type RunOutcome, type StartMapSpec, type StudySpec, type Surface, type SweepPlan,
 } from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
-import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
+import type { FromWorker, StudyCells } from '../protocol';
 import { errorText } from './runs';
 import { SLICE_MS, type Timing } from './scheduler';
 
@@ -197,35 +196,13 @@ function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
 }
 
 /**
- * Each optimizer at every rate, one wave per optimizer; at the end, per optimizer, the observed
- * divergence threshold (between the last rate before the first diverged run and that run's rate,
- * narrowed by refineDivergenceThreshold to 1e-6 relative where its stability test agrees) and the
- * prediction from the largest Hessian eigenvalue at the start.
+ * Each optimizer at every rate, one wave per optimizer; at the end, per optimizer, the observed and
+ * predicted divergence thresholds (engine/study/thresholds.ts).
  */
 function learningRateWork(spec: LearningRateSweepSpec, surface: Surface): StudyWork {
-  const rates = logSpaced(spec.range[0], spec.range[1], spec.count);
   const waves: Wave[] = cellPlans(spec, surface, Int32Array.from({ length: spec.optimizers.length * spec.count }, (_, c) => c));
   const outcomes: (RunOutcome | undefined)[] = [];
-  const work = new SweepWork(waves, () => {
-    const lambdaMax = sharpnessAlong(surface, Float64Array.from(spec.start), 1)[0];
-    const thresholds: StudyThreshold[] = spec.optimizers.map((o, q) => {
-      const predicted = predictedStabilityLimit(o.spec, lambdaMax);
-      const first = rates.findIndex((_, k) => outcomes[q * spec.count + k]?.kind === 'diverged');
-      if (first <= 0) return { lambdaMax, predicted, observed: null };
-      let lo = rates[first - 1];
-      let hi = rates[first];
-      let refined = false;
-      try {
-        const r = refineDivergenceThreshold({ surface, optimizer: o.spec, start: spec.start, seed: spec.seed, steps: Math.min(spec.stop.maxSteps, 2000) }, lo, hi, { relativeTolerance: 1e-6 });
-        [lo, hi, refined] = [r.lo, r.hi, true];
-      } catch {
-        // The refinement's own stability test disagrees with the sweep at the bracket's ends (e.g. a run
-        // that diverges only after more steps than a trial takes): keep the sweep's bracket, unrefined.
-      }
-      return { lambdaMax, predicted, observed: { lo, hi, refined } };
-    });
-    return { thresholds };
-  });
+  const work = new SweepWork(waves, () => ({ thresholds: sweepThresholds(spec, surface, outcomes) }));
   const run = work.run.bind(work);
   work.run = (deadline, now) => {
     const cells = run(deadline, now);

@@ -118,7 +118,29 @@ describe('fall run with studies', () => {
       const s = store.store.getState();
       expect(s.status).toBe('done');
       expect(studyCsvOf(spec, himmelblau, info, experiment.view, s.cells!)).toBe(read(single, STUDY_FILES[k]));
+      // The sweep's divergence thresholds in summary.json are the ones the page's table shows.
+      if (spec.kind === 'lr-sweep') expect(JSON.parse(read(single, 'summary.json')).studies[k].thresholds).toEqual(s.thresholds);
     });
+  });
+
+  it('a sweep on x^2 + 10 y^2 finds the divergence thresholds the update rules give: 2/lambda_max for descent, 2(1 + mu)/lambda_max for heavy ball', () => {
+    // lambda_max = 20. Gradient descent multiplies the error along the top eigenvector by 1 - lr * 20 per
+    // step (stable iff lr < 0.1); heavy ball with mu = 0.9 (Polyak 1964) is stable iff lr * 20 < 2 * 1.9.
+    const dir = scratch();
+    const quadratic = { ...experiment, surface: { kind: 'formula' as const, text: 'x^2 + 10*y^2' }, runs: [], studies: [{ ...studies[2], range: [0.01, 1] as [number, number], count: 24, stop: { maxSteps: 400 } }] };
+    const r = fall(['run', writeJson(dir, 'quadratic.fall.json', quadratic), '--out', join(dir, 'out')]);
+    expect(r.code).toBe(0);
+    const [gd, heavy] = JSON.parse(read(join(dir, 'out'), 'summary.json')).studies[0].thresholds;
+    expect(gd.lambdaMax).toBeCloseTo(20, 10);
+    expect(gd.predicted).toBeCloseTo(0.1, 12);
+    expect(heavy.predicted).toBeCloseTo(0.19, 12);
+    for (const [t, exact] of [[gd, 0.1], [heavy, 0.19]]) {
+      expect(t.observed.refined).toBe(true);
+      expect(t.observed.lo).toBeLessThanOrEqual(exact * (1 + 1e-9));
+      expect(t.observed.hi).toBeGreaterThanOrEqual(exact * (1 - 1e-9));
+      expect(t.observed.hi / t.observed.lo - 1).toBeLessThan(2e-6);
+    }
+    expect(r.stderr).toMatch(/diverges at rates: plain steps between 0\.1 and 0\.1 \(predicted 0\.1\), heavy ball between 0\.19 and 0\.19 \(predicted 0\.19\)/);
   });
 
   it('the same bytes whatever the number of threads; progress per study on stderr', () => {

@@ -6,3 +6,4 @@ export { assignBasins, BasinTracker, type BasinAssignment, type KnownPoint } fro
 export { validateLearningRateSweep, validateMultiStart, MAX_MULTI_STARTS, MAX_SWEEP_RATES, type LearningRateSweepSpec, type MultiStartSpec, type StudySpec } from './spec';
 export { predictedStabilityLimit } from './stability';
 export { cellPlans, runStudyCells, studyOrder, studySize, validateStudy, type CellPlan, type StudyCellResults } from './cells';
+export { sweepThresholds, type SweepThreshold } from './thresholds';
