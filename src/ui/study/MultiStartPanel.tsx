@@ -134,7 +134,8 @@ export function MultiStartPanel() {
           <label>
             standard deviation <input type="number" value={sd} step="any" min={0} onChange={(e) => {
               setSd(Number(e.target.value));
-              if (setUp?.distribution.kind === 'gaussian') patch({ distribution: { ...setUp.distribution, sd: Number(e.target.value) } });
+              const v = Number(e.target.value);
+              if (setUp?.distribution.kind === 'gaussian' && v >= 0 && Number.isFinite(v)) patch({ distribution: { ...setUp.distribution, sd: v } });
             }} style={{ width: '5rem' }} />
           </label>
         )}
