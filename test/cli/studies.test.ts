@@ -10,6 +10,8 @@ import { createStudyStore } from '../../src/store/study-store';
 import { inProcessLink } from '../store/in-process-link';
 import { buildCli, fall, scratch, writeJson } from './built-cli';
 import { studyExperiment } from './experiments';
+import { SPECS } from '../problems/datafit/specs';
+import { hasParameterGroups } from '../../src/engine';
 
 const STUDY_FILES = ['fall-line-start-map.study-0.csv', 'fall-line-multi-start.study-1.csv', 'fall-line-learning-rates.study-2.csv'];
 const ALL_FILES = ['fall-line-trajectories.csv', 'fall-line-results.csv', 'summary.json', ...STUDY_FILES];
@@ -201,5 +203,44 @@ describe('studies in shards', () => {
     const r = fall(['check', writeJson(dir, 'bad.fall.json', bad)]);
     expect(r.code).toBe(1);
     expect(r.stdout).toMatch(/bad\.fall\.json:\d+:\d+: \$\.studies\[0\]\.resolution: /);
+  });
+});
+
+describe('studies of a network (a model fitted to data, 13 parameters)', () => {
+  const net = SPECS['mlp tanh binary'];
+  const surface = buildSurface(net);
+  const n = surface.dimension;
+  const base = Array.from({ length: n }, (_, k) => 0.1 * (k % 3) - 0.1);
+  const stop = { maxSteps: 150, lossChangeTolerance: 1e-12 };
+  const networkStudies: StudySpec[] = [
+    { kind: 'multi-start', optimizer: { kind: 'adam', learningRate: 0.05 }, stop, seed: 4, distribution: { kind: 'glorot' }, count: 12, startSeed: 9 },
+    { kind: 'start-map', optimizer: { kind: 'gd', learningRate: 0.1 }, stop, seed: 4, box: { a: [-2, 2], b: [-1, 3] }, axes: [1, 4], base, resolution: 16 },
+  ];
+  const file = { ...experiment, surface: net, runs: [], studies: networkStudies };
+
+  it('Glorot starts from the network\'s layers, a map over a slice through two weights; 3 shards merge into the same bytes', () => {
+    expect(n).toBe(13);
+    const dir = scratch();
+    const path = writeJson(dir, 'network.fall.json', file);
+    expect(fall(['run', path, '--out', join(dir, 'single')]).code).toBe(0);
+    for (let i = 0; i < 3; i++) expect(fall(['run', path, '--out', join(dir, 'shards'), '--shard', `${i}/3`]).code).toBe(0);
+    expect(fall(['merge', join(dir, 'shards'), '--out', join(dir, 'merged')]).code).toBe(0);
+    const names = ['fall-line-multi-start.study-0.csv', 'fall-line-start-map.study-1.csv', 'summary.json'];
+    for (const name of names) expect(read(join(dir, 'merged'), name)).toBe(read(join(dir, 'single'), name));
+
+    const starts = drawStarts({ kind: 'glorot' }, n, 12, 9, hasParameterGroups(surface) ? surface.parameterGroups : undefined);
+    const multi = rowsOf(read(join(dir, 'single'), names[0])).slice(1);
+    expect(multi).toHaveLength(12);
+    multi.forEach((row, c) => expect(row.slice(4, 4 + n)).toEqual(Array.from(starts.subarray(c * n, (c + 1) * n), cell)));
+    const map = rowsOf(read(join(dir, 'single'), names[1])).slice(1);
+    const spec = networkStudies[1] as Extract<StudySpec, { kind: 'start-map' }>;
+    for (const c of [0, 77, 255]) {
+      const start = cellStart(spec, c, new Float64Array(n));
+      expect(map[c].slice(4, 4 + n)).toEqual(Array.from(start, cell));
+      const cursor = new RunCursor(surface, buildOptimizer(spec.optimizer), { start: Array.from(start), seed: spec.seed, stop });
+      cursor.runToEnd();
+      expect(map[c].slice(4 + n + 2, 4 + n + 5)).toEqual([String(cursor.outcome!.step), String(cursor.state.t), cell(cursor.state.loss)]);
+      expect(map[c].slice(4 + n + 5, 4 + 2 * n + 5)).toEqual(Array.from(cursor.state.x, cell));
+    }
   });
 });
