@@ -1,12 +1,12 @@
 #!/usr/bin/env bash
 # The command line on a real scheduler: stands up a one-node Slurm (scripts/slurm-one-node.sh),
-# submits the example experiment as a 4-task job array with a dependent merge (examples/slurm/), and
-# checks the merged files are byte-identical to a single-process run. Tears the daemons down by their
+# submits the example experiment (runs and three studies) as a 4-task job array with a dependent
+# merge (examples/slurm/), and checks every merged file is byte-identical to a single-process run. Tears the daemons down by their
 # PIDs on exit. Run as root (CI is); prints what each shard cost.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 root=$(pwd)
-experiment=examples/camel-ridge.fall.json
+experiment=${EXPERIMENT:-examples/camel-ridge-studies.fall.json}
 shards=${SHARDS:-4}
 export FALL_SLURM_DIR=${FALL_SLURM_DIR:-/tmp/fall-slurm}
 work=$(mktemp -d /tmp/fall-cluster-test-XXXXXX)
@@ -43,7 +43,7 @@ for k in $(seq 0 $((shards - 1))); do
     [ -f "$work/shards/$f.shard-$k-of-$shards.csv" ] || { echo "cluster-test: FAIL: shard $k/$shards wrote no $f" >&2; status=1; }
   done
 done
-for f in fall-line-trajectories.csv fall-line-results.csv summary.json; do
+for f in $(ls "$work/single"); do
   if cmp -s "$work/single/$f" "$work/shards/$f"; then
     echo "cluster-test: $f identical ($(wc -c <"$work/single/$f") bytes)" >&2
   else

@@ -1,6 +1,8 @@
 #!/usr/bin/env bash
 # Submits a sharded Fall Line run to Slurm: an array of SHARDS tasks, then a merge that waits for all.
 #   examples/slurm/submit.sh EXPERIMENT.fall.json OUTDIR
+# The shards share the file's runs and every study in it (e.g. examples/camel-ridge-studies.fall.json);
+# the merge writes the same files, study CSVs included, as one `fall run`.
 # Settings (environment): SHARDS (default 4), PARTITION (default: the cluster's), TIME (per shard,
 # default 00:30:00), CPUS (threads per shard, default 1), LOGS (folder for the jobs' output, default
 # logs). Prints the two job ids, array first.

@@ -1,6 +1,7 @@
 /**
  * Progress of `fall run`: a bar on a terminal (runs done, rate, time left), one plain line per finished
- * run otherwise, or one JSON object per line with --json (on stdout; everything else goes to stderr).
+ * run (and per finished piece of a study) otherwise, or one JSON object per line with --json (on
+ * stdout; everything else goes to stderr). A study's cells are runs too: they count in the total.
  */
 import type { RunLine } from './summary-file';
 
@@ -8,6 +9,8 @@ export type ProgressStyle = 'bar' | 'lines' | 'json';
 
 export interface Progress {
   runDone(line: RunLine): void;
+  /** `count` more cells of study `study` ended; `done` of its `total` cells (in this shard) so far. */
+  cellsDone(study: number, kind: string, count: number, done: number, total: number): void;
   finish(): void;
 }
 
@@ -33,6 +36,12 @@ export function createProgress(style: ProgressStyle, total: number, out: { stdou
       if (style === 'bar') out.stderr.write(barLine());
       else if (style === 'lines') out.stderr.write(`run ${done}/${total} ${line.id} (${line.label}): ${line.outcome}${line.step === null ? '' : ` at step ${line.step}`}\n`);
       else out.stdout.write(JSON.stringify({ event: 'run', done, total, id: line.id, outcome: line.outcome, step: line.step, runsPerSecond: round(rate()), etaSeconds: round(eta()) }) + '\n');
+    },
+    cellsDone(study, kind, count, studyDone, studyTotal) {
+      done += count;
+      if (style === 'bar') out.stderr.write(barLine());
+      else if (style === 'lines') out.stderr.write(`study ${study} (${kind}): ${studyDone}/${studyTotal} runs\n`);
+      else out.stdout.write(JSON.stringify({ event: 'study', study, kind, done: studyDone, total: studyTotal, runsPerSecond: round(rate()), etaSeconds: round(eta()) }) + '\n');
     },
     finish() {
       const seconds = (now() - began) / 1000;

@@ -3,7 +3,7 @@
  * so a merged summary is byte-identical to the one a single process writes.
  */
 import type { Experiment } from '../io/experiment';
-import { OUTCOME_KINDS, outcomeDetail, type RunOutcome } from '../engine';
+import { OUTCOME_KINDS, outcomeDetail, sweepThresholds, type RunOutcome, type StudySpec, type Surface, type SweepThreshold } from '../engine';
 import type { RunResult } from './run-one';
 import type { Shard } from './work-units';
 
@@ -18,13 +18,25 @@ export interface RunLine {
   finalLoss: number | null;
 }
 
+/** One study of the file: where its rows are and how its cells ended (this shard's cells, for a shard). */
+export interface StudyLine {
+  kind: StudySpec['kind'];
+  /** The study's CSV, or for a shard the file holding its raw cells. */
+  file: string;
+  cells: number;
+  totals: Record<RunOutcome['kind'], number>;
+  /** Learning-rate sweeps, once every cell is in (a whole run or a merge): per optimizer, as the page's table shows them. */
+  thresholds?: SweepThreshold[];
+}
+
 export interface SummaryFile {
   format: 'fall-line-summary';
-  experiment: { hash: string; title: string | null; runs: number };
+  experiment: { hash: string; title: string | null; runs: number; studies: number };
   /** Null for a whole run or a merge of all shards. */
   shard: Shard | null;
   totals: Record<RunLine['outcome'], number>;
   runs: RunLine[];
+  studies: StudyLine[];
 }
 
 export function runLine(id: string, label: string, r: RunResult): RunLine {
@@ -41,8 +53,24 @@ export function runLine(id: string, label: string, r: RunResult): RunLine {
   };
 }
 
-export function summaryFile(experiment: Experiment, hash: string, shard: Shard | null, runs: RunLine[]): SummaryFile {
-  return { format: 'fall-line-summary', experiment: { hash, title: experiment.title ?? null, runs: experiment.runs.length }, shard, totals: totalsOf(runs), runs };
+export function summaryFile(experiment: Experiment, hash: string, shard: Shard | null, runs: RunLine[], studies: StudyLine[]): SummaryFile {
+  return { format: 'fall-line-summary', experiment: { hash, title: experiment.title ?? null, runs: experiment.runs.length, studies: experiment.studies?.length ?? 0 }, shard, totals: totalsOf(runs), runs, studies };
+}
+
+/**
+ * A study's line from the outcomes of its cells (those computed here); with the surface (all cells in),
+ * a learning-rate sweep's divergence thresholds too (engine/study/thresholds.ts, as on the page).
+ */
+export function studyLine(spec: StudySpec, file: string, outcomes: readonly (RunOutcome | undefined)[], surface?: Surface): StudyLine {
+  const kind = spec.kind;
+  const totals = Object.fromEntries(OUTCOME_KINDS.map((k) => [k, 0])) as StudyLine['totals'];
+  let cells = 0;
+  for (const o of outcomes)
+    if (o) {
+      totals[o.kind] += 1;
+      cells++;
+    }
+  return { kind, file, cells, totals, ...(spec.kind === 'lr-sweep' && surface ? { thresholds: sweepThresholds(spec, surface, outcomes) } : {}) };
 }
 
 export function totalsOf(runs: readonly RunLine[]): SummaryFile['totals'] {

@@ -1,4 +1,5 @@
 /** What `fall run` and its worker threads send each other. */
+import type { StudyCellResults, StudySpec } from '../engine';
 import type { RunConfig } from '../io/experiment/types';
 import type { ReferenceMinimum } from '../io/run-summary';
 import type { SurfaceSpec } from '../problems';
@@ -8,17 +9,23 @@ import type { RunResult } from './run-one';
 export interface ThreadJob {
   surface: SurfaceSpec;
   runs: RunConfig[];
+  studies: StudySpec[];
   minima: ReferenceMinimum[];
   tolerance: number;
 }
 
+/** One piece of work: a run of the file, or some cells of a study (engine/study/cells.ts). */
+export type Task = { kind: 'run'; runIndex: number } | { kind: 'cells'; study: number; cells: Int32Array };
+
+export type TaskResult = { kind: 'run'; result: RunResult } | { kind: 'cells'; cells: StudyCellResults };
+
 export interface JobMessage {
-  /** Index of the unit in the shard's share. */
+  /** Index of the task in the shard's list. */
   unit: number;
-  runIndex: number;
+  task: Task;
 }
 
 export interface ResultMessage {
   unit: number;
-  result: RunResult;
+  result: TaskResult;
 }

@@ -1,9 +1,13 @@
 /**
- * The work of an experiment as a list of units in file order, and a shard's share of it. Today a unit
- * is one run; a study (several starts or learning rates inside one run entry) will add units with a
- * start and learning-rate index, and the split below works on the list unchanged.
+ * The work of an experiment as lists of units in file order, and a shard's share of each: the runs,
+ * and each study's cells (a map's cells, a multi-start's starts, a sweep's optimizer x rate runs) in
+ * the study's run order (engine/study studyOrder). Every shard takes its share of the runs and of
+ * every study, so the tasks of a job array share each study; a map's coarse-to-fine order spreads a
+ * shard's cells over the whole map, so slow regions are shared too.
  */
+import { studyOrder } from '../engine';
 import type { Experiment } from '../io/experiment';
+import type { Task } from './thread-messages';
 
 export interface WorkUnit {
   /** Position of the run in the file's `runs`. */
@@ -21,6 +25,23 @@ export const WHOLE: Shard = { index: 0, count: 1 };
 
 export function workUnits(experiment: Experiment): WorkUnit[] {
   return experiment.runs.map((r, runIndex) => ({ runIndex, runId: r.id }));
+}
+
+/** The cells of each study (in file order) that shard computes. */
+export function studyShares(experiment: Experiment, shard: Shard): Int32Array[] {
+  return (experiment.studies ?? []).map((spec) => Int32Array.from(shareOf(Array.from(studyOrder(spec)), shard)));
+}
+
+/** Most and fewest cells per thread task (the sweep engine steps blocks of 64 runs). */
+const MAX_TASK_CELLS = 1024;
+const MIN_TASK_CELLS = 64;
+
+/** A study's cells cut into thread tasks, about four per thread, so the threads finish close together. */
+export function cellTasks(study: number, cells: Int32Array, threads: number): Task[] {
+  const size = Math.min(MAX_TASK_CELLS, Math.max(MIN_TASK_CELLS, Math.ceil(cells.length / (4 * threads))));
+  const tasks: Task[] = [];
+  for (let from = 0; from < cells.length; from += size) tasks.push({ kind: 'cells', study, cells: cells.slice(from, from + size) });
+  return tasks;
 }
 
 /**

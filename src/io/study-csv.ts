@@ -1,4 +1,4 @@
-import { outcomeDetail, type RunOutcome } from '../engine';
+import { cellStart, drawStarts, hasParameterGroups, logSpaced, outcomeDetail, type RunOutcome, type StudySpec, type Surface } from '../engine';
 import { toCsv, type CsvCell } from './csv';
 
 /**
@@ -40,4 +40,42 @@ export function studyCsv(study: string, variables: readonly string[], rows: read
     ];
   });
   return toCsv(body, header);
+}
+
+/** The `study` column's value and the file name of each kind's CSV (the page's downloads; `fall run` adds the study's place). */
+export const STUDY_CSV: Record<StudySpec['kind'], { name: string; file: string }> = {
+  'start-map': { name: 'start-map', file: 'fall-line-start-map' },
+  'multi-start': { name: 'multi-start', file: 'fall-line-multi-start' },
+  'lr-sweep': { name: 'learning-rate sweep', file: 'fall-line-learning-rates' },
+};
+
+/** A study's ended cells, indexed by cell (the page's study store holds them so). */
+export interface StudyCellTable {
+  filled: Uint8Array;
+  steps: Int32Array;
+  loss: Float64Array;
+  endPoints: Float64Array;
+  outcomes: (RunOutcome | undefined)[];
+}
+
+/**
+ * The CSV rows of a study's ended cells in cell order, the one builder for the page's three study
+ * exports and the command line: start from the spec (engine/study cellStart, drawStarts with the
+ * surface's parameter groups, the sweep's start), optimizer as the page names it (a map's and a
+ * multi-start's by kind, a sweep's by its label), learning rate per cell, basin label from `basinOf`.
+ */
+export function studyRows(spec: StudySpec, surface: Surface, cells: StudyCellTable, basinOf: (cell: number) => string | null): StudyRow[] {
+  const n = surface.dimension;
+  const starts = spec.kind === 'multi-start' ? drawStarts(spec.distribution, n, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined) : null;
+  const rates = spec.kind === 'lr-sweep' ? logSpaced(spec.range[0], spec.range[1], spec.count) : null;
+  const rows: StudyRow[] = [];
+  for (let c = 0; c < cells.filled.length; c++) {
+    const outcome = cells.outcomes[c];
+    if (!cells.filled[c] || !outcome) continue;
+    const common = { index: c, outcome, steps: cells.steps[c], finalLoss: cells.loss[c], endPoint: cells.endPoints.subarray(c * n, (c + 1) * n), basin: basinOf(c), stepsToTolerance: null };
+    if (spec.kind === 'start-map') rows.push({ ...common, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: cellStart(spec, c, new Float64Array(n)) });
+    else if (spec.kind === 'multi-start') rows.push({ ...common, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: starts!.subarray(c * n, (c + 1) * n) });
+    else rows.push({ ...common, optimizer: spec.optimizers[Math.floor(c / spec.count)].label, learningRate: rates![c % spec.count], start: spec.start });
+  }
+  return rows;
 }

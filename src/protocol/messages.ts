@@ -6,7 +6,7 @@
  * Identity: each launch of a run gets a fresh `runId`, each grid request a fresh `requestId`; the page
  * drops any message whose id is no longer current, so work superseded by an edit can never be drawn.
  */
-import type { CriticalPoint, GridRequest, OptimizerSpec, RunOutcome, RunSettings, StudySpec, TrajectoryBatch } from '../engine';
+import type { CriticalPoint, GridRequest, OptimizerSpec, RunOutcome, RunSettings, StudySpec, SweepThreshold, TrajectoryBatch } from '../engine';
 import type { CsvImport, SurfaceSpec } from '../problems';
 
 /** Everything needed to reproduce one run. */
@@ -54,11 +54,7 @@ export type ToWorker =
  * [lo stable, hi unstable] (refined by bisection when `refined`), null when no rate diverged or the
  * smallest already did.
  */
-export interface StudyThreshold {
-  lambdaMax: number;
-  predicted: number | null;
-  observed: { lo: number; hi: number; refined: boolean } | null;
-}
+export type StudyThreshold = SweepThreshold;
 
 /** Finished cells of a study, in the order they finished (cell indices as in StartMapSpec). */
 export interface StudyCells {

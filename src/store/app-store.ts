@@ -1,5 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
+import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind, type StudySpec } from '../engine';
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
@@ -90,6 +90,11 @@ export interface AppActions {
   setPace(pace: Pace): void;
   setTolerance(tolerance: number): void;
   setPanels(patch: Partial<PanelSettings>): void;
+  /**
+   * Sets up a study on the page: replaces the workspace's first study of the same kind (the one its
+   * panel shows), or adds it. Saved with the workspace and the experiment file; nothing runs.
+   */
+  setStudy(spec: StudySpec): void;
   /** Replaces the table runs with one run per optimizer x learning rate cell. */
   buildTableRuns(): void;
   dismissNotice(): void;
@@ -407,6 +412,11 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       set({ pace });
       link.send({ type: 'run/pace', pace });
     },
+    setStudy(spec) {
+      const studies = get().studies ?? [];
+      const at = studies.findIndex((x) => x.kind === spec.kind);
+      set({ studies: at < 0 ? [...studies, spec] : studies.map((x, k) => (k === at ? spec : x)) });
+    },
     setTolerance(tolerance) {
       if (!(tolerance >= 0) || !Number.isFinite(tolerance)) return;
       set({ tolerance });
@@ -454,7 +464,9 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
         return;
       }
       for (const r of get().runs) live.forget(r.id);
-      set({ ...workspace, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null, table: { columns: null, sort: null } });
+      // A file's studies are set up in their panels, not run (a study can take minutes; the panel's
+      // "Run as set up" starts it). Fields a file may leave out are cleared, not kept from before.
+      set({ ...workspace, title: workspace.title, studies: workspace.studies, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null, table: { columns: null, sort: null } });
       link.send({ type: 'run/pace', pace: workspace.pace });
       updateReference();
       launchAll();
@@ -481,12 +493,17 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   return { store, live, workspaceOf };
 }
 
-const WORKSPACE_KEYS = ['version', 'title', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace'] as const;
+const WORKSPACE_KEYS = ['version', 'title', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace', 'studies'] as const;
 
 /** The saved part of the state. */
 export function workspaceOf(s: AppState): Workspace {
-  const { version, title, surface, slice, view, display, runs, panels, tolerance, pace } = s;
-  return { version, ...(title === undefined ? {} : { title }), surface, slice, view, display, runs, panels, tolerance, pace };
+  const { version, title, surface, slice, view, display, runs, panels, tolerance, pace, studies } = s;
+  return { version, ...(title === undefined ? {} : { title }), surface, slice, view, display, runs, panels, tolerance, pace, ...(studies?.length ? { studies } : {}) };
+}
+
+/** The study a panel shows: the workspace's first of that kind. */
+export function studyOfKind<K extends StudySpec['kind']>(studies: readonly StudySpec[] | undefined, kind: K): Extract<StudySpec, { kind: K }> | null {
+  return (studies?.find((s) => s.kind === kind) as Extract<StudySpec, { kind: K }> | undefined) ?? null;
 }
 
 /** Whether any saved field changed (the store replaces objects on change, so identity suffices). */

@@ -1,10 +1,9 @@
 import {
-  buildOptimizer, cellStart, coarseToFineOrder, drawStarts, hasParameterGroups, logSpaced, lossBands, predictedStabilityLimit, refineDivergenceThreshold,
-  RunCursor, sharpnessAlong, Sweep, validateLearningRateSweep, validateMultiStart, validateStartMap,
-  type LearningRateSweepSpec, type MultiStartSpec, type OptimizerSpec, type RunOutcome, type StartMapSpec, type StopRules, type StudySpec, type Surface,
+  buildOptimizer, cellPlans, coarseToFineOrder, drawStarts, hasParameterGroups, lossBands, RunCursor, Sweep, sweepThresholds, validateMultiStart,
+  type LearningRateSweepSpec, type MultiStartSpec, type RunOutcome, type StartMapSpec, type StudySpec, type Surface, type SweepPlan,
 } from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
-import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
+import type { FromWorker, StudyCells } from '../protocol';
 import { errorText } from './runs';
 import { SLICE_MS, type Timing } from './scheduler';
 
@@ -128,14 +127,10 @@ function planWork(spec: StudySpec, surface: Surface): StudyWork {
   }
 }
 
-/** One wave: a sweep of one optimizer over some cells. */
+/** One wave: a sweep of one optimizer over some cells (engine/study/cells.ts cellPlans). */
 interface Wave {
   indices: Int32Array;
-  optimizer: OptimizerSpec;
-  stop: StopRules;
-  seed: number;
-  starts: Float64Array;
-  learningRates?: Float64Array;
+  plan: SweepPlan;
 }
 
 /** Waves run one after another on the sweep engine; a cell is reported when its run ends. */
@@ -146,7 +141,6 @@ class SweepWork implements StudyWork {
   readonly total: number;
 
   constructor(
-    private readonly surface: Surface,
     private readonly waves: Wave[],
     private readonly onFinish: () => ReturnType<StudyWork['finish']> = () => ({}),
   ) {
@@ -163,7 +157,7 @@ class SweepWork implements StudyWork {
       if (!this.sweep || this.sweep.finished) {
         if (this.wave >= this.waves.length - 1) break;
         const w = this.waves[++this.wave];
-        this.sweep = new Sweep({ surface: this.surface, optimizer: w.optimizer, stop: w.stop, seed: w.seed, starts: w.starts, learningRates: w.learningRates });
+        this.sweep = new Sweep(w.plan);
         this.reported = new Uint8Array(w.indices.length);
       }
       this.sweep.advanceFor(Math.max(1, deadline - now()), now);
@@ -188,8 +182,6 @@ class SweepWork implements StudyWork {
 
 /** A map's cells in coarse-to-fine order, cut into waves at the full grids of stride 8, 4, 2 and 1. */
 function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
-  const n = surface.dimension;
-  validateStartMap(spec, n);
   const r = spec.resolution;
   const order = coarseToFineOrder(r, r);
   const cuts = [8, 4, 2, 1].map((s) => Math.ceil(r / s) ** 2);
@@ -197,53 +189,20 @@ function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
   let from = 0;
   for (const to of cuts) {
     if (to <= from) continue;
-    const indices = order.slice(from, to);
-    const starts = new Float64Array(indices.length * n);
-    const cell = new Float64Array(n);
-    indices.forEach((c, k) => starts.set(cellStart(spec, c, cell), k * n));
-    waves.push({ indices, optimizer: spec.optimizer, stop: spec.stop, seed: spec.seed, starts });
+    waves.push(...cellPlans(spec, surface, order.slice(from, to)));
     from = to;
   }
-  return new SweepWork(surface, waves);
+  return new SweepWork(waves);
 }
 
 /**
- * Each optimizer at every rate, one wave per optimizer; at the end, per optimizer, the observed
- * divergence threshold (between the last rate before the first diverged run and that run's rate,
- * narrowed by refineDivergenceThreshold to 1e-6 relative where its stability test agrees) and the
- * prediction from the largest Hessian eigenvalue at the start.
+ * Each optimizer at every rate, one wave per optimizer; at the end, per optimizer, the observed and
+ * predicted divergence thresholds (engine/study/thresholds.ts).
  */
 function learningRateWork(spec: LearningRateSweepSpec, surface: Surface): StudyWork {
-  const n = surface.dimension;
-  validateLearningRateSweep(spec, n);
-  spec.optimizers.forEach((o) => buildOptimizer(o.spec));
-  const rates = logSpaced(spec.range[0], spec.range[1], spec.count);
-  const starts = new Float64Array(spec.count * n);
-  for (let k = 0; k < spec.count; k++) starts.set(spec.start, k * n);
-  const waves: Wave[] = spec.optimizers.map((o, q) => ({
-    indices: Int32Array.from({ length: spec.count }, (_, k) => q * spec.count + k), optimizer: o.spec, stop: spec.stop, seed: spec.seed, starts, learningRates: rates,
-  }));
+  const waves: Wave[] = cellPlans(spec, surface, Int32Array.from({ length: spec.optimizers.length * spec.count }, (_, c) => c));
   const outcomes: (RunOutcome | undefined)[] = [];
-  const work = new SweepWork(surface, waves, () => {
-    const lambdaMax = sharpnessAlong(surface, Float64Array.from(spec.start), 1)[0];
-    const thresholds: StudyThreshold[] = spec.optimizers.map((o, q) => {
-      const predicted = predictedStabilityLimit(o.spec, lambdaMax);
-      const first = rates.findIndex((_, k) => outcomes[q * spec.count + k]?.kind === 'diverged');
-      if (first <= 0) return { lambdaMax, predicted, observed: null };
-      let lo = rates[first - 1];
-      let hi = rates[first];
-      let refined = false;
-      try {
-        const r = refineDivergenceThreshold({ surface, optimizer: o.spec, start: spec.start, seed: spec.seed, steps: Math.min(spec.stop.maxSteps, 2000) }, lo, hi, { relativeTolerance: 1e-6 });
-        [lo, hi, refined] = [r.lo, r.hi, true];
-      } catch {
-        // The refinement's own stability test disagrees with the sweep at the bracket's ends (e.g. a run
-        // that diverges only after more steps than a trial takes): keep the sweep's bracket, unrefined.
-      }
-      return { lambdaMax, predicted, observed: { lo, hi, refined } };
-    });
-    return { thresholds };
-  });
+  const work = new SweepWork(waves, () => ({ thresholds: sweepThresholds(spec, surface, outcomes) }));
   const run = work.run.bind(work);
   work.run = (deadline, now) => {
     const cells = run(deadline, now);

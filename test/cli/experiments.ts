@@ -2,6 +2,7 @@
 import { defaultOptimizerSpec, type OptimizerKind } from '../../src/engine';
 import type { Workspace } from '../../src/io/experiment/types';
 import { demoWorkspace } from '../../src/store/demo';
+import { everyStudy } from '../study-examples';
 
 /** Seven runs of five optimizers on Himmelblau's function: enough to split unevenly into shards. */
 export function sweepExperiment(): Workspace {
@@ -37,4 +38,10 @@ export function slowExperiment(): Workspace {
     { ...w.runs[1], settings: { ...w.runs[1].settings, stop: { maxSteps: 1_000_000 } } },
   ];
   return w;
+}
+
+/** Two quick runs and one study of each kind on Himmelblau's function (test/study-examples.ts). */
+export function studyExperiment(): Workspace {
+  const w = sweepExperiment();
+  return { ...w, version: 3, title: 'Himmelblau studies', runs: w.runs.slice(0, 2), studies: everyStudy() };
 }

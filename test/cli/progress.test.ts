@@ -64,3 +64,22 @@ describe('shards', () => {
     expect(() => parseShard(text)).toThrow(message);
   });
 });
+
+describe('progress of studies', () => {
+  it('counts study runs in the total: a line per finished piece, a JSON event with the study\'s own count', () => {
+    const plain = sinks();
+    const p = createProgress('lines', 5, plain.sinks, () => 0);
+    p.runDone(line('a'));
+    p.cellsDone(0, 'start-map', 3, 3, 4);
+    expect(plain.out.stderr).toBe('run 1/5 a (run a): converged at step 12\nstudy 0 (start-map): 3/4 runs\n');
+    let t = 0;
+    const json = sinks();
+    const q = createProgress('json', 5, json.sinks, () => t);
+    t = 1000;
+    q.cellsDone(1, 'lr-sweep', 4, 4, 4);
+    q.finish();
+    const events = json.out.stdout.trim().split('\n').map((l) => JSON.parse(l));
+    expect(events[1]).toEqual({ event: 'study', study: 1, kind: 'lr-sweep', done: 4, total: 4, runsPerSecond: 4, etaSeconds: 0.25 });
+    expect(events[2]).toMatchObject({ event: 'finish', done: 4, total: 5 });
+  });
+});

@@ -1,4 +1,5 @@
 import type { OptimizerSpec } from '../optim/spec';
+import { SettingError } from '../optim/types';
 import type { StopRules } from '../run';
 import type { StartDistribution } from './starts';
 import type { StartMapSpec } from './start-map';
@@ -43,16 +44,17 @@ export const MAX_SWEEP_RATES = 1024;
 /** Every study kind; each is plain data and goes into the experiment file as it is. */
 export type StudySpec = StartMapSpec | MultiStartSpec | LearningRateSweepSpec;
 
+/** The validators below throw a SettingError naming the spec's field ('range', 'box.a', ...). */
 export function validateLearningRateSweep(spec: LearningRateSweepSpec, dimension: number): void {
   const [lo, hi] = spec.range;
-  if (!(lo > 0 && hi > lo && Number.isFinite(hi))) throw new RangeError(`learning-rate sweep: range must satisfy 0 < low < high (finite), got [${lo}, ${hi}]`);
+  if (!(lo > 0 && hi > lo && Number.isFinite(hi))) throw new SettingError('range', `learning-rate sweep: range must satisfy 0 < low < high (finite), got [${lo}, ${hi}]`);
   if (!Number.isInteger(spec.count) || spec.count < 2 || spec.count > MAX_SWEEP_RATES)
-    throw new RangeError(`learning-rate sweep: count must be a whole number from 2 to ${MAX_SWEEP_RATES}, got ${spec.count}`);
-  if (spec.optimizers.length < 1) throw new RangeError('learning-rate sweep: choose at least one optimizer');
-  if (spec.start.length !== dimension) throw new RangeError(`learning-rate sweep: start must have ${dimension} coordinates, got ${spec.start.length}`);
+    throw new SettingError('count', `learning-rate sweep: count must be a whole number from 2 to ${MAX_SWEEP_RATES}, got ${spec.count}`);
+  if (spec.optimizers.length < 1) throw new SettingError('optimizers', 'learning-rate sweep: choose at least one optimizer');
+  if (spec.start.length !== dimension) throw new SettingError('start', `learning-rate sweep: start must have ${dimension} coordinates, got ${spec.start.length}`);
 }
 
 export function validateMultiStart(spec: MultiStartSpec): void {
   if (!Number.isInteger(spec.count) || spec.count < 1 || spec.count > MAX_MULTI_STARTS)
-    throw new RangeError(`multi-start: count must be a whole number from 1 to ${MAX_MULTI_STARTS}, got ${spec.count}`);
+    throw new SettingError('count', `multi-start: count must be a whole number from 1 to ${MAX_MULTI_STARTS}, got ${spec.count}`);
 }

@@ -1,4 +1,5 @@
 import type { OptimizerSpec } from '../optim/spec';
+import { SettingError } from '../optim/types';
 import type { StopRules } from '../run';
 import { gridCellStart } from '../sweep/grid';
 
@@ -26,13 +27,13 @@ export const START_MAP_RESOLUTIONS = [16, 32, 64, 128, 256, 512] as const;
 
 export function validateStartMap(spec: StartMapSpec, dimension: number): void {
   const r = spec.resolution;
-  if (!Number.isInteger(r) || r < 16 || r > 512) throw new RangeError(`start-point map: resolution must be a whole number from 16 to 512, got ${r}`);
-  if (spec.base.length !== dimension) throw new RangeError(`start-point map: base must have ${dimension} coordinates, got ${spec.base.length}`);
+  if (!Number.isInteger(r) || r < 16 || r > 512) throw new SettingError('resolution', `start-point map: resolution must be a whole number from 16 to 512, got ${r}`);
+  if (spec.base.length !== dimension) throw new SettingError('base', `start-point map: base must have ${dimension} coordinates, got ${spec.base.length}`);
   const [p, q] = spec.axes;
   if (!(Number.isInteger(p) && Number.isInteger(q) && p >= 0 && q >= 0 && p < dimension && q < dimension && p !== q))
-    throw new RangeError(`start-point map: axes must be two different parameter indices below ${dimension}, got [${p}, ${q}]`);
+    throw new SettingError('axes', `start-point map: axes must be two different parameter indices below ${dimension}, got [${p}, ${q}]`);
   for (const [name, [lo, hi]] of [['a', spec.box.a], ['b', spec.box.b]] as const)
-    if (!(Number.isFinite(lo) && Number.isFinite(hi) && lo < hi)) throw new RangeError(`start-point map: box.${name} must be finite with lo < hi, got [${lo}, ${hi}]`);
+    if (!(Number.isFinite(lo) && Number.isFinite(hi) && lo < hi)) throw new SettingError(`box.${name}`, `start-point map: box.${name} must be finite with lo < hi, got [${lo}, ${hi}]`);
 }
 
 /** The start of cell `index` (full coordinates), written into `out`. */

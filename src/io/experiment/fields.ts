@@ -5,7 +5,7 @@
  * Every object is strict: an unknown field is an error naming its path, never silently dropped.
  */
 import { z } from 'zod';
-import { MAX_FORMULA_LENGTH, MAX_RULE_LENGTH, OPTIMIZERS, type OptimizerKind } from '../../engine';
+import { MAX_FORMULA_LENGTH, MAX_MULTI_STARTS, MAX_RULE_LENGTH, MAX_SWEEP_RATES, OPTIMIZERS, type OptimizerKind } from '../../engine';
 import { SURFACE_KINDS, type SurfaceSpecKind } from '../../problems';
 
 export const finite = z.number().refine(Number.isFinite, 'must be a finite number');
@@ -55,6 +55,15 @@ export const optimizerSpec = z.strictObject({
   rule: z.strictObject({ name: z.string().min(1).max(200), text: z.string().max(MAX_RULE_LENGTH) }).optional(),
 });
 
+export const stopRules = z.strictObject({
+  maxSteps: z.number().int().min(1),
+  lossChangeTolerance: finite.optional(),
+  lossChangePatience: z.number().int().min(1).optional(),
+  gradientNormTolerance: finite.optional(),
+  blowUpFactor: finite.optional(),
+  stationarityTolerance: finite.optional(),
+});
+
 export const runConfig = z.strictObject({
   id: z.string().min(1),
   label: z.string().max(200),
@@ -64,14 +73,7 @@ export const runConfig = z.strictObject({
     seed: finite,
     gradientNoise: finite.optional(),
     minibatch: z.strictObject({ size: z.number().int().min(1) }).optional(),
-    stop: z.strictObject({
-      maxSteps: z.number().int().min(1),
-      lossChangeTolerance: finite.optional(),
-      lossChangePatience: z.number().int().min(1).optional(),
-      gradientNormTolerance: finite.optional(),
-      blowUpFactor: finite.optional(),
-      stationarityTolerance: finite.optional(),
-    }),
+    stop: stopRules,
   }),
   style: z.number().int().min(0),
   hidden: z.boolean().optional(),
@@ -112,6 +114,54 @@ export const panels = z.strictObject({
 });
 
 export const MAX_RUNS = 200;
+
+/**
+ * The studies (engine/study/spec.ts StudySpec), one shape per kind. Limits that need no surface are
+ * checked here; the rest (coordinates per variable, axes below the dimension, the optimizer's
+ * settings, the start distribution) by meaning.ts through the engine's own validators.
+ */
+const whole = z.number().int();
+const startMapStudy = z.strictObject({
+  kind: z.literal('start-map'),
+  optimizer: optimizerSpec,
+  stop: stopRules,
+  seed: finite,
+  box: z.strictObject({ a: range, b: range }),
+  axes: z.tuple([whole.min(0), whole.min(0)]),
+  base: z.array(finite).min(1),
+  resolution: whole.min(16).max(512),
+});
+
+const startDistribution = z.discriminatedUnion('kind', [
+  z.strictObject({ kind: z.literal('uniform'), box: z.array(range).min(1) }),
+  z.strictObject({ kind: z.literal('gaussian'), centre: z.array(finite).min(1), sd: z.union([finite, z.array(finite).min(1)]) }),
+  z.strictObject({ kind: z.literal('glorot') }),
+  z.strictObject({ kind: z.literal('he') }),
+]);
+
+const multiStartStudy = z.strictObject({
+  kind: z.literal('multi-start'),
+  optimizer: optimizerSpec,
+  stop: stopRules,
+  seed: finite,
+  distribution: startDistribution,
+  count: whole.min(1).max(MAX_MULTI_STARTS),
+  startSeed: finite,
+});
+
+const learningRateStudy = z.strictObject({
+  kind: z.literal('lr-sweep'),
+  optimizers: z.array(z.strictObject({ label: z.string().max(200), spec: optimizerSpec })).min(1).max(MAX_RUNS),
+  stop: stopRules,
+  seed: finite,
+  start: z.array(finite).min(1),
+  range: z.tuple([finite, finite]),
+  count: whole.min(2).max(MAX_SWEEP_RATES),
+});
+
+export const studySpec = z.discriminatedUnion('kind', [startMapStudy, multiStartStudy, learningRateStudy]);
+
+export const MAX_STUDIES = 20;
 
 /** The fields every version so far shares (a version adds its own `version` and any new fields). */
 export const workspaceFields = {

@@ -1,9 +1,11 @@
 /**
  * Checks that need the engine, after the schema has passed: the formula parses (errors placed at their
- * line and column in the file), the surface builds, run ids are distinct, and each run's optimizer and
- * settings are accepted by the engine (the start point has one coordinate per variable, and so on).
+ * line and column in the file), the surface builds, run ids are distinct, each run's optimizer and
+ * settings are accepted by the engine (the start point has one coordinate per variable, and so on), and
+ * so is each study (engine/study validateStudy; its SettingError's field, such as 'box.a' or
+ * 'optimizers.1.spec.learningRate', becomes the path under `$.studies[k]`).
  */
-import { buildOptimizer, parseFormula, RunCursor, SettingError, type Surface } from '../../engine';
+import { buildOptimizer, parseFormula, RunCursor, SettingError, validateStudy, type Surface } from '../../engine';
 import { buildSurface } from '../../problems';
 import { offsetInString, valueOffset } from './json-locator';
 import { located, type FileProblem } from './problems';
@@ -42,7 +44,27 @@ export function checkMeaning(experiment: Experiment, text?: string): FileProblem
       problems.push(located(where, errorText(e), text));
     }
   });
+  (experiment.studies ?? []).forEach((study, k) => {
+    try {
+      validateStudy(study, surface);
+    } catch (e) {
+      const field = e instanceof SettingError ? e.field.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p)) : study.kind === 'multi-start' ? ['distribution'] : [];
+      problems.push(located(['studies', k, ...presentPart(study, field)], errorText(e), text));
+    }
+  });
   return problems;
+}
+
+/** The longest start of `path` that names a value present in `value` (a message's field may be a default left out of the file). */
+function presentPart(value: unknown, path: readonly (string | number)[]): (string | number)[] {
+  const out: (string | number)[] = [];
+  let node = value;
+  for (const key of path) {
+    if (node === null || typeof node !== 'object' || !Object.hasOwn(node, key)) break;
+    node = (node as Record<string | number, unknown>)[key];
+    out.push(key);
+  }
+  return out;
 }
 
 function errorText(e: unknown): string {

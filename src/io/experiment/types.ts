@@ -2,7 +2,7 @@
  * The experiment file's contents as types: the page's saved workspace, the command line's input.
  * The schema (versions.ts) describes the same shape for untrusted input; what passes it is typed as these.
  */
-import type { OptimizerKind, OptimizerSpec, RunSettings } from '../../engine';
+import type { OptimizerKind, OptimizerSpec, RunSettings, StudySpec } from '../../engine';
 import type { SurfaceSpec } from '../../problems';
 
 /** The plotted box in slice coordinates: a along the first axis, b along the second. */
@@ -33,6 +33,11 @@ export interface Workspace {
   /** The run table's "steps to within tolerance of the minimum" uses this. */
   tolerance: number;
   pace: Pace;
+  /**
+   * The studies set up on the page (one per study panel) or written into the file: plain data, run by
+   * the page's study panels on request and by `fall run` (one CSV per study). Absent: none.
+   */
+  studies?: StudySpec[];
 }
 
 export interface SliceSettings {

@@ -7,11 +7,13 @@
  *   2  adds an optional `$schema` (the JSON Schema address, for editors) and `title` (a name for the
  *      experiment, carried into the command line's summary.json); fields otherwise as in version 1.
  *   3  optimizer option values say what they compute instead of naming a library or paper (the table
- *      in renamed-options.ts; older files are rewritten with it), and `display.equalScale` (optional:
- *      equal x and y units per pixel on the map; absent, on for two-variable test functions).
+ *      in renamed-options.ts; older files are rewritten with it), `display.equalScale` (optional:
+ *      equal x and y units per pixel on the map; absent, on for two-variable test functions), and an
+ *      optional `studies` list (start-point maps, multi-start, learning-rate sweeps as plain data,
+ *      engine/study/spec.ts), run by the page's study panels and by `fall run`.
  */
 import { z } from 'zod';
-import { display, workspaceFields } from './fields';
+import { display, MAX_STUDIES, studySpec, workspaceFields } from './fields';
 import { renameOptionValues } from './renamed-options';
 import type { Workspace } from './types';
 
@@ -32,6 +34,7 @@ export const experimentSchema = z.strictObject({
   title: z.string().max(200).optional(),
   ...workspaceFields,
   display: display.extend({ equalScale: z.boolean().optional() }),
+  studies: z.array(studySpec).max(MAX_STUDIES).optional(),
 });
 
 /** A file that passed the current schema: the workspace, plus the editor hint `$schema`. */

@@ -1,8 +1,9 @@
 import { useShownView } from '../view/use-shown-view';
 import { useEffect, useRef, useState } from 'react';
 import { drawStarts, hasParameterGroups, summariseStarts, type MultiStartSpec, type StartDistribution, type StartResult } from '../../engine';
-import { studyCsv } from '../../io/study-csv';
-import { useApp } from '../app-context';
+import { STUDY_CSV, studyCsv, studyRows } from '../../io/study-csv';
+import { studyOfKind } from '../../store/app-store';
+import { useActions, useApp } from '../app-context';
 import { chooseLossAxis } from '../chart/loss-chart';
 import { download } from '../export/download';
 import { useMainThreadSurface } from '../view/use-surface';
@@ -16,7 +17,9 @@ type DistributionChoice = 'uniform' | 'gaussian' | 'glorot' | 'he';
 
 /**
  * Multi-start: N seeded starts of the selected run's configuration; success rate, final-loss spread,
- * steps to tolerance, outcomes, and the median and quartile band of the loss across starts.
+ * steps to tolerance, outcomes, and the median and quartile band of the loss across starts. The study
+ * last started here, or opened from a file, is the workspace's set-up multi-start (saved in the
+ * experiment file, with this panel's current settings); "Run as set up" runs it exactly as written.
  */
 export function MultiStartPanel() {
   const study = useStudyStore();
@@ -28,10 +31,21 @@ export function MultiStartPanel() {
   const view = useShownView();
   const tolerance = useApp((s) => s.tolerance);
   const surface = useMainThreadSurface(surfaceSpec);
-  const [choice, setChoice] = useState<DistributionChoice>('uniform');
-  const [count, setCount] = useState(100);
-  const [sd, setSd] = useState(0.5);
-  const [startSeed, setStartSeed] = useState(1);
+  // The surface the shown study ran on (the page's may have changed since).
+  const studySurface = useMainThreadSurface(all.surface ?? surfaceSpec);
+  const actions = useActions();
+  const setUp = useApp((s) => studyOfKind(s.studies, 'multi-start'));
+  const [choice, setChoice] = useState<DistributionChoice>(setUp?.distribution.kind ?? 'uniform');
+  const [count, setCount] = useState(setUp?.count ?? 100);
+  const [sd, setSd] = useState(setUp?.distribution.kind === 'gaussian' && typeof setUp.distribution.sd === 'number' ? setUp.distribution.sd : 0.5);
+  const [startSeed, setStartSeed] = useState(setUp?.startSeed ?? 1);
+  useEffect(() => {
+    if (!setUp) return;
+    setChoice(setUp.distribution.kind);
+    setCount(setUp.count);
+    setStartSeed(setUp.startSeed);
+    if (setUp.distribution.kind === 'gaussian' && typeof setUp.distribution.sd === 'number') setSd(setUp.distribution.sd);
+  }, [setUp]);
   const canvas = useRef<HTMLCanvasElement>(null);
   const body = useRef<HTMLDivElement>(null);
   const config = runs.find((r) => r.id === selected) ?? runs[0];
@@ -40,10 +54,14 @@ export function MultiStartPanel() {
   const spec = mine ? (all.spec as MultiStartSpec) : null;
   const knownMinimum = info.knownPoints.filter((p) => p.kind === 'global-min').reduce<number | null>((m, p) => (m === null ? p.value : Math.min(m, p.value)), null);
 
-  const distribution = (): StartDistribution => {
-    if (choice === 'uniform') return { kind: 'uniform', box: info.view.map(([lo, hi]) => [lo, hi] as [number, number]) };
-    if (choice === 'gaussian') return { kind: 'gaussian', centre: config!.settings.start.slice(), sd };
-    return { kind: choice };
+  const distribution = (kind = choice, spread = sd): StartDistribution => {
+    if (kind === 'uniform') return { kind: 'uniform', box: info.view.map(([lo, hi]) => [lo, hi] as [number, number]) };
+    if (kind === 'gaussian') return { kind: 'gaussian', centre: setUp?.distribution.kind === 'gaussian' && !config ? setUp.distribution.centre : config!.settings.start.slice(), sd: spread };
+    return { kind };
+  };
+  /** A changed setting also changes the set-up study, so the saved experiment has the panel's settings. */
+  const patch = (p: Partial<MultiStartSpec>) => {
+    if (setUp) actions.setStudy({ ...setUp, ...p });
   };
   let problem: string | null = !config ? 'Add a run first: the starts use its optimizer and stop rules.' : null;
   if (!problem && surface) {
@@ -58,7 +76,11 @@ export function MultiStartPanel() {
   const start = () => {
     if (!config || problem) return;
     const s: MultiStartSpec = { kind: 'multi-start', optimizer: config.optimizer, stop: config.settings.stop, seed: config.settings.seed, distribution: distribution(), count, startSeed };
+    actions.setStudy(s);
     study.start({ surface: surfaceSpec, variables: info.variables, spec: s, configLabel: config.label, known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view) });
+  };
+  const runSetUp = () => {
+    if (setUp) study.start({ surface: surfaceSpec, variables: info.variables, spec: setUp, configLabel: 'the set-up starts', known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view) });
   };
 
   const results: StartResult[] = [];
@@ -81,20 +103,10 @@ export function MultiStartPanel() {
   }, [mine, all.bands, knownMinimum]);
 
   const exportCsv = () => {
-    if (!spec || !all.cells) return;
-    const n = all.variables.length;
-    const starts = drawStarts(spec.distribution, n, spec.count, spec.startSeed, surface && hasParameterGroups(surface) ? surface.parameterGroups : undefined);
-    const rows = [];
-    for (let c = 0; c < all.cells.filled.length; c++) {
-      const outcome = all.cells.outcomes[c];
-      if (!all.cells.filled[c] || !outcome) continue;
-      rows.push({
-        index: c, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: starts.subarray(c * n, (c + 1) * n), outcome,
-        steps: all.cells.steps[c], finalLoss: all.cells.loss[c], endPoint: all.cells.endPoints.subarray(c * n, (c + 1) * n),
-        basin: all.cells.basin[c] >= 0 ? all.basinLabels[all.cells.basin[c]] : null, stepsToTolerance: null,
-      });
-    }
-    download('fall-line-multi-start.csv', studyCsv('multi-start', all.variables, rows), 'text/csv');
+    const cells = all.cells;
+    if (!spec || !cells || !studySurface) return;
+    const rows = studyRows(spec, studySurface, cells, (c) => (cells.basin[c] >= 0 ? all.basinLabels[cells.basin[c]] : null));
+    download(`${STUDY_CSV['multi-start'].file}.csv`, studyCsv(STUDY_CSV['multi-start'].name, all.variables, rows), 'text/csv');
   };
 
   const pct = (v: number) => `${(100 * v).toFixed(1)}%`;
@@ -108,7 +120,14 @@ export function MultiStartPanel() {
       <div className="study-controls">
         <label>
           starts from{' '}
-          <select value={choice} onChange={(e) => setChoice(e.target.value as DistributionChoice)}>
+          <select
+            value={choice}
+            onChange={(e) => {
+              const kind = e.target.value as DistributionChoice;
+              setChoice(kind);
+              if (config || kind !== 'gaussian') patch({ distribution: distribution(kind) });
+            }}
+          >
             <option value="uniform">uniform over the surface's box</option>
             <option value="gaussian">Gaussian around the run's start</option>
             {network && <option value="glorot">Glorot uniform (network weights)</option>}
@@ -117,20 +136,32 @@ export function MultiStartPanel() {
         </label>
         {choice === 'gaussian' && (
           <label>
-            standard deviation <input type="number" value={sd} step="any" min={0} onChange={(e) => setSd(Number(e.target.value))} style={{ width: '5rem' }} />
+            standard deviation <input type="number" value={sd} step="any" min={0} onChange={(e) => {
+              setSd(Number(e.target.value));
+              const v = Number(e.target.value);
+              if (setUp?.distribution.kind === 'gaussian' && v >= 0 && Number.isFinite(v)) patch({ distribution: { ...setUp.distribution, sd: v } });
+            }} style={{ width: '5rem' }} />
           </label>
         )}
         <label>
-          number of starts <input type="number" value={count} min={1} max={10000} onChange={(e) => setCount(Number(e.target.value))} style={{ width: '5rem' }} />
+          number of starts <input type="number" value={count} min={1} max={10000} onChange={(e) => {
+              setCount(Number(e.target.value));
+              const v = Number(e.target.value);
+              if (Number.isInteger(v) && v >= 1 && v <= 10_000) patch({ count: v });
+            }} style={{ width: '5rem' }} />
         </label>
         <label>
-          seed of the starts <input type="number" value={startSeed} onChange={(e) => setStartSeed(Number(e.target.value))} style={{ width: '4rem' }} />
+          seed of the starts <input type="number" value={startSeed} onChange={(e) => {
+              setStartSeed(Number(e.target.value));
+              if (Number.isFinite(Number(e.target.value))) patch({ startSeed: Number(e.target.value) });
+            }} style={{ width: '4rem' }} />
         </label>
         {mine && all.status === 'running' ? (
           <button type="button" onClick={() => study.cancel()}>Cancel starts</button>
         ) : (
           <button type="button" onClick={start} disabled={!!problem}>Run starts</button>
         )}
+        {setUp && !(mine && all.status === 'running') && <button type="button" onClick={runSetUp} data-testid="multi-start-run-set-up">Run as set up</button>}
         <button type="button" onClick={exportCsv} disabled={!mine || !all.cells || all.done === 0}>Starts CSV</button>
         <FigureExport
           name="Multi-start" fileName="fall-line-multi-start" disabled={!mine || !all.bands || !summary} screenSize={() => sizeOf(body.current)}
@@ -143,6 +174,11 @@ export function MultiStartPanel() {
           </span>
         )}
       </div>
+      {setUp && (
+        <p className="study-help" data-testid="multi-start-set-up">
+          Set up (saved with the experiment): {setUp.count} starts, {setUp.distribution.kind} (seed {setUp.startSeed}); {setUp.optimizer.kind} at learning rate {String(+setUp.optimizer.learningRate.toPrecision(4))}, at most {setUp.stop.maxSteps} steps
+        </p>
+      )}
       {problem && <p className="field-error">{problem}</p>}
       {mine && all.message && <p className="field-error" role="alert">{all.message}</p>}
       {summary && (

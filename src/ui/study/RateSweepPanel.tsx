@@ -1,8 +1,10 @@
 import { useEffect, useRef, useState } from 'react';
 import { logSpaced, OUTCOME_KINDS, type LearningRateSweepSpec } from '../../engine';
-import { studyCsv } from '../../io/study-csv';
-import { useApp } from '../app-context';
+import { STUDY_CSV, studyCsv, studyRows } from '../../io/study-csv';
+import { studyOfKind } from '../../store/app-store';
+import { useActions, useApp } from '../app-context';
 import { download } from '../export/download';
+import { useMainThreadSurface } from '../view/use-surface';
 import { runStyle } from '../plot';
 import { drawRateChart, type RateCurve } from './rate-chart';
 import { useStudy, useStudyStore } from './study-context';
@@ -15,7 +17,9 @@ const fmt = (v: number) => String(+v.toPrecision(4));
 /**
  * Learning-rate sweep: chosen runs' optimizers at log-spaced learning rates from one start; final loss
  * against learning rate, the observed divergence threshold (refined by bisection) and, for gradient
- * descent and heavy-ball momentum, the threshold predicted from the Hessian at the start.
+ * descent and heavy-ball momentum, the threshold predicted from the Hessian at the start. The sweep
+ * last started here, or opened from a file, is the workspace's set-up sweep (saved in the experiment
+ * file, with this panel's current range and count); "Run as set up" runs it exactly as written.
  */
 export function RateSweepPanel() {
   const study = useStudyStore();
@@ -24,9 +28,27 @@ export function RateSweepPanel() {
   const selected = useApp((s) => s.selectedRunId);
   const surface = useApp((s) => s.surface);
   const info = useApp((s) => s.surfaceInfo);
+  const studySurface = useMainThreadSurface(all.surface ?? surface);
   const [chosen, setChosen] = useState<string[]>(() => runs.slice(0, 3).map((r) => r.id));
-  const [range, setRange] = useState<[number, number]>([1e-4, 1]);
-  const [count, setCount] = useState(64);
+  const actions = useActions();
+  const setUp = useApp((s) => studyOfKind(s.studies, 'lr-sweep'));
+  const [range, setRangeState] = useState<[number, number]>(setUp?.range ?? [1e-4, 1]);
+  const [count, setCountState] = useState(setUp?.count ?? 64);
+  useEffect(() => {
+    if (!setUp) return;
+    setRangeState(setUp.range);
+    setCountState(setUp.count);
+  }, [setUp]);
+  /** A changed range or count also changes the set-up sweep, so the saved experiment has the panel's settings. */
+  const setRange = (r: [number, number]) => {
+    setRangeState(r);
+    if (setUp && r[0] > 0 && r[1] > r[0] && Number.isFinite(r[1])) actions.setStudy({ ...setUp, range: r });
+  };
+  const setCount = (c: number) => {
+    setCountState(c);
+    if (setUp) actions.setStudy({ ...setUp, count: c });
+  };
+  const counts = COUNTS.includes(count as never) ? COUNTS : [...COUNTS, count].sort((x, y) => x - y);
   const canvas = useRef<HTMLCanvasElement>(null);
   const body = useRef<HTMLDivElement>(null);
   const startRun = runs.find((r) => r.id === selected) ?? runs[0];
@@ -41,7 +63,11 @@ export function RateSweepPanel() {
       kind: 'lr-sweep', optimizers: picked.map((r) => ({ label: r.label, spec: r.optimizer })), stop: startRun.settings.stop, seed: startRun.settings.seed,
       start: startRun.settings.start.slice(), range, count,
     };
+    actions.setStudy(s);
     study.start({ surface, variables: info.variables, spec: s, configLabel: startRun.label, known: [], basinRadius: 1 });
+  };
+  const runSetUp = () => {
+    if (setUp) study.start({ surface, variables: info.variables, spec: setUp, configLabel: 'the set-up sweep', known: [], basinRadius: 1 });
   };
 
   const rates = spec ? logSpaced(spec.range[0], spec.range[1], spec.count) : null;
@@ -70,19 +96,10 @@ export function RateSweepPanel() {
   });
 
   const exportCsv = () => {
-    if (!spec || !all.cells || !rates) return;
-    const n = all.variables.length;
-    const rows = [];
-    for (let c = 0; c < all.cells.filled.length; c++) {
-      const outcome = all.cells.outcomes[c];
-      if (!all.cells.filled[c] || !outcome) continue;
-      const q = Math.floor(c / spec.count);
-      rows.push({
-        index: c, optimizer: spec.optimizers[q].label, learningRate: rates[c % spec.count], start: spec.start, outcome,
-        steps: all.cells.steps[c], finalLoss: all.cells.loss[c], endPoint: all.cells.endPoints.subarray(c * n, (c + 1) * n), basin: null, stepsToTolerance: null,
-      });
-    }
-    download('fall-line-learning-rates.csv', studyCsv('learning-rate sweep', all.variables, rows), 'text/csv');
+    const cells = all.cells;
+    if (!spec || !cells || !studySurface) return;
+    const rows = studyRows(spec, studySurface, cells, () => null);
+    download(`${STUDY_CSV['lr-sweep'].file}.csv`, studyCsv(STUDY_CSV['lr-sweep'].name, all.variables, rows), 'text/csv');
   };
 
   return (
@@ -109,7 +126,7 @@ export function RateSweepPanel() {
         <label>
           rates{' '}
           <select value={count} onChange={(e) => setCount(Number(e.target.value))}>
-            {COUNTS.map((c) => <option key={c} value={c}>{c}</option>)}
+            {counts.map((c) => <option key={c} value={c}>{c}</option>)}
           </select>
         </label>
         {mine && all.status === 'running' ? (
@@ -117,6 +134,7 @@ export function RateSweepPanel() {
         ) : (
           <button type="button" onClick={start} disabled={!!problem}>Sweep learning rates</button>
         )}
+        {setUp && !(mine && all.status === 'running') && <button type="button" onClick={runSetUp} data-testid="rate-sweep-run-set-up">Run as set up</button>}
         <button type="button" onClick={exportCsv} disabled={!mine || !all.cells || all.done === 0}>Sweep CSV</button>
         <FigureExport
           name="Learning-rate sweep" fileName="fall-line-learning-rates" disabled={!mine || !curves.length || all.done === 0} screenSize={() => sizeOf(body.current)}
@@ -129,6 +147,11 @@ export function RateSweepPanel() {
           </span>
         )}
       </div>
+      {setUp && (
+        <p className="study-help" data-testid="rate-sweep-set-up">
+          Set up (saved with the experiment): {setUp.optimizers.map((o) => o.label).join(', ')} at {setUp.count} rates from {fmt(setUp.range[0])} to {fmt(setUp.range[1])}, from ({setUp.start.map(fmt).join(', ')}), at most {setUp.stop.maxSteps} steps
+        </p>
+      )}
       {problem && <p className="field-error">{problem}</p>}
       {mine && all.message && <p className="field-error" role="alert">{all.message}</p>}
       {mine && (

@@ -1,9 +1,11 @@
 import { useShownView } from '../view/use-shown-view';
 import { useEffect, useRef, useState } from 'react';
 import { cellStart, OUTCOME_KINDS, START_MAP_RESOLUTIONS, type StartMapSpec } from '../../engine';
-import { studyCsv } from '../../io/study-csv';
+import { STUDY_CSV, studyCsv, studyRows } from '../../io/study-csv';
+import { studyOfKind } from '../../store/app-store';
 import { useActions, useApp } from '../app-context';
 import { download } from '../export/download';
+import { useMainThreadSurface } from '../view/use-surface';
 import { mapLegend, paintStartMap } from './paint-map';
 import { drawMapCells, drawMapMinima } from './start-map-drawing';
 import { basinColour, cssColour, OUTCOME_COLOURS } from './study-colours';
@@ -18,7 +20,9 @@ const fmt = (v: number) => String(+v.toPrecision(4));
 /**
  * Start-point map: the selected run's configuration (or the first run's) started from every cell of
  * the current view, each cell coloured by where its run ended. Clicking a cell opens that run as an
- * ordinary run.
+ * ordinary run. The map last started here, or opened from a file, is the workspace's set-up map
+ * (saved in the experiment file, with this panel's current number of cells); "Run as set up" runs it
+ * exactly as written.
  */
 export function StartMapPanel() {
   const study = useStudyStore();
@@ -35,7 +39,17 @@ export function StartMapPanel() {
   const surface = useApp((s) => s.surface);
   const info = useApp((s) => s.surfaceInfo);
   const actions = useActions();
-  const [resolution, setResolution] = useState(64);
+  const builtSurface = useMainThreadSurface(state.surface ?? surface);
+  const setUp = useApp((s) => studyOfKind(s.studies, 'start-map'));
+  const [resolution, setResolution] = useState(setUp?.resolution ?? 64);
+  useEffect(() => {
+    if (setUp) setResolution(setUp.resolution);
+  }, [setUp]);
+  const changeResolution = (r: number) => {
+    setResolution(r);
+    if (setUp) actions.setStudy({ ...setUp, resolution: r });
+  };
+  const resolutions = START_MAP_RESOLUTIONS.includes(resolution as never) ? START_MAP_RESOLUTIONS : [...START_MAP_RESOLUTIONS, resolution].sort((x, y) => x - y);
   const canvas = useRef<HTMLCanvasElement>(null);
   const body = useRef<HTMLDivElement>(null);
   const config = runs.find((r) => r.id === selected) ?? runs[0];
@@ -48,7 +62,12 @@ export function StartMapPanel() {
       kind: 'start-map', optimizer: config.optimizer, stop: config.settings.stop, seed: config.settings.seed,
       box: { a: [view.a[0], view.a[1]], b: [view.b[0], view.b[1]] }, axes: slice.axes, base: slice.at.slice(), resolution,
     };
+    actions.setStudy(spec);
     study.start({ surface, variables: info.variables, spec, configLabel: config.label, known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view) });
+  };
+  const runSetUp = () => {
+    if (!setUp) return;
+    study.start({ surface, variables: info.variables, spec: setUp, configLabel: 'the set-up map', known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(setUp.box) });
   };
 
   useEffect(() => {
@@ -78,19 +97,9 @@ export function StartMapPanel() {
 
   const exportCsv = () => {
     const { cells, spec, variables } = state;
-    if (!cells || !spec) return;
-    const rows = [];
-    for (let c = 0; c < cells.filled.length; c++) {
-      const outcome = cells.outcomes[c];
-      if (!cells.filled[c] || !outcome) continue;
-      const n = variables.length;
-      rows.push({
-        index: c, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: cellStart(spec, c, new Float64Array(n)), outcome,
-        steps: cells.steps[c], finalLoss: cells.loss[c], endPoint: cells.endPoints.subarray(c * n, (c + 1) * n),
-        basin: cells.basin[c] >= 0 ? state.basinLabels[cells.basin[c]] : null, stepsToTolerance: null,
-      });
-    }
-    download('fall-line-start-map.csv', studyCsv('start-map', variables, rows), 'text/csv');
+    if (!cells || !spec || !builtSurface) return;
+    const rows = studyRows(spec, builtSurface, cells, (c) => (cells.basin[c] >= 0 ? state.basinLabels[cells.basin[c]] : null));
+    download(`${STUDY_CSV['start-map'].file}.csv`, studyCsv(STUDY_CSV['start-map'].name, variables, rows), 'text/csv');
   };
 
   const legend = state.cells ? mapLegend(state.cells, state.basinLabels) : [];
@@ -106,14 +115,17 @@ export function StartMapPanel() {
       <div className="study-controls">
         <label>
           cells per side{' '}
-          <select value={resolution} onChange={(e) => setResolution(Number(e.target.value))}>
-            {START_MAP_RESOLUTIONS.map((r) => <option key={r} value={r}>{r}</option>)}
+          <select value={resolution} onChange={(e) => changeResolution(Number(e.target.value))}>
+            {resolutions.map((r) => <option key={r} value={r}>{r}</option>)}
           </select>
         </label>
         {state.status === 'running' ? (
           <button type="button" onClick={() => study.cancel()}>Cancel map</button>
         ) : (
           <button type="button" onClick={start} disabled={!!problem}>Map start points</button>
+        )}
+        {setUp && state.status !== 'running' && (
+          <button type="button" onClick={runSetUp} title={setUpText(setUp, info.variables)} data-testid="start-map-run-set-up">Run as set up</button>
         )}
         <button type="button" onClick={exportCsv} disabled={!state.cells || state.done === 0}>Map CSV</button>
         <FigureExport
@@ -128,6 +140,7 @@ export function StartMapPanel() {
           </span>
         )}
       </div>
+      {setUp && <p className="study-help" data-testid="start-map-set-up">Set up (saved with the experiment): {setUpText(setUp, info.variables)}</p>}
       {problem && <p className="field-error">{problem}</p>}
       {state.message && <p className="field-error" role="alert">{state.message}</p>}
       <div className="study-body" ref={body}>
@@ -157,4 +170,10 @@ export function StartMapPanel() {
       </div>
     </section>
   );
+}
+
+/** The set-up map in one line: cells, box, optimizer. */
+function setUpText(spec: StartMapSpec, variables: readonly string[]): string {
+  const [p, q] = spec.axes;
+  return `${spec.resolution} × ${spec.resolution} cells, ${variables[p] ?? `#${p}`} from ${fmt(spec.box.a[0])} to ${fmt(spec.box.a[1])}, ${variables[q] ?? `#${q}`} from ${fmt(spec.box.b[0])} to ${fmt(spec.box.b[1])}; ${spec.optimizer.kind} at learning rate ${fmt(spec.optimizer.learningRate)}, at most ${spec.stop.maxSteps} steps`;
 }
