@@ -1,9 +1,8 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind } from '../engine';
+import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind, type ViewBox } from '../engine';
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
-import type { ViewBox } from '../ui/plot';
 import { GridRequestCancelled, type GridPoolResult } from '../worker/pool';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';

@@ -1,4 +1,5 @@
 import type { ScheduleSpec } from './schedule';
+import type { HyperparameterInfo, HyperValue } from './settings';
 
 /**
  * The optimizer families Fall Line can run. First-order kinds are chains of gradient transforms
@@ -28,8 +29,6 @@ export interface RuleSpec {
   text: string;
 }
 
-export type HyperValue = number | boolean | string;
-
 /**
  * A configured optimizer as plain JSON-serialisable data: what the page edits, the experiment file
  * stores and the worker receives. `buildOptimizer` turns it into a running `Optimizer`.
@@ -58,21 +57,6 @@ export interface OptimizerSpec {
   weightDecay?: number;
   /** Kind 'rule' only (and required there): the rule to run. */
   rule?: RuleSpec;
-}
-
-/** One kind-specific setting, described for validation and for the settings panel. */
-export interface HyperparameterInfo {
-  name: string;
-  label: string;
-  default: HyperValue;
-  min?: number;
-  max?: number;
-  minExclusive?: boolean;
-  maxExclusive?: boolean;
-  integer?: boolean;
-  /** For string settings: the allowed values. */
-  choices?: string[];
-  help: string;
 }
 
 export interface OptimizerInfo {

@@ -1,7 +1,6 @@
 import { resultsCsvOf, trajectoriesCsvOf } from '../../io/run-exports';
 import type { AppState } from '../../store/app-store';
 import type { LiveRuns } from '../../store/live-runs';
-import { sliceTitles } from '../../store/slice-plane';
 import { surfaceToSvg, type PixelSize } from '../plot';
 import { frameLayout, frameTransform } from '../view/frame';
 import { cachedPicture } from '../view/picture';

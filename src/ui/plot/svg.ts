@@ -14,7 +14,7 @@ import type { Arrow } from './arrows';
 import { arrowSegments, ARROW_DEFAULTS } from './arrows';
 import { PLOT_STYLE } from './context';
 import type { ContourBand } from './contours';
-import type { GridSpec } from './grid-space';
+import type { GridBox } from '../../engine';
 import type { LegendModel } from './legend';
 import { knownPointGlyph, KNOWN_POINT_DEFAULTS, markerGeometry, type KnownPoint } from './markers';
 import type { RunStyle } from './run-style';
@@ -36,7 +36,7 @@ export interface SvgScene {
   bands?: readonly ContourBand[];
   colours?: readonly string[];
   /** The sampled grid; with it the grid rectangle is painted with `missing` under the bands. */
-  grid?: GridSpec;
+  grid?: GridBox;
   missing?: string | null;
   axes?: AxisLabels;
   legend?: { model: LegendModel; title?: string };

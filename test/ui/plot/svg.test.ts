@@ -10,11 +10,11 @@ import {
   surfaceToSvg,
   valueScale,
   viewTransform,
-  type GridSpec,
 } from '../../../src/ui/plot';
+import type { GridBox } from '../../../src/engine';
 import { xmlProblems } from './xml-check';
 
-const grid: GridSpec = { a: [-2, 2], b: [-2, 2], nx: 41, ny: 41 };
+const grid: GridBox = { a: [-2, 2], b: [-2, 2], nx: 41, ny: 41 };
 const values = new Float64Array(grid.nx * grid.ny);
 for (let j = 0; j < grid.ny; j++) for (let i = 0; i < grid.nx; i++) values[i + j * grid.nx] = (-2 + i * 0.1) ** 2 + (-2 + j * 0.1) ** 2;
 values[5] = Number.NaN;

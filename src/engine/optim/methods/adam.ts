@@ -1,4 +1,4 @@
-import type { HyperparameterInfo } from '../spec';
+import type { HyperparameterInfo } from '../settings';
 import { scaleByAdam, type AdamEpsilonForm } from '../transforms';
 import { firstOrderChain } from './firstOrder';
 import { num, str, type MethodDefinition } from './method';

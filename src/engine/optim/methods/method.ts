@@ -1,4 +1,5 @@
-import type { HyperparameterInfo, OptimizerInfo, ResolvedSpec } from '../spec';
+import type { HyperparameterInfo } from '../settings';
+import type { OptimizerInfo, ResolvedSpec } from '../spec';
 import type { Optimizer } from '../types';
 
 /**

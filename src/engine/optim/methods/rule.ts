@@ -4,7 +4,7 @@ import { RuleSyntaxError } from '../../rules/errors';
 import { MAX_RULE_LENGTH } from '../../rules/parse';
 import { ruleOptimizer } from '../../rules/optimizer';
 import { isPlainObject, show } from '../checks';
-import type { HyperparameterInfo } from '../spec';
+import type { HyperparameterInfo } from '../settings';
 import type { MethodDefinition } from './method';
 
 /** The spec's rule field checked, or the [field, message] saying what is wrong with it. */

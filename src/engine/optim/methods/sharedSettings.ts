@@ -1,4 +1,4 @@
-import type { HyperparameterInfo } from '../spec';
+import type { HyperparameterInfo } from '../settings';
 
 /** Settings shared by several methods, described once. */
 export const beta1Info = (def = 0.9): HyperparameterInfo => ({
