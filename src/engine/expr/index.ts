@@ -15,6 +15,6 @@ export {
   type FormulaSurface,
   type ModelOptions,
 } from './compile';
-export { KERNEL_TABLE, isKernelName } from './kernels';
+export { KERNEL_TABLE, isKernelName, UNARY_PRIMITIVES, VARIADIC_PRIMITIVES, type UnaryPrimitive, type VariadicPrimitive } from './primitives';
 export { formatNumber } from './codegen';
 export { nearestName } from './suggest';
