@@ -26,7 +26,7 @@ export function defaultOptimizerSpec(kind: OptimizerKind): OptimizerSpec {
   }
   for (const h of info.hyperparameters) hyper[h.name] = h.default;
   const spec: OptimizerSpec = { kind, learningRate: info.defaultLearningRate, hyper };
-  if (info.usesSchedule) spec.schedule = { kind: 'constant' };
+  if (info.family === 'first-order') spec.schedule = { kind: 'constant' };
   if (info.defaultWeightDecay > 0) spec.weightDecay = info.defaultWeightDecay;
   return spec;
 }

@@ -59,18 +59,20 @@ export interface OptimizerSpec {
   rule?: RuleSpec;
 }
 
+/**
+ * How a kind takes its steps. 'first-order' kinds are chains of gradient transforms (or a rule): the
+ * learning-rate schedule, clipNorm and weightDecay apply to them. 'line-search' (L-BFGS) and 'curvature'
+ * (Newton) choose their own step lengths, so those three fields are refused.
+ */
+export type OptimizerFamily = 'first-order' | 'line-search' | 'curvature';
+
 export interface OptimizerInfo {
   kind: OptimizerKind;
   label: string;
   defaultLearningRate: number;
   hyperparameters: HyperparameterInfo[];
-  /**
-   * Whether the learning-rate schedule applies. It also marks the first-order kinds, the ones that
-   * accept clipNorm and weightDecay.
-   */
-  usesSchedule: boolean;
-  /** Default of the top-level weightDecay field (0 except AdamW). Added beyond the first sketch of
-   * this interface so the settings panel can show AdamW's own default. */
+  family: OptimizerFamily;
+  /** Default of the top-level weightDecay field (0 except AdamW), so the settings panel can show it. */
   defaultWeightDecay: number;
   summary: string;
   /** The paper or book the method comes from. */

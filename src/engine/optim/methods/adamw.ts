@@ -1,8 +1,8 @@
-import { scaleByAdam, type AdamEpsilonForm } from '../transforms';
-import { adamEpsilonFormInfo } from './adam';
+import { choice } from '../settings';
+import { scaleByAdam } from '../transforms';
 import { firstOrderChain } from './firstOrder';
-import { num, str, type MethodDefinition } from './method';
-import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
+import { defineMethod } from './method';
+import { adamEpsilonForm, beta1, beta2, epsilon } from './sharedSettings';
 
 /**
  * AdamW (Loshchilov & Hutter, "Decoupled Weight Decay Regularization", ICLR 2019, Algorithm 2):
@@ -15,34 +15,29 @@ import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
  * So PyTorch's lambda is the paper's lambda / alpha. lambda is the spec's weightDecay, default 0.01
  * (PyTorch; Optax 1e-4, Keras 0.004 from memory). Other defaults as Adam (lr 0.001).
  */
-export const adamw: MethodDefinition = {
-  info: {
+export const adamw = defineMethod({
     kind: 'adamw',
     label: 'AdamW',
     defaultLearningRate: 0.001,
-    hyperparameters: [
-      beta1Info(),
-      beta2Info(),
-      epsilonInfo(1e-8),
-      adamEpsilonFormInfo,
-      {
-        name: 'decayForm',
+    family: 'first-order',
+    settings: {
+      beta1: beta1(),
+      beta2: beta2(),
+      epsilon: epsilon(1e-8),
+      epsilonForm: adamEpsilonForm,
+      decayForm: choice(['library', 'paper'], {
         label: 'decay form',
-        default: 'library',
-        choices: ['library', 'paper'],
         help: "'library': decay multiplied by the learning rate (PyTorch, Optax, Keras); 'paper': multiplied by the schedule only, not by the base rate (Loshchilov & Hutter).",
-      },
-    ],
-    usesSchedule: true,
+      }),
+    },
     defaultWeightDecay: 0.01,
     summary: 'Adam with weight decay applied to the parameters directly rather than through the gradient.',
     source: 'I. Loshchilov & F. Hutter, "Decoupled Weight Decay Regularization", ICLR 2019.',
-  },
-  build: (spec) => {
-    const paper = str(spec, 'decayForm') === 'paper';
-    const core = [scaleByAdam(num(spec, 'beta1'), num(spec, 'beta2'), num(spec, 'epsilon'), str<AdamEpsilonForm>(spec, 'epsilonForm'))];
+  build: (s, spec) => {
+    const paper = s.decayForm === 'paper';
+    const core = [scaleByAdam(s.beta1, s.beta2, s.epsilon, s.epsilonForm)];
     // Paper form: lr_t (lambda / alpha) x = eta_t lambda x.
     const decay = paper ? spec.weightDecay / spec.learningRate : spec.weightDecay;
     return firstOrderChain(paper ? 'AdamW (paper decay)' : 'AdamW', spec, core, decay);
   },
-};
+});

@@ -1,7 +1,8 @@
-import { scaleByAmsgrad, type AmsgradForm } from '../transforms';
+import { choice } from '../settings';
+import { AMSGRAD_FORMS, scaleByAmsgrad } from '../transforms';
 import { firstOrderChain } from './firstOrder';
-import { num, str, type MethodDefinition } from './method';
-import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
+import { defineMethod } from './method';
+import { beta1, beta2, epsilon } from './sharedSettings';
 
 /**
  * AMSGrad (Reddi, Kale & Kumar, "On the Convergence of Adam and Beyond", ICLR 2018, Algorithm 2):
@@ -15,28 +16,21 @@ import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
  *       (inverse-time schedule, decayRate 1, power 0.5).
  * The PyTorch and Optax forms differ from t = 2 on when the bias-corrected v falls. Defaults as Adam.
  */
-export const amsgrad: MethodDefinition = {
-  info: {
+export const amsgrad = defineMethod({
     kind: 'amsgrad',
     label: 'AMSGrad',
     defaultLearningRate: 0.001,
-    hyperparameters: [
-      beta1Info(),
-      beta2Info(),
-      epsilonInfo(1e-8),
-      {
-        name: 'form',
-        label: 'form',
-        default: 'pytorch',
-        choices: ['pytorch', 'optax', 'paper'],
+    family: 'first-order',
+    settings: {
+      beta1: beta1(),
+      beta2: beta2(),
+      epsilon: epsilon(1e-8),
+      form: choice(AMSGRAD_FORMS, {
         help: "'pytorch': maximum of the raw second moment, then bias correction; 'optax': maximum of the bias-corrected one; 'paper': no bias correction.",
-      },
-    ],
-    usesSchedule: true,
+      }),
+    },
     defaultWeightDecay: 0,
     summary: "Adam with a non-decreasing second-moment estimate, fixing Adam's non-convergence examples.",
     source: 'S. J. Reddi, S. Kale & S. Kumar, "On the Convergence of Adam and Beyond", ICLR 2018.',
-  },
-  build: (spec) =>
-    firstOrderChain('AMSGrad', spec, [scaleByAmsgrad(num(spec, 'beta1'), num(spec, 'beta2'), num(spec, 'epsilon'), str<AmsgradForm>(spec, 'form'))]),
-};
+  build: (s, spec) => firstOrderChain('AMSGrad', spec, [scaleByAmsgrad(s.beta1, s.beta2, s.epsilon, s.form)]),
+});

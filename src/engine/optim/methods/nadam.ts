@@ -1,7 +1,8 @@
-import { scaleByNadam, type NadamForm } from '../transforms';
+import { choice, number } from '../settings';
+import { NADAM_FORMS, scaleByNadam } from '../transforms';
 import { firstOrderChain } from './firstOrder';
-import { num, str, type MethodDefinition } from './method';
-import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
+import { defineMethod } from './method';
+import { beta1, beta2, epsilon } from './sharedSettings';
 
 /**
  * NAdam (T. Dozat, "Incorporating Nesterov Momentum into Adam", ICLR 2016 workshop), PyTorch form:
@@ -14,37 +15,24 @@ import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
  * Keras Nadam uses a 0.96^(0.004 t) schedule too (from memory, not checked). Whether Dozat's EMA uses
  * the scheduled mu_t or the constant b1 is not settled in our reference; PyTorch uses b1.
  */
-export const nadam: MethodDefinition = {
-  info: {
+export const nadam = defineMethod({
     kind: 'nadam',
     label: 'NAdam',
     defaultLearningRate: 0.002,
-    hyperparameters: [
-      beta1Info(),
-      beta2Info(),
-      epsilonInfo(1e-8),
-      {
-        name: 'momentumDecay',
+    family: 'first-order',
+    settings: {
+      beta1: beta1(),
+      beta2: beta2(),
+      epsilon: epsilon(1e-8),
+      momentumDecay: number(0.004, {
         label: 'momentum decay (psi)',
-        default: 0.004,
         min: 0,
         help: 'psi in the momentum schedule mu_t = beta1 (1 - 0.5 * 0.96^(t psi)) (scheduled form only).',
-      },
-      {
-        name: 'form',
-        label: 'form',
-        default: 'scheduled',
-        choices: ['scheduled', 'constant-beta1'],
-        help: "'scheduled': Dozat's momentum schedule (PyTorch); 'constant-beta1': no schedule (Optax).",
-      },
-    ],
-    usesSchedule: true,
+      }),
+      form: choice(NADAM_FORMS, { help: "'scheduled': Dozat's momentum schedule (PyTorch); 'constant-beta1': no schedule (Optax)." }),
+    },
     defaultWeightDecay: 0,
     summary: 'Adam with a Nesterov-style look-ahead in the first moment.',
     source: 'T. Dozat, "Incorporating Nesterov Momentum into Adam", ICLR 2016 workshop track.',
-  },
-  build: (spec) =>
-    firstOrderChain('NAdam', spec, [
-      scaleByNadam(num(spec, 'beta1'), num(spec, 'beta2'), num(spec, 'epsilon'), num(spec, 'momentumDecay'), str<NadamForm>(spec, 'form')),
-    ]),
-};
+  build: (s, spec) => firstOrderChain('NAdam', spec, [scaleByNadam(s.beta1, s.beta2, s.epsilon, s.momentumDecay, s.form)]),
+});

@@ -1,10 +1,11 @@
+import { choice } from '../settings';
 import type { ResolvedSpec } from '../spec';
 import { applyTransforms, initTransforms, learningRateStage, type ChainState } from '../transform';
-import { traceMomentum, traceVelocity } from '../transforms';
+import { traceMomentum } from '../transforms';
 import type { Optimizer } from '../types';
 import { firstOrderChain, wrapFirstOrder } from './firstOrder';
-import { num, str, type MethodDefinition } from './method';
-import { momentumInfo } from './sharedSettings';
+import { defineMethod } from './method';
+import { momentum } from './sharedSettings';
 
 /**
  * Nesterov momentum (Nesterov 1983; in deep-learning form, Sutskever, Martens, Dahl & Hinton,
@@ -20,56 +21,51 @@ import { momentumInfo } from './sharedSettings';
  * gradient evaluation per step here, at the look-ahead point, because the run records theta.
  * Defaults mu = 0.9, lr 0.01.
  */
-export const nesterov: MethodDefinition = {
-  info: {
-    kind: 'nesterov',
-    label: 'Nesterov momentum',
-    defaultLearningRate: 0.01,
-    hyperparameters: [
-      momentumInfo(0.9, 'Fraction of the previous step direction kept (mu).'),
-      {
-        name: 'form',
-        label: 'form',
-        default: 'library',
-        choices: ['library', 'sutskever'],
-        help: "'library': the point stored is the look-ahead point (PyTorch, Keras, Optax); 'sutskever': the point stored is theta and the gradient is taken at theta + mu v (one extra evaluation per step).",
-      },
-    ],
-    usesSchedule: true,
-    defaultWeightDecay: 0,
-    summary: 'Momentum that looks ahead along the velocity before taking the gradient.',
-    source: 'Y. Nesterov, "A method for solving the convex programming problem with convergence rate O(1/k^2)", Soviet Math. Dokl. 27, 1983; Sutskever, Martens, Dahl & Hinton, ICML 2013.',
+export const nesterov = defineMethod({
+  kind: 'nesterov',
+  label: 'Nesterov momentum',
+  defaultLearningRate: 0.01,
+  family: 'first-order',
+  settings: {
+    momentum: momentum(0.9, 'Fraction of the previous step direction kept (mu).'),
+    form: choice(['library', 'sutskever'], {
+      help: "'library': the point stored is the look-ahead point (PyTorch, Keras, Optax); 'sutskever': the point stored is theta and the gradient is taken at theta + mu v (one extra evaluation per step).",
+    }),
   },
-  build: (spec) =>
-    str(spec, 'form') === 'sutskever'
-      ? sutskeverNesterov(spec)
-      : firstOrderChain('Nesterov momentum', spec, [traceMomentum(num(spec, 'momentum'), 0, true)]),
-};
+  defaultWeightDecay: 0,
+  summary: 'Momentum that looks ahead along the velocity before taking the gradient.',
+  source: 'Y. Nesterov, "A method for solving the convex programming problem with convergence rate O(1/k^2)", Soviet Math. Dokl. 27, 1983; Sutskever, Martens, Dahl & Hinton, ICML 2013.',
+  build: (s, spec) =>
+    s.form === 'sutskever' ? sutskeverNesterov(s.momentum, spec) : firstOrderChain('Nesterov momentum', spec, [traceMomentum(s.momentum, 0, true)]),
+});
 
 interface LookAheadState {
   chain: ChainState;
+  /** v, Sutskever's velocity (the learning rate inside). */
+  velocity: Float64Array;
   lookAhead: Float64Array;
 }
 
 /**
- * Sutskever's form: the chain [clip] -> [L2] -> [decay] -> -lr_t -> velocity (v = mu v + u) runs on the
- * gradient at the look-ahead point x + mu v; the penalties read the look-ahead point too.
+ * Sutskever's form: the chain [clip] -> [L2] -> [decay] -> -lr_t runs on the gradient at the
+ * look-ahead point x + mu v (the penalties read the look-ahead point too), giving u = -lr_t g; then
+ * v = mu v + u and x = x + v (the classical-momentum velocity of Sutskever et al., the Keras SGD form).
  */
-function sutskeverNesterov(spec: ResolvedSpec): Optimizer<LookAheadState> {
-  const mu = num(spec, 'momentum');
-  const transforms = [...wrapFirstOrder(spec, []), traceVelocity(mu)];
+function sutskeverNesterov(mu: number, spec: ResolvedSpec): Optimizer<LookAheadState> {
+  const transforms = wrapFirstOrder(spec, []);
   const rate = learningRateStage(transforms, 'Nesterov momentum (Sutskever form)');
-  const velocityStage = transforms.length - 1;
   return {
     label: 'Nesterov momentum (Sutskever form)',
-    init: (x0) => ({ chain: initTransforms(transforms, x0), lookAhead: new Float64Array(x0.length) }),
+    init: (x0) => ({ chain: initTransforms(transforms, x0), velocity: new Float64Array(x0.length), lookAhead: new Float64Array(x0.length) }),
     step(x, grad, state, ctx) {
-      const v = (state.chain.stages[velocityStage] as { velocity: Float64Array }).velocity;
-      const look = state.lookAhead;
+      const { velocity: v, lookAhead: look } = state;
       for (let i = 0; i < x.length; i++) look[i] = x[i] + mu * v[i];
       ctx.oracle.valueGradient(look, grad);
       applyTransforms(transforms, state.chain, grad, look, ctx.t);
-      for (let i = 0; i < x.length; i++) x[i] += grad[i];
+      for (let i = 0; i < x.length; i++) {
+        v[i] = mu * v[i] + grad[i];
+        x[i] += v[i];
+      }
       return { learningRate: rate.learningRate(ctx.t), extraEvaluations: 1 };
     },
   };

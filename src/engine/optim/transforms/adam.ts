@@ -1,12 +1,15 @@
 import type { GradientTransform } from '../transform';
 import { power } from '../../power';
+import { updateMoments } from './moments';
 
 export interface MomentsState {
   m: Float64Array;
   v: Float64Array;
 }
 
-export type AdamEpsilonForm = 'algorithm1' | 'hat';
+/** The two forms of Adam's denominator (below); the first is the default. */
+export const ADAM_EPSILON_FORMS = ['algorithm1', 'hat'] as const;
+export type AdamEpsilonForm = (typeof ADAM_EPSILON_FORMS)[number];
 
 /**
  * Adam scaling (Kingma & Ba, ICLR 2015): m_t = b1 m + (1 - b1) g, v_t = b2 v + (1 - b2) g^2,
@@ -28,8 +31,7 @@ export function scaleByAdam(beta1: number, beta2: number, epsilon: number, form:
       const hatScale = Math.sqrt(c2) / c1;
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
-        m[i] = beta1 * m[i] + (1 - beta1) * g;
-        v[i] = beta2 * v[i] + (1 - beta2) * g * g;
+        updateMoments(m, v, i, g, beta1, beta2);
         if (form === 'algorithm1') {
           const d = Math.sqrt(v[i] / c2) + epsilon;
           u[i] = d > 0 ? m[i] / c1 / d : 0;

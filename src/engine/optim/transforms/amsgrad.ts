@@ -1,7 +1,10 @@
 import type { GradientTransform } from '../transform';
 import { power } from '../../power';
+import { updateMoments } from './moments';
 
-export type AmsgradForm = 'pytorch' | 'optax' | 'paper';
+/** The three forms of AMSGrad's maximum (below); the first is the default. */
+export const AMSGRAD_FORMS = ['pytorch', 'optax', 'paper'] as const;
+export type AmsgradForm = (typeof AMSGRAD_FORMS)[number];
 
 export interface AmsgradState {
   m: Float64Array;
@@ -30,8 +33,7 @@ export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, fo
       const c2 = form === 'paper' ? 1 : 1 - power(beta2, t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
-        m[i] = beta1 * m[i] + (1 - beta1) * g;
-        v[i] = beta2 * v[i] + (1 - beta2) * g * g;
+        updateMoments(m, v, i, g, beta1, beta2);
         let d: number;
         if (form === 'optax') {
           vMax[i] = Math.max(vMax[i], v[i] / c2);

@@ -1,7 +1,10 @@
 import type { GradientTransform } from '../transform';
 import { power } from '../../power';
+import { updateMoments } from './moments';
 
-export type NadamForm = 'scheduled' | 'constant-beta1';
+/** The two forms of NAdam's first moment (below); the first is the default. */
+export const NADAM_FORMS = ['scheduled', 'constant-beta1'] as const;
+export type NadamForm = (typeof NADAM_FORMS)[number];
 
 export interface NadamState {
   m: Float64Array;
@@ -41,8 +44,7 @@ export function scaleByNadam(beta1: number, beta2: number, epsilon: number, mome
       const c2 = 1 - power(beta2, t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
-        m[i] = beta1 * m[i] + (1 - beta1) * g;
-        v[i] = beta2 * v[i] + (1 - beta2) * g * g;
+        updateMoments(m, v, i, g, beta1, beta2);
         const d = Math.sqrt(v[i] / c2) + epsilon;
         u[i] = d > 0 ? (a * m[i] + b * g) / d : 0;
       }
