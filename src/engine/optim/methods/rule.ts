@@ -21,7 +21,7 @@ function ruleField(raw: Record<string, unknown>): { name: string; text: string }
 
 /**
  * Kind 'rule': an optimizer written as a few lines of state updates in the rule language (see
- * src/engine/rules and DEVELOPERS.md "Update rules"), compiled into one generated function. Its
+ * src/engine/rules and its README.md), compiled into one generated function. Its
  * settings are the rule's `hyper` lines (any finite number; the rule says what makes sense); the
  * learning-rate schedule, clipNorm and l2Penalty apply as for the built-in first-order kinds (the
  * rule reads the scheduled rate as `lr`, and `g` after clipping and the penalty). Decoupled weight
