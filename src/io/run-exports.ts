@@ -4,7 +4,7 @@
  * Points are written in the reported units (units.ts: the data's original units for a standardised
  * data-fit surface), so the files say what the page's tables say.
  */
-import { optimizerLabel, type TrajectoryBatch } from '../engine';
+import { optimizerLabel } from '../engine';
 import type { KnownPoint } from '../problems';
 import { CSV_LINE_END, runTableCsv, trajectoryCsv, type RunSummaryRow, type TrajectoryExportRun } from './csv';
 import type { RunConfig } from './experiment/types';

@@ -10,7 +10,7 @@ import { BasinTracker, studyOrder, studySize, type StudyCellResults, type StudyS
 import type { KnownPoint } from '../problems';
 import { basinRadiusOf, knownMinima } from './study-basins';
 import { STUDY_CSV, studyCsv, studyRows, type StudyCellTable } from './study-csv';
-import type { ViewBox } from './experiment/types';
+import type { ViewBox } from '../engine';
 
 /** Cells from any number of pieces (shards, threads) into one table by cell index; every cell exactly once. */
 export function cellTable(spec: StudySpec, n: number, pieces: readonly StudyCellResults[]): StudyCellTable {

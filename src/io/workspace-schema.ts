@@ -15,7 +15,7 @@ export function parseWorkspace(input: unknown): ParsedWorkspace {
   const result = readExperiment(input);
   if (result.ok) {
     const { $schema: _ignored, ...workspace } = result.experiment;
-    return { ok: true, workspace: workspace as Workspace };
+    return { ok: true, workspace };
   }
   const p = result.problems[0];
   return { ok: false, error: formatProblem('', p).replace(/^: /, '').replace(/^:(\d+):(\d+): /, 'line $1, column $2: ') };

@@ -1,7 +1,7 @@
 /**
  * The one typed protocol between the page and the engine workers. Every message is plain data
  * (structured-clone safe). Typed arrays are copied, never transferred: detaching a buffer slows every
- * later typed-array access in a V8 worker (see DEVELOPERS.md, "Slices and the worker pool").
+ * later typed-array access in a V8 worker (see src/worker/README.md).
  *
  * Identity: each launch of a run gets a fresh `runId`, each grid request a fresh `requestId`; the page
  * drops any message whose id is no longer current, so work superseded by an edit can never be drawn.

@@ -1,9 +1,8 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind, type StudySpec } from '../engine';
+import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind, type StudySpec, type ViewBox } from '../engine';
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
-import type { PixelSize, ViewBox } from '../ui/plot';
 import { GridRequestCancelled, type GridPoolResult } from '../worker/pool';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
@@ -13,7 +12,7 @@ import { newRunConfig, nextStyle, pageDefaultSpec } from './run-configs';
 import { curvatureAt, rateFamily, switchedOptimizer } from './suggest-rate';
 import { mainThreadSurface } from './surface-cache';
 import { slicePlane } from './slice-plane';
-import { equalScaleOn, shownView } from './equal-scale';
+import { equalScaleOn, shownView, type FrameSize } from './equal-scale';
 import type { DisplaySettings, PanelSettings, RunConfig, SliceSettings, Workspace } from './workspace';
 
 /** The surface grid as last received from the worker. */
@@ -47,7 +46,7 @@ export interface AppState extends Workspace {
   /** The slice point under the pointer, shared by every panel (linked hover). */
   hover: { a: number; b: number } | null;
   /** The map's plot frame in CSS pixels, once measured (the grid covers the box shown on it); not saved. */
-  frame: PixelSize | null;
+  frame: FrameSize | null;
   /** The results table's chosen columns (null: the defaults for the surface) and sort; not saved. */
   table: { columns: string[] | null; sort: { column: string; direction: 'ascending' | 'descending' } | null };
   actions: AppActions;
@@ -68,7 +67,7 @@ export interface AppActions {
   resetView(): void;
   setDisplay(patch: Partial<DisplaySettings>): void;
   /** The map reports its plot frame; with equal scale the grid is sampled over the box shown on it. */
-  setFrame(frame: PixelSize): void;
+  setFrame(frame: FrameSize): void;
   addRun(kind?: OptimizerKind): string;
   updateRun(id: string, patch: Partial<Omit<RunConfig, 'id'>>): void;
   /**

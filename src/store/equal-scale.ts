@@ -6,8 +6,14 @@
  * pointer and zoom all use the shown box.
  */
 import type { SurfaceSpec } from '../problems';
-import type { PixelSize, ViewBox } from '../ui/plot';
+import type { ViewBox } from '../engine';
 import type { DisplaySettings } from './workspace';
+
+/** A plot frame's size in CSS pixels (the shape of the ui's PixelSize, kept here so the store does not import the ui). */
+export interface FrameSize {
+  width: number;
+  height: number;
+}
 
 /** Whether equal scale is on: the saved choice, else on for the two-variable test functions. */
 export function equalScaleOn(display: Pick<DisplaySettings, 'equalScale'>, surface: SurfaceSpec, variableCount: number): boolean {
@@ -19,7 +25,7 @@ export function equalScaleOn(display: Pick<DisplaySettings, 'equalScale'>, surfa
  * measured); with it, `view` widened about its centre on the axis with more pixels per unit, so that
  * width / span(a) = height / span(b). A box that already has equal scale is returned as it is.
  */
-export function shownView(view: ViewBox, frame: PixelSize | null, equal: boolean): ViewBox {
+export function shownView(view: ViewBox, frame: FrameSize | null, equal: boolean): ViewBox {
   if (!equal || !frame || !(frame.width > 0 && frame.height > 0)) return view;
   const spanA = view.a[1] - view.a[0];
   const spanB = view.b[1] - view.b[0];

@@ -1,5 +1,5 @@
 import type { Graph, GraphNode, NodeId } from './graph';
-import { KERNEL_TABLE, isKernelName } from './kernels';
+import { KERNEL_TABLE, isKernelName } from './primitives';
 
 /**
  * Code generation: straight-line JavaScript for the value, gradient and Hessian of an expression graph,

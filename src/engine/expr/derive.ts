@@ -1,9 +1,10 @@
 import type { Comparison, Graph, NodeId } from './graph';
-import type { UnaryKernelName } from './kernels';
+import { isUnaryKernelName, UNARY_PRIMITIVES, VARIADIC_PRIMITIVES, type DerivativeTerms } from './primitives';
 
 /**
  * Symbolic differentiation on the expression graph: d(node)/d(x_k) is built as new graph nodes by the
- * usual rules, memoised per (node, k), so the gradient reuses the value's subexpressions and each
+ * usual rules (each function's own rule is in the primitives table, primitives.ts), memoised per
+ * (node, k), so the gradient reuses the value's subexpressions and each
  * Hessian entry d(d f/d x_i)/d x_j reuses the gradient's. Exact derivatives, no finite differences.
  *
  * Derivative terms are simplified with structural zeros and ones (0 * u -> 0, 1 * u -> u, u + 0 -> u,
@@ -25,9 +26,27 @@ export class Differentiator {
   private readonly zero: NodeId;
   private readonly one: NodeId;
 
+  /** The constructors the primitives' derivative rules build with (primitives.ts). */
+  private readonly terms: DerivativeTerms<NodeId>;
+
   constructor(private readonly g: Graph) {
     this.zero = g.constant(0);
     this.one = g.constant(1);
+    this.terms = {
+      zero: this.zero,
+      one: this.one,
+      constant: (value) => g.constant(value),
+      call: (fn, u) => {
+        if (!isUnaryKernelName(fn)) throw new Error(`derivative rule: unknown function '${fn}'`);
+        return g.call(fn, u);
+      },
+      add: (a, b) => this.add(a, b),
+      sub: (a, b) => this.sub(a, b),
+      mul: (a, b) => this.mul(a, b),
+      div: (a, b) => this.div(a, b),
+      neg: (a) => this.neg(a),
+      select: (test, a, b, then, otherwise) => this.select(test, a, b, then, otherwise),
+    };
   }
 
   /** d(node)/d(x_k). */
@@ -79,15 +98,14 @@ export class Differentiator {
       case 'pow':
         return this.power(id, node.a, node.b, k);
       case 'min':
-        return this.select('<=', node.a, node.b, this.derivative(node.a, k), this.derivative(node.b, k));
       case 'max':
-        return this.select('<=', node.b, node.a, this.derivative(node.a, k), this.derivative(node.b, k));
+        return VARIADIC_PRIMITIVES[node.op].derivative(this.terms, node.a, node.b, this.derivative(node.a, k), this.derivative(node.b, k));
       case 'select':
         return this.select(node.test, node.a, node.b, this.derivative(node.then, k), this.derivative(node.otherwise, k));
       case 'call': {
         const da = this.derivative(node.a, k);
         if (this.isZero(da)) return this.zero;
-        return this.mul(this.outer(node.fn, node.a, id), da);
+        return this.mul(UNARY_PRIMITIVES[node.fn].derivative(this.terms, node.a, id), da);
       }
     }
   }
@@ -102,54 +120,6 @@ export class Differentiator {
     const logA = this.g.call('log', a);
     if (this.isZero(da)) return this.mul(this.mul(self, logA), db);
     return this.mul(self, this.add(this.mul(db, logA), this.div(this.mul(b, da), a)));
-  }
-
-  /** f'(u) for f = fn, where `self` is the node f(u). */
-  private outer(fn: UnaryKernelName, u: NodeId, self: NodeId): NodeId {
-    const g = this.g;
-    const one = this.one;
-    switch (fn) {
-      case 'sin':
-        return g.call('cos', u);
-      case 'cos':
-        return this.neg(g.call('sin', u));
-      case 'tan':
-        return this.add(one, this.mul(self, self)); // 1 + tan^2
-      case 'asin':
-        return this.div(one, g.call('sqrt', this.sub(one, this.mul(u, u))));
-      case 'acos':
-        return this.neg(this.div(one, g.call('sqrt', this.sub(one, this.mul(u, u)))));
-      case 'atan':
-        return this.div(one, this.add(one, this.mul(u, u)));
-      case 'sinh':
-        return g.call('cosh', u);
-      case 'cosh':
-        return g.call('sinh', u);
-      case 'tanh':
-        return this.sub(one, this.mul(self, self)); // 1 - tanh^2
-      case 'exp':
-        return self;
-      case 'expm1':
-        return g.call('exp', u);
-      case 'log':
-        return this.div(one, u);
-      case 'log1p':
-        return this.div(one, this.add(one, u));
-      case 'sqrt':
-        return this.div(g.constant(0.5), self);
-      case 'abs':
-        return g.call('sign', u);
-      case 'sign':
-        return this.zero;
-      case 'sigmoid':
-        return this.mul(self, this.sub(one, self)); // s (1 - s)
-      case 'softplus':
-        return g.call('sigmoid', u);
-      case 'relu':
-        return this.select('<', this.zero, u, one, this.zero);
-      case 'elu':
-        return this.select('<', this.zero, u, one, g.call('exp', u));
-    }
   }
 
   // Simplifying constructors for derivative terms (see the class comment).

@@ -1,4 +1,8 @@
-import { UNARY_KERNELS, type UnaryKernelName } from './kernels';
+/**
+ * The functions and constants of the formula language as the parser and the evaluator see them (names,
+ * arity, summaries), built from the primitives table (primitives.ts).
+ */
+import { UNARY_PRIMITIVES, VARIADIC_PRIMITIVES } from './primitives';
 
 /** How many arguments a function takes. */
 export interface Arity {
@@ -16,50 +20,21 @@ export interface FunctionInfo extends Arity {
   readonly evaluate: (args: readonly number[]) => number;
 }
 
-const UNARY_SUMMARIES: Record<UnaryKernelName, string> = {
-  sin: 'sine (radians)',
-  cos: 'cosine (radians)',
-  tan: 'tangent (radians)',
-  asin: 'inverse sine, argument in [-1, 1]',
-  acos: 'inverse cosine, argument in [-1, 1]',
-  atan: 'inverse tangent',
-  sinh: 'hyperbolic sine',
-  cosh: 'hyperbolic cosine',
-  tanh: 'hyperbolic tangent',
-  exp: 'exponential e^x',
-  expm1: 'exp(x) - 1, accurate near 0',
-  log: 'natural logarithm',
-  log1p: 'log(1 + x), accurate near 0',
-  sqrt: 'square root',
-  abs: 'absolute value (derivative 0 at 0)',
-  sign: 'sign: -1, 0 or 1 (derivative 0)',
-  sigmoid: 'logistic 1 / (1 + exp(-x))',
-  softplus: 'log(1 + exp(x)), computed without overflow',
-  relu: 'max(x, 0) (derivative 0 at 0)',
-  elu: 'x for x > 0, exp(x) - 1 otherwise',
-};
-
-function unary(name: UnaryKernelName): FunctionInfo {
-  const kernel = UNARY_KERNELS[name];
-  return { name, minArgs: 1, maxArgs: 1, summary: UNARY_SUMMARIES[name], evaluate: (args) => kernel(args[0]) };
-}
-
 const ALL: FunctionInfo[] = [
-  ...(Object.keys(UNARY_KERNELS) as UnaryKernelName[]).map(unary),
-  {
-    name: 'min',
+  ...Object.entries(UNARY_PRIMITIVES).map(([name, p]): FunctionInfo => ({
+    name,
+    minArgs: 1,
+    maxArgs: 1,
+    summary: p.summary,
+    evaluate: (args) => p.kernel(args[0]),
+  })),
+  ...Object.entries(VARIADIC_PRIMITIVES).map(([name, p]): FunctionInfo => ({
+    name,
     minArgs: 2,
     maxArgs: Infinity,
-    summary: 'smallest argument (the derivative follows the first smallest one)',
-    evaluate: (args) => Math.min(...args),
-  },
-  {
-    name: 'max',
-    minArgs: 2,
-    maxArgs: Infinity,
-    summary: 'largest argument (the derivative follows the first largest one)',
-    evaluate: (args) => Math.max(...args),
-  },
+    summary: p.summary,
+    evaluate: (args) => args.reduce((acc, v) => p.kernel(acc, v)),
+  })),
 ];
 
 /** Every function of the language by name. A Map, so `constructor` or `toString` never resolve. */

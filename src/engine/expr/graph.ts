@@ -1,4 +1,4 @@
-import { BINARY_KERNELS, UNARY_KERNELS, type UnaryKernelName } from './kernels';
+import { BINARY_KERNELS, UNARY_KERNELS, type UnaryKernelName } from './primitives';
 
 /**
  * The expression graph the compiler works on: a hash-consed DAG. Building a node that already exists

@@ -1,4 +1,4 @@
-// The formula language: parse, print, evaluate and compile formulas (see DEVELOPERS.md, "The formula language").
+// The formula language: parse, print, evaluate and compile formulas (see README.md here).
 export type { BinaryExpr, BinaryOperator, CallExpr, Expr, NameExpr, NumberExpr, Span, UnaryExpr, UnaryOperator } from './ast';
 export { sameTree } from './ast';
 export { FormulaSyntaxError, type FormulaError } from './errors';
@@ -15,6 +15,6 @@ export {
   type FormulaSurface,
   type ModelOptions,
 } from './compile';
-export { KERNEL_TABLE, isKernelName } from './kernels';
+export { KERNEL_TABLE, isKernelName, UNARY_PRIMITIVES, VARIADIC_PRIMITIVES, type UnaryPrimitive, type VariadicPrimitive } from './primitives';
 export { formatNumber } from './codegen';
 export { nearestName } from './suggest';

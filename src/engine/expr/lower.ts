@@ -1,7 +1,7 @@
 import type { BinaryOperator, Expr } from './ast';
 import { BUILTIN_CONSTANTS } from './functions';
 import type { Graph, NodeId } from './graph';
-import { UNARY_KERNELS, type UnaryKernelName } from './kernels';
+import { isUnaryKernelName } from './primitives';
 
 /**
  * Translates a validated tree into graph nodes. `resolve` maps each free name to its leaf (a variable,
@@ -29,10 +29,10 @@ export function lowerFormula(g: Graph, ast: Expr, resolve: (name: string) => Nod
           const op = node.name;
           return args.slice(1).reduce((acc, arg) => g.binary(op, acc, arg), args[0]);
         }
-        if (!Object.prototype.hasOwnProperty.call(UNARY_KERNELS, node.name) || args.length !== 1) {
+        if (!isUnaryKernelName(node.name) || args.length !== 1) {
           throw new Error(`lowerFormula: unvalidated call '${node.name}' with ${args.length} arguments`);
         }
-        return g.call(node.name as UnaryKernelName, args[0]);
+        return g.call(node.name, args[0]);
       }
     }
   };

@@ -1,6 +1,7 @@
 import type { BinaryOperator, Expr, Span } from './ast';
 import { errorAt, type FormulaError } from './errors';
 import { FUNCTIONS, FUNCTION_HINTS, describeArity, type Arity } from './functions';
+import { BINARY_OPERATORS, PREFIX_PRECEDENCE } from './operators';
 import { tokenize, type Token } from './lexer';
 import { nearestName } from './suggest';
 
@@ -26,9 +27,10 @@ import { nearestName } from './suggest';
  * Consequences worth knowing: `-x^2` is `-(x^2)`; `2^-1` is `2^(-1)`; `2^3^2` is `2^(3^2)`; `-x*y` is
  * `(-x)*y`. There is no implicit multiplication: `2x` is an error ("missing operator").
  *
- * Binding powers used below: `+ -` 10, `* /` 20, prefix `- +` 30 (their operand stops before `*` but
- * takes `^`), `^` 40 with its right operand parsed at 39 so that it associates to the right and may
- * itself start with a sign.
+ * Binding powers are ten times the precedences of the operator table (operators.ts): `+ -` 10,
+ * `* /` 20, prefix `- +` 30 (their operand stops before `*` but takes `^`), `^` 40; the right operand of
+ * a right-associative operator (`^`) is parsed one below its power, 39, so it associates to the right
+ * and may itself start with a sign.
  *
  * Errors are collected, not thrown: after each problem the parser resynchronises (treats two adjacent
  * operands as multiplied, skips a stray `)` and so on) so one pass reports every independent mistake.
@@ -41,8 +43,10 @@ export const MAX_TREE_DEPTH = 500;
 /** Longest formula text accepted, in UTF-16 code units. */
 export const MAX_FORMULA_LENGTH = 10_000;
 
-const INFIX_POWER: Readonly<Record<BinaryOperator, number>> = { '+': 10, '-': 10, '*': 20, '/': 20, '^': 40 };
-const PREFIX_POWER = 30;
+const INFIX_POWER = Object.fromEntries(Object.entries(BINARY_OPERATORS).map(([op, info]) => [op, 10 * info.precedence])) as Readonly<
+  Record<BinaryOperator, number>
+>;
+const PREFIX_POWER = 10 * PREFIX_PRECEDENCE;
 /** Adjacent operands are reported and then parsed as if multiplied. */
 const IMPLICIT_POWER = INFIX_POWER['*'];
 /** A run of invalid characters is parsed as if it were an operator of the lowest precedence. */
@@ -147,8 +151,8 @@ class Parser {
   }
 
   private infix(left: Parsed, op: BinaryOperator): Parsed {
-    // '^' is right-associative: its right operand may contain another '^' (power 40 > 39).
-    const right = this.expression(op === '^' ? INFIX_POWER['^'] - 1 : INFIX_POWER[op]);
+    // A right-associative operator's right operand may contain the same operator ('^': power 40 > 39).
+    const right = this.expression(BINARY_OPERATORS[op].associativity === 'right' ? INFIX_POWER[op] - 1 : INFIX_POWER[op]);
     return this.combine(op, left, right);
   }
 

@@ -1,4 +1,5 @@
-import type { BinaryOperator, Expr } from './ast';
+import type { Expr } from './ast';
+import { ATOM_PRECEDENCE, BINARY_OPERATORS, PREFIX_PRECEDENCE } from './operators';
 
 /**
  * Formula text for a number: the shortest decimal that reads back as the same double (JavaScript's
@@ -30,21 +31,19 @@ export function printFormula(ast: Expr): string {
   }
 }
 
-const PRECEDENCE: Readonly<Record<BinaryOperator, number>> = { '+': 1, '-': 1, '*': 2, '/': 2, '^': 4 };
-const UNARY_PRECEDENCE = 3;
-const ATOM_PRECEDENCE = 5;
-
 function precedenceOf(ast: Expr): number {
-  if (ast.kind === 'binary') return PRECEDENCE[ast.op];
-  if (ast.kind === 'unary') return UNARY_PRECEDENCE;
+  if (ast.kind === 'binary') return BINARY_OPERATORS[ast.op].precedence;
+  if (ast.kind === 'unary') return PREFIX_PRECEDENCE;
   return ATOM_PRECEDENCE;
 }
 
 /**
  * Prints a tree with only the parentheses the grammar needs, e.g. `-x^2 + sin(2 * y)`; it too parses
- * back to the same tree. Rules: the left operand of `+ - * /` is bracketed when it binds more loosely,
- * the right one also when it binds equally (the operators are left-associative); `^` brackets a left
- * operand that is a power or a signed expression (`(-x)^2`), and a right operand looser than a sign.
+ * back to the same tree. Rules (from the operator table, operators.ts): a left-associative operator
+ * (`+ - * /`) brackets its left operand when it binds more loosely, the right one also when it binds
+ * equally; a right-associative one (`^`) brackets a left operand that binds equally or more loosely
+ * (a power, or a signed expression: `(-x)^2`), and a right operand looser than a sign (the parser
+ * reads that operand as one that may start with a sign).
  */
 export function prettyFormula(ast: Expr): string {
   switch (ast.kind) {
@@ -57,15 +56,15 @@ export function prettyFormula(ast: Expr): string {
     case 'unary': {
       const inner = prettyFormula(ast.operand);
       // `-(-x)` rather than `--x`, which reads like a decrement.
-      const bracket = precedenceOf(ast.operand) <= UNARY_PRECEDENCE;
+      const bracket = precedenceOf(ast.operand) <= PREFIX_PRECEDENCE;
       return `${ast.op}${bracket ? `(${inner})` : inner}`;
     }
     case 'binary': {
-      const own = PRECEDENCE[ast.op];
+      const { precedence: own, associativity } = BINARY_OPERATORS[ast.op];
       const left = precedenceOf(ast.left);
       const right = precedenceOf(ast.right);
-      const bracketLeft = ast.op === '^' ? left <= own : left < own;
-      const bracketRight = ast.op === '^' ? right < UNARY_PRECEDENCE : right <= own;
+      const bracketLeft = associativity === 'right' ? left <= own : left < own;
+      const bracketRight = associativity === 'right' ? right < PREFIX_PRECEDENCE : right <= own;
       const l = bracketLeft ? `(${prettyFormula(ast.left)})` : prettyFormula(ast.left);
       const r = bracketRight ? `(${prettyFormula(ast.right)})` : prettyFormula(ast.right);
       return ast.op === '^' ? `${l}^${r}` : `${l} ${ast.op} ${r}`;

@@ -1,7 +1,8 @@
 import { adamRule } from '../rules/library';
 import { compileRule } from '../rules/compile';
 import { METHODS, methodFor } from './methods';
-import type { HyperparameterInfo, HyperValue, OptimizerInfo, OptimizerKind, OptimizerSpec } from './spec';
+import type { HyperparameterInfo, HyperValue } from './settings';
+import type { OptimizerInfo, OptimizerKind, OptimizerSpec } from './spec';
 
 /** Metadata of every optimizer kind (labels, defaults, settings with ranges, sources). */
 export const OPTIMIZERS: readonly OptimizerInfo[] = METHODS.map((m) => m.info);
@@ -25,7 +26,7 @@ export function defaultOptimizerSpec(kind: OptimizerKind): OptimizerSpec {
   }
   for (const h of info.hyperparameters) hyper[h.name] = h.default;
   const spec: OptimizerSpec = { kind, learningRate: info.defaultLearningRate, hyper };
-  if (info.usesSchedule) spec.schedule = { kind: 'constant' };
+  if (info.family === 'first-order') spec.schedule = { kind: 'constant' };
   if (info.defaultWeightDecay > 0) spec.weightDecay = info.defaultWeightDecay;
   return spec;
 }

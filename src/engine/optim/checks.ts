@@ -1,4 +1,4 @@
-import type { HyperparameterInfo, HyperValue } from './spec';
+import type { HyperparameterInfo } from './settings';
 
 /**
  * Checks one setting against its description and returns the problem in words (without the
@@ -51,5 +51,3 @@ export function show(value: unknown): string {
 export function isPlainObject(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
 }
-
-export type { HyperValue };

@@ -1,6 +1,7 @@
 // The optimizers' one public door.
 export { SettingError, type Optimizer, type Oracle, type StepContext, type StepReport } from './types';
-export type { OptimizerKind, OptimizerSpec, HyperparameterInfo, HyperValue, OptimizerInfo, ResolvedSpec, RuleSpec } from './spec';
+export type { OptimizerFamily, OptimizerKind, OptimizerSpec, OptimizerInfo, ResolvedSpec, RuleSpec } from './spec';
+export type { HyperparameterInfo, HyperValue } from './settings';
 export { learningRateAt, SCHEDULES, scheduleInfo, type ScheduleSpec, type ScheduleKind, type ScheduleInfo } from './schedule';
 export { OPTIMIZERS, optimizerInfo, defaultOptimizerSpec, optimizerLabel, optimizerSettings } from './catalogue';
 export { validateOptimizerSpec, resolveSpec } from './validate';

@@ -1,5 +1,5 @@
 import { checkSetting, isPlainObject, show } from './checks';
-import type { HyperparameterInfo } from './spec';
+import type { HyperparameterInfo } from './settings';
 import { power } from '../power';
 
 /**

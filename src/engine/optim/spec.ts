@@ -1,4 +1,5 @@
 import type { ScheduleSpec } from './schedule';
+import type { HyperparameterInfo, HyperValue } from './settings';
 
 /**
  * The optimizer families Fall Line can run. First-order kinds are chains of gradient transforms
@@ -27,8 +28,6 @@ export interface RuleSpec {
   name: string;
   text: string;
 }
-
-export type HyperValue = number | boolean | string;
 
 /**
  * A configured optimizer as plain JSON-serialisable data: what the page edits, the experiment file
@@ -60,33 +59,20 @@ export interface OptimizerSpec {
   rule?: RuleSpec;
 }
 
-/** One kind-specific setting, described for validation and for the settings panel. */
-export interface HyperparameterInfo {
-  name: string;
-  label: string;
-  default: HyperValue;
-  min?: number;
-  max?: number;
-  minExclusive?: boolean;
-  maxExclusive?: boolean;
-  integer?: boolean;
-  /** For string settings: the allowed values. */
-  choices?: string[];
-  help: string;
-}
+/**
+ * How a kind takes its steps. 'first-order' kinds are chains of gradient transforms (or a rule): the
+ * learning-rate schedule, clipNorm and weightDecay apply to them. 'line-search' (L-BFGS) and 'curvature'
+ * (Newton) choose their own step lengths, so those three fields are refused.
+ */
+export type OptimizerFamily = 'first-order' | 'line-search' | 'curvature';
 
 export interface OptimizerInfo {
   kind: OptimizerKind;
   label: string;
   defaultLearningRate: number;
   hyperparameters: HyperparameterInfo[];
-  /**
-   * Whether the learning-rate schedule applies. It also marks the first-order kinds, the ones that
-   * accept clipNorm and weightDecay.
-   */
-  usesSchedule: boolean;
-  /** Default of the top-level weightDecay field (0 except AdamW). Added beyond the first sketch of
-   * this interface so the settings panel can show AdamW's own default. */
+  family: OptimizerFamily;
+  /** Default of the top-level weightDecay field (0 except AdamW), so the settings panel can show it. */
   defaultWeightDecay: number;
   summary: string;
   /** The paper or book the method comes from. */

@@ -46,7 +46,7 @@ export function validateOptimizerSpec(spec: OptimizerSpec): SettingError[] {
   numberField('l2Penalty', nonNegative);
   numberField('weightDecay', nonNegative);
 
-  if (!info.usesSchedule) {
+  if (info.family !== 'first-order') {
     const why = `does not apply to ${info.label}, which chooses its own step lengths`;
     if (raw.schedule !== undefined) fail('schedule', `schedule ${why}`);
     if (raw.clipNorm !== undefined) fail('clipNorm', `clipNorm ${why}`);

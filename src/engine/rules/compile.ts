@@ -26,7 +26,7 @@ const CACHE_SIZE = 32;
 const cache = new Map<string, CompiledRule>();
 
 /**
- * Parses, checks and compiles rule text (see parse.ts for the syntax, DEVELOPERS.md "Update rules").
+ * Parses, checks and compiles rule text (see parse.ts for the syntax, README.md here).
  * Throws RuleSyntaxError listing every problem with its line and column. Compiled rules are cached by
  * text, so the page, the worker and each run of a sweep share one generated function.
  */

@@ -1,4 +1,4 @@
-// Update rules: optimizers written as a few lines of state updates (see DEVELOPERS.md, "Update rules").
+// Update rules: optimizers written as a few lines of state updates (see README.md here).
 export type { RuleAst, Statement } from './ast';
 export { RuleSyntaxError, type RuleError } from './errors';
 export { parseRule, MAX_RULE_LINES, MAX_RULE_LENGTH } from './parse';

@@ -1,4 +1,5 @@
 import type { Surface } from '../surface';
+import { validateGridBox, type GridBox } from './box';
 import { planePoint, type SlicePlane } from './plane';
 
 /**
@@ -6,24 +7,13 @@ import { planePoint, type SlicePlane } from './plane';
  * a_i = a[0] + i (a[1] - a[0]) / (nx - 1), b_j = b[0] + j (b[1] - b[0]) / (ny - 1), stored row-major in a
  * flat Float64Array at index i + j nx, with j = 0 at b[0] (the bottom of the view).
  */
-export interface GridRequest {
+export interface GridRequest extends GridBox {
   plane: SlicePlane;
-  a: [number, number];
-  b: [number, number];
-  nx: number;
-  ny: number;
 }
 
-export const MAX_GRID_SIDE = 2048;
-
 export function validateGridRequest(req: GridRequest, dimension: number): void {
-  const { nx, ny, a, b, plane } = req;
-  for (const [name, n] of [['nx', nx], ['ny', ny]] as const)
-    if (!Number.isInteger(n) || n < 2 || n > MAX_GRID_SIDE)
-      throw new Error(`grid: ${name} must be a whole number from 2 to ${MAX_GRID_SIDE}, got ${n}`);
-  for (const [name, r] of [['a', a], ['b', b]] as const)
-    if (!(Number.isFinite(r[0]) && Number.isFinite(r[1]) && r[0] < r[1]))
-      throw new Error(`grid: the ${name} range must be two finite numbers, low < high, got [${r[0]}, ${r[1]}]`);
+  const { plane } = req;
+  validateGridBox(req);
   if (plane.origin.length !== dimension || plane.u.length !== dimension || plane.v.length !== dimension)
     throw new Error(`grid: the slice plane has ${plane.origin.length} coordinates but the surface has ${dimension}`);
 }

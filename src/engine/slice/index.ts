@@ -1,5 +1,6 @@
 export { axisPlane, distanceToPlane, planePoint, projectToPlane, type SlicePlane } from './plane';
-export { finiteRange, gridA, gridB, MAX_GRID_SIDE, sampleGrid, sampleGridRows, validateGridRequest, type GridRequest } from './grid';
+export { MAX_GRID_SIDE, validateGridBox, validateViewBox, type GridBox, type ViewBox } from './box';
+export { finiteRange, gridA, gridB, sampleGrid, sampleGridRows, validateGridRequest, type GridRequest } from './grid';
 export { validateGroups, wholeVectorGroup } from './groups';
 export { blockNorm, randomPlane, type RandomPlaneOptions } from './random';
 export { pcaPlane, type PcaPlane, type PcaPlaneOptions } from './pca';

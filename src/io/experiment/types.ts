@@ -2,14 +2,8 @@
  * The experiment file's contents as types: the page's saved workspace, the command line's input.
  * The schema (versions.ts) describes the same shape for untrusted input; what passes it is typed as these.
  */
-import type { OptimizerKind, OptimizerSpec, RunSettings, StudySpec } from '../../engine';
+import type { OptimizerKind, OptimizerSpec, RunSettings, StudySpec, ViewBox } from '../../engine';
 import type { SurfaceSpec } from '../../problems';
-
-/** The plotted box in slice coordinates: a along the first axis, b along the second. */
-export interface ViewBox {
-  a: [number, number];
-  b: [number, number];
-}
 
 /** Steps per second per run, or 'max'. */
 export type Pace = number | 'max';

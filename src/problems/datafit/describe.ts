@@ -1,7 +1,7 @@
 import { symmetricEigen } from '../../engine';
 import type { KnownPoint } from '../catalogue';
 import { LruCache, nistFile } from '../datasets';
-import type { SurfaceDescription } from '../spec';
+import type { SurfaceDescription } from '../types';
 import { buildDataFitSurface } from './build';
 import { designFor, type Design } from './design';
 import { linearLeastSquares } from './least-squares';

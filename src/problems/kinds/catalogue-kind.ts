@@ -1,6 +1,6 @@
 import { compileFormula, type FormulaSurface, type Surface } from '../../engine';
 import { catalogueEntry, knownPointsFor, resolveConstants, type CatalogueEntry } from '../catalogue';
-import type { CatalogueSpec, SurfaceDescription, SurfaceKind } from '../spec';
+import type { CatalogueSpec, SurfaceDescription, SurfaceKind } from '../types';
 import { checkConstants, checkString } from './check';
 
 /** Each entry's formula compiled once (with its default constants); builds rebind constants only. */

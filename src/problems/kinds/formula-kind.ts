@@ -1,5 +1,5 @@
 import { compileFormula, type Surface } from '../../engine';
-import type { FormulaSpec, SurfaceDescription, SurfaceKind } from '../spec';
+import type { FormulaSpec, SurfaceDescription, SurfaceKind } from '../types';
 import { checkConstants, checkString } from './check';
 
 /** The plotting box of a typed formula: [-3, 3] per variable (nothing is known about its scale). */

@@ -10,8 +10,9 @@
  * the gradient is missing, non-finite or zero get no arrow.
  */
 import type { DrawingContext } from './context';
-import { validateGridSpec, type GridSpec } from './grid-space';
-import type { ParamPoint, ViewTransform } from './scales';
+import { validateGridBox, type GridBox } from '../../engine';
+import type { ParamPoint } from './grid-space';
+import type { ViewTransform } from './scales';
 
 /** A direction or displacement in parameter space. */
 export interface ParamVector {
@@ -68,8 +69,8 @@ export function gradientArrows(
  * A slice gradient read from sampled gradient grids (ga = df/da, gb = df/db on the grid of grid-space.ts)
  * by bilinear interpolation; null outside the grid or next to a missing sample.
  */
-export function sampledGradient(grid: GridSpec, ga: Float64Array, gb: Float64Array): SliceGradient {
-  validateGridSpec(grid);
+export function sampledGradient(grid: GridBox, ga: Float64Array, gb: Float64Array): SliceGradient {
+  validateGridBox(grid);
   const { nx, ny } = grid;
   if (ga.length !== nx * ny || gb.length !== nx * ny) throw new Error(`arrows: gradient grids must hold ${nx * ny} values, got ${ga.length} and ${gb.length}`);
   return (p) => {

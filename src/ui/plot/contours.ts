@@ -22,7 +22,7 @@
  */
 import { contours } from 'd3';
 import { PLOT_STYLE, type DrawingContext } from './context';
-import { validateGridSpec, type GridSpec } from './grid-space';
+import { validateGridBox, type GridBox } from '../../engine';
 import type { ViewTransform } from './scales';
 
 /** A closed ring in parameter space, interleaved a, b pairs (the first point is not repeated). */
@@ -39,11 +39,11 @@ export interface ContourBand {
 
 export function contourBands(
   values: Float64Array,
-  grid: GridSpec,
+  grid: GridBox,
   thresholds: readonly number[],
   transform: (v: number) => number = (v) => v,
 ): ContourBand[] {
-  validateGridSpec(grid);
+  validateGridBox(grid);
   const { nx, ny } = grid;
   if (values.length !== nx * ny) throw new Error(`contours: expected ${nx} x ${ny} = ${nx * ny} values, got ${values.length}`);
   const t = new Float64Array(values.length);
@@ -84,7 +84,7 @@ export interface FilledContourOptions {
    * Defaults to PLOT_STYLE.missingColour when a grid is given; pass null to paint nothing.
    */
   missing?: string | null;
-  grid?: GridSpec;
+  grid?: GridBox;
 }
 
 /**
@@ -139,7 +139,7 @@ export interface IsolineStyle {
  * Strokes the level curves (band boundaries), leaving out the stretches that run along the edge of the
  * grid rectangle, which are where a band was cut by the sampled range rather than a level curve.
  */
-export function drawIsolines(ctx: DrawingContext, bands: readonly ContourBand[], grid: GridSpec, transform: ViewTransform, style: IsolineStyle = {}): void {
+export function drawIsolines(ctx: DrawingContext, bands: readonly ContourBand[], grid: GridBox, transform: ViewTransform, style: IsolineStyle = {}): void {
   const onEdge = edgeTest(grid);
   ctx.save();
   ctx.strokeStyle = style.colour ?? 'rgba(255,255,255,0.35)';
@@ -169,7 +169,7 @@ export function drawIsolines(ctx: DrawingContext, bands: readonly ContourBand[],
 }
 
 /** Whether the segment lies along one side of the grid rectangle. */
-export function edgeTest(grid: GridSpec): (a1: number, b1: number, a2: number, b2: number) => boolean {
+export function edgeTest(grid: GridBox): (a1: number, b1: number, a2: number, b2: number) => boolean {
   const ea = 1e-9 * (grid.a[1] - grid.a[0]);
   const eb = 1e-9 * (grid.b[1] - grid.b[0]);
   const near = (x: number, y: number, e: number) => Math.abs(x - y) <= e;

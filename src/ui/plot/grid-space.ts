@@ -7,14 +7,15 @@
  * The outermost samples lie exactly on the edges of the sampled ranges, so a minimum on the boundary of
  * a domain is sampled, and nx, ny >= 2.
  *
- * A `GridSpec` has the same fields as the engine's `GridRequest` ({a, b, nx, ny}), so a grid result from
- * the worker can be passed straight in.
+ * The grid's box is the engine's `GridBox` ({a, b, nx, ny}, with its validator and side cap), which a
+ * grid result from the worker extends, so one can be passed straight in.
  */
-import type { ParamPoint, ViewBox } from './scales';
+import type { GridBox, ViewBox } from '../../engine';
 
-export interface GridSpec extends ViewBox {
-  nx: number;
-  ny: number;
+/** A point of the slice plane (for a 2-D surface, a = x and b = y). */
+export interface ParamPoint {
+  a: number;
+  b: number;
 }
 
 /** Fractional sample indices: i along a, j along b (j = 0 at the bottom). */
@@ -23,27 +24,19 @@ export interface GridPoint {
   j: number;
 }
 
-export function validateGridSpec(grid: GridSpec): void {
-  for (const [name, n] of [['nx', grid.nx], ['ny', grid.ny]] as const)
-    if (!(Number.isInteger(n) && n >= 2)) throw new Error(`grid: ${name} must be a whole number of at least 2, got ${n}`);
-  for (const [name, r] of [['a', grid.a], ['b', grid.b]] as const)
-    if (!(Number.isFinite(r[0]) && Number.isFinite(r[1]) && r[0] < r[1]))
-      throw new Error(`grid: the ${name} range must be two finite numbers, low < high, got [${r[0]}, ${r[1]}]`);
-}
-
 /** Parameter spacing between neighbouring samples. */
-export function gridStep(grid: GridSpec): { da: number; db: number } {
+export function gridStep(grid: GridBox): { da: number; db: number } {
   return { da: (grid.a[1] - grid.a[0]) / (grid.nx - 1), db: (grid.b[1] - grid.b[0]) / (grid.ny - 1) };
 }
 
-export function gridToParam(grid: GridSpec, c: GridPoint): ParamPoint {
+export function gridToParam(grid: GridBox, c: GridPoint): ParamPoint {
   return {
     a: grid.a[0] + (c.i * (grid.a[1] - grid.a[0])) / (grid.nx - 1),
     b: grid.b[0] + (c.j * (grid.b[1] - grid.b[0])) / (grid.ny - 1),
   };
 }
 
-export function paramToGrid(grid: GridSpec, p: ParamPoint): GridPoint {
+export function paramToGrid(grid: GridBox, p: ParamPoint): GridPoint {
   return {
     i: ((p.a - grid.a[0]) * (grid.nx - 1)) / (grid.a[1] - grid.a[0]),
     j: ((p.b - grid.b[0]) * (grid.ny - 1)) / (grid.b[1] - grid.b[0]),
@@ -51,6 +44,6 @@ export function paramToGrid(grid: GridSpec, p: ParamPoint): GridPoint {
 }
 
 /** The parameter ranges a grid covers. */
-export function gridView(grid: GridSpec): ViewBox {
+export function gridView(grid: GridBox): ViewBox {
   return { a: [grid.a[0], grid.a[1]], b: [grid.b[0], grid.b[1]] };
 }

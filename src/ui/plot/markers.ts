@@ -10,7 +10,8 @@
  */
 import { canvasFont, PLOT_STYLE, type DrawingContext } from './context';
 import type { MarkerShape } from './run-style';
-import type { ParamPoint, PixelPoint, ViewTransform } from './scales';
+import type { ParamPoint } from './grid-space';
+import type { PixelPoint, ViewTransform } from './scales';
 
 /** Offsets from the marker centre in pixels (py down). */
 export type MarkerGeometry = { kind: 'circle'; r: number } | { kind: 'polygon'; points: PixelPoint[] };

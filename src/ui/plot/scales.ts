@@ -12,24 +12,14 @@
  * positions before calling `toParam`, `zoomAt` or `panBy`. Device pixel ratio is the caller's business
  * too (`ctx.setTransform(dpr, 0, 0, dpr, 0, 0)` before drawing).
  */
-import { gridToParam, type GridSpec } from './grid-space';
+import { validateViewBox, type GridBox, type ViewBox } from '../../engine';
+import { gridToParam, type ParamPoint } from './grid-space';
 
-/** Visible parameter ranges, low < high on each axis. */
-export interface ViewBox {
-  a: [number, number];
-  b: [number, number];
-}
 
 /** Size of the plot frame in CSS pixels. */
 export interface PixelSize {
   width: number;
   height: number;
-}
-
-/** A point of the slice plane (for a 2-D surface, a = x and b = y). */
-export interface ParamPoint {
-  a: number;
-  b: number;
 }
 
 /** A frame-local position in CSS pixels; py grows downward. */
@@ -55,7 +45,7 @@ export interface ViewTransform {
    * Pixel position of grid sample (i, j), fractional indices allowed. The grid carries its own ranges
    * (it may lag the view while a new grid is being sampled after a zoom), hence the `grid` argument.
    */
-  gridToPixel(grid: GridSpec, i: number, j: number): PixelPoint;
+  gridToPixel(grid: GridBox, i: number, j: number): PixelPoint;
 }
 
 /** Smallest span a zoom may reach, relative to the magnitude of the coordinates (double precision guard). */
@@ -64,9 +54,7 @@ export const MIN_RELATIVE_SPAN = 1e-9;
 export const MAX_SPAN = 1e12;
 
 export function validateView(view: ViewBox): void {
-  for (const [name, r] of [['a', view.a], ['b', view.b]] as const)
-    if (!(Number.isFinite(r[0]) && Number.isFinite(r[1]) && r[0] < r[1]))
-      throw new Error(`view: the ${name} range must be two finite numbers, low < high, got [${r[0]}, ${r[1]}]`);
+  validateViewBox(view, 'view');
 }
 
 export function validateSize(size: PixelSize): void {

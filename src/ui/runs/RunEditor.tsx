@@ -95,7 +95,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
         <legend>Step size</legend>
         <NumberField label={opt.kind === 'lbfgs' ? 'first trial step' : opt.kind === 'newton' ? 'damping factor' : 'learning rate'} value={opt.learningRate} onCommit={(v) => tryOptimizer({ ...opt, learningRate: v! }, 'learningRate')} />
         <RateHint run={run} />
-        {info.usesSchedule && (
+        {info.family === 'first-order' && (
           <>
             <div className="field">
               <label htmlFor={scheduleId}>Schedule</label>
@@ -139,9 +139,9 @@ export function RunEditor({ run }: { run: RunConfig }) {
       )}
       <fieldset>
         <legend>Regularisation</legend>
-        {info.usesSchedule && <NumberField compact optional label="clip gradient norm at" value={opt.clipNorm} onCommit={(v) => tryOptimizer(omitUndefined({ ...opt, clipNorm: v }), 'clipNorm')} />}
+        {info.family === 'first-order' && <NumberField compact optional label="clip gradient norm at" value={opt.clipNorm} onCommit={(v) => tryOptimizer(omitUndefined({ ...opt, clipNorm: v }), 'clipNorm')} />}
         <NumberField compact optional label="L2 penalty (coupled)" value={opt.l2Penalty} onCommit={(v) => tryOptimizer(omitUndefined({ ...opt, l2Penalty: v }), 'l2Penalty')} />
-        {info.usesSchedule && opt.kind !== 'rule' && (
+        {info.family === 'first-order' && opt.kind !== 'rule' && (
           <NumberField compact optional label="weight decay (decoupled)" value={opt.weightDecay ?? info.defaultWeightDecay} onCommit={(v) => tryOptimizer(omitUndefined({ ...opt, weightDecay: v }), 'weightDecay')} />
         )}
       </fieldset>

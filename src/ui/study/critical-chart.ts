@@ -3,7 +3,8 @@
  * degenerate or not classified), drawn on any drawing context; shared by the panel and its figure.
  */
 import type { CriticalPoint } from '../../engine';
-import { drawMarker, viewTransform, type DrawingContext, type MarkerShape, type PixelSize, type ViewBox } from '../plot';
+import { drawMarker, viewTransform, type DrawingContext, type MarkerShape, type PixelSize } from '../plot';
+import type { ViewBox } from '../../engine';
 
 export const CRITICAL_GLYPHS: Record<'minimum' | 'saddle' | 'maximum' | 'degenerate', { shape: MarkerShape; colour: string; key: string }> = {
   minimum: { shape: 'circle', colour: '#009e73', key: 'minimum' },

@@ -4,7 +4,8 @@
  * of a few basins stays a few thousand rectangles), and the known minima as the map's glyph.
  */
 import type { KnownPoint as BasinPoint } from '../../engine';
-import { drawKnownPoints, viewTransform, type DrawingContext, type PixelSize, type ViewBox } from '../plot';
+import { drawKnownPoints, viewTransform, type DrawingContext, type PixelSize } from '../plot';
+import type { ViewBox } from '../../engine';
 
 /** Paints `rgba` (resolution x resolution, row 0 at the top) over a `size` box at the origin; clear pixels stay unpainted. */
 export function drawMapCells(ctx: DrawingContext, rgba: Uint8ClampedArray, resolution: number, size: PixelSize): void {

@@ -1,7 +1,7 @@
 import { gridRangeForProjection, hasParameterGroups, pcaPlane, randomPlane, type Surface } from '../../engine';
 import type { TrajectoryBuffer } from '../../store/trajectory-buffer';
 import type { PlaneSlice } from '../../store/workspace';
-import type { ViewBox } from '../plot';
+import type { ViewBox } from '../../engine';
 
 /**
  * A filter-normalised random plane through `centre` (Li, Xu, Taylor, Studer & Goldstein, NeurIPS 2018),

@@ -1,4 +1,5 @@
-import { AXES_MARGIN, viewTransform, type PixelPoint, type PixelSize, type ViewBox, type ViewTransform } from '../plot';
+import { AXES_MARGIN, viewTransform, type PixelPoint, type PixelSize, type ViewTransform } from '../plot';
+import type { ViewBox } from '../../engine';
 
 /** Room to the right of the plot frame for the colour legend. */
 export const LEGEND_WIDTH = 92;

@@ -1,11 +1,12 @@
 import { useEffect, useState } from 'react';
 import type { GridState } from '../../store/app-store';
 import type { DisplaySettings } from '../../store/workspace';
-import { bandColours, contourBands, legendModel, thresholdsFor, valueScale, type ContourBand, type GridSpec, type LegendModel } from '../plot';
+import { bandColours, contourBands, legendModel, thresholdsFor, valueScale, type ContourBand, type LegendModel } from '../plot';
+import type { GridBox } from '../../engine';
 
 /** The contoured surface: computed once per grid and display setting, drawn by every panel. */
 export interface SurfacePicture {
-  grid: GridSpec;
+  grid: GridBox;
   bands: ContourBand[];
   colours: string[];
   legend: LegendModel;
@@ -39,7 +40,7 @@ export function buildPicture(grid: GridState, display: DisplaySettings, knownMin
   if (ready) return Promise.resolve(ready);
   const inFlight = pending.get(values)?.get(key);
   if (inFlight) return inFlight;
-  const spec: GridSpec = { a: req.a, b: req.b, nx: req.nx, ny: req.ny };
+  const spec: GridBox = { a: req.a, b: req.b, nx: req.nx, ny: req.ny };
   // A log scale measures the loss above the surface's known minimum where there is one (the value may
   // be negative, as for the six-hump camel), else above the grid's lowest value.
   const low = display.scale === 'log' && knownMinimum !== undefined ? Math.min(grid.min, knownMinimum) : grid.min;

@@ -11,8 +11,8 @@ import {
   type DrawingContext,
   type KnownPoint,
   type RunStyle,
-  type ViewBox,
 } from '../plot';
+import type { ViewBox } from '../../engine';
 import { frameTransform, type FrameLayout } from './frame';
 import type { SurfacePicture } from './picture';
 

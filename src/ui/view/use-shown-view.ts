@@ -5,7 +5,7 @@
  */
 import { useMemo } from 'react';
 import { viewShownBy } from '../../store/app-store';
-import type { ViewBox } from '../plot';
+import type { ViewBox } from '../../engine';
 import { useApp } from '../app-context';
 
 export function useShownView(): ViewBox {

@@ -3,7 +3,7 @@
  */
 import fc from 'fast-check';
 import type { BinaryOperator, Expr, UnaryOperator } from '../../../src/engine/expr';
-import { FUNCTIONS } from '../../../src/engine/expr';
+import { FUNCTIONS, UNARY_PRIMITIVES, VARIADIC_PRIMITIVES } from '../../../src/engine/expr';
 
 const NO_SPAN = { start: 0, end: 0 };
 
@@ -60,10 +60,11 @@ export const anyFormula: fc.Arbitrary<Expr> = treeOf(
 /** Function families for the numeric generator. */
 export type FunctionFamily = 'smooth' | 'kinked' | 'mathjs';
 
-/** Smooth everywhere on their (wrapped) domains. */
-const SMOOTH_UNARY = ['sin', 'cos', 'tan', 'asin', 'acos', 'atan', 'sinh', 'cosh', 'tanh', 'exp', 'expm1', 'log', 'log1p', 'sqrt', 'sigmoid', 'softplus'];
+const UNARY_NAMES = Object.keys(UNARY_PRIMITIVES) as (keyof typeof UNARY_PRIMITIVES)[];
+/** Smooth everywhere on their (wrapped) domains (the primitives table's `smooth`). */
+const SMOOTH_UNARY = UNARY_NAMES.filter((name) => UNARY_PRIMITIVES[name].smooth);
 /** Not differentiable (or not twice) at isolated points. */
-const KINKED_UNARY = ['abs', 'sign', 'relu', 'elu'];
+const KINKED_UNARY = UNARY_NAMES.filter((name) => !UNARY_PRIMITIVES[name].smooth);
 /** What mathjs 15.2.0 `derivative` can handle after the translation in mathjs-text.ts (no sign, no elu). */
 const MATHJS_UNARY = [...SMOOTH_UNARY, 'abs', 'relu'];
 
@@ -87,7 +88,7 @@ export function numericFormula(family: FunctionFamily, maxDepth = 4): fc.Arbitra
   const unary = family === 'smooth' ? SMOOTH_UNARY : family === 'kinked' ? [...SMOOTH_UNARY, ...KINKED_UNARY] : MATHJS_UNARY;
   // min and max are left out of the mathjs family: their translation (a + b -/+ |a - b|) / 2 cancels
   // catastrophically when |a| >> |b|, so mathjs's own numbers are then wrong in the last digits.
-  const variadic = family === 'kinked' ? ['min', 'max'] : [];
+  const variadic = family === 'kinked' ? Object.keys(VARIADIC_PRIMITIVES) : [];
   const smallLiteral = fc.oneof(fc.integer({ min: 0, max: 5 }), fc.constantFrom(0.5, 1.5, 0.25, 3.7));
   const leaf = fc.oneof(
     { arbitrary: smallLiteral.map(num), weight: 1 },

@@ -2,13 +2,14 @@ import { describe, expect, it } from 'vitest';
 import { drawFigure } from '../../../src/ui/figure/compose';
 import { approximateWidth } from '../../../src/ui/figure/render';
 import { SvgContext } from '../../../src/ui/figure/svg-context';
-import { bandColours, contourBands, gradientArrows, legendModel, levelThresholds, runStyle, valueScale, viewTransform, type GridSpec } from '../../../src/ui/plot';
+import { bandColours, contourBands, gradientArrows, legendModel, levelThresholds, runStyle, valueScale, viewTransform } from '../../../src/ui/plot';
+import type { GridBox } from '../../../src/engine';
 import { frameLayout } from '../../../src/ui/view/frame';
 import { drawBase, drawOverlay } from '../../../src/ui/view/scene';
 import { xmlProblems } from '../plot/xml-check';
 
 // The single map drawn into a figure on an SvgContext by the page's own drawBase and drawOverlay.
-const grid: GridSpec = { a: [-2, 2], b: [-2, 2], nx: 41, ny: 41 };
+const grid: GridBox = { a: [-2, 2], b: [-2, 2], nx: 41, ny: 41 };
 const values = new Float64Array(grid.nx * grid.ny);
 for (let j = 0; j < grid.ny; j++) for (let i = 0; i < grid.nx; i++) values[i + j * grid.nx] = (-2 + i * 0.1) ** 2 + (-2 + j * 0.1) ** 2;
 values[5] = Number.NaN;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { drawArrows, gradientArrows, sampledGradient, viewTransform, type GridSpec, type SliceGradient } from '../../../src/ui/plot';
+import { drawArrows, gradientArrows, sampledGradient, viewTransform, type SliceGradient } from '../../../src/ui/plot';
+import type { GridBox } from '../../../src/engine';
 import { RecordingContext } from './recording-context';
 
 // f(a, b) = a^2 + 4 b^2, gradient (2a, 8b)
@@ -46,7 +47,7 @@ describe('gradientArrows', () => {
 
 describe('sampledGradient', () => {
   it('bilinear interpolation of sampled gradients is exact for a quadratic surface (linear gradient)', () => {
-    const g: GridSpec = { a: [-2, 2], b: [-1, 1], nx: 9, ny: 5 };
+    const g: GridBox = { a: [-2, 2], b: [-1, 1], nx: 9, ny: 5 };
     const ga = new Float64Array(g.nx * g.ny);
     const gb = new Float64Array(g.nx * g.ny);
     for (let j = 0; j < g.ny; j++)

@@ -4,7 +4,11 @@ import { camelValues } from './camel';
 
 function range(values: Float64Array): { min: number; max: number } {
   let min = Infinity, max = -Infinity;
-  for (const v of values) if (Number.isFinite(v)) (min = Math.min(min, v)), (max = Math.max(max, v));
+  for (const v of values)
+    if (Number.isFinite(v)) {
+      min = Math.min(min, v);
+      max = Math.max(max, v);
+    }
   return { min, max };
 }
 

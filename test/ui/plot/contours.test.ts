@@ -8,14 +8,14 @@ import {
   valueScale,
   viewTransform,
   type ContourBand,
-  type GridSpec,
   type ParamRing,
 } from '../../../src/ui/plot';
+import type { GridBox } from '../../../src/engine';
 import { RecordingContext } from './recording-context';
 
-const grid: GridSpec = { a: [-2, 2], b: [-2, 2], nx: 101, ny: 101 };
+const grid: GridBox = { a: [-2, 2], b: [-2, 2], nx: 101, ny: 101 };
 
-function sample(g: GridSpec, f: (a: number, b: number) => number): Float64Array {
+function sample(g: GridBox, f: (a: number, b: number) => number): Float64Array {
   const out = new Float64Array(g.nx * g.ny);
   for (let j = 0; j < g.ny; j++)
     for (let i = 0; i < g.nx; i++) out[i + j * g.nx] = f(g.a[0] + (i * (g.a[1] - g.a[0])) / (g.nx - 1), g.b[0] + (j * (g.b[1] - g.b[0])) / (g.ny - 1));
@@ -28,7 +28,7 @@ function points(ring: ParamRing): { a: number; b: number }[] {
   return out;
 }
 
-const touchesEdge = (ring: ParamRing, g: GridSpec) => points(ring).some((p) => p.a === g.a[0] || p.a === g.a[1] || p.b === g.b[0] || p.b === g.b[1]);
+const touchesEdge = (ring: ParamRing, g: GridBox) => points(ring).some((p) => p.a === g.a[0] || p.a === g.a[1] || p.b === g.b[0] || p.b === g.b[1]);
 
 /** Even-odd point-in-band test over all rings of the band. */
 function inBand(band: ContourBand, a: number, b: number): boolean {
@@ -72,7 +72,7 @@ describe('contourBands', () => {
   });
 
   it('a threshold below every value covers the grid rectangle exactly (d3 half-cell overhang removed)', () => {
-    const g: GridSpec = { a: [1, 3], b: [-5, -4], nx: 7, ny: 4 };
+    const g: GridBox = { a: [1, 3], b: [-5, -4], nx: 7, ny: 4 };
     const [band] = contourBands(sample(g, (a, b) => a + b), g, [-100]);
     const p = band.polygons.flat().flatMap(points);
     expect(Math.min(...p.map((q) => q.a))).toBe(1);
@@ -82,7 +82,7 @@ describe('contourBands', () => {
   });
 
   it('row j = 0 is b0: the band of f = b above 0.5 is the top part, drawn in the upper part of the frame', () => {
-    const g: GridSpec = { a: [0, 1], b: [0, 1], nx: 11, ny: 11 };
+    const g: GridBox = { a: [0, 1], b: [0, 1], nx: 11, ny: 11 };
     const [band] = contourBands(sample(g, (_, b) => b), g, [0.5]);
     const p = band.polygons.flat().flatMap(points);
     expect(Math.min(...p.map((q) => q.b))).toBeCloseTo(0.5, 12);

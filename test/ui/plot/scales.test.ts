@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { fitAspect, gridToParam, panBy, paramToGrid, viewTransform, zoomAt, type ViewBox } from '../../../src/ui/plot';
+import { fitAspect, gridToParam, panBy, paramToGrid, viewTransform, zoomAt } from '../../../src/ui/plot';
+import type { ViewBox } from '../../../src/engine';
 
 const view: ViewBox = { a: [-2, 2], b: [-1, 3] };
 const size = { width: 400, height: 200 };

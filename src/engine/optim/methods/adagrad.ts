@@ -1,7 +1,8 @@
-import { scaleByAdagrad, type EpsilonPlacement } from '../transforms';
+import { number } from '../settings';
+import { scaleByAdagrad } from '../transforms';
 import { firstOrderChain } from './firstOrder';
-import { num, str, type MethodDefinition } from './method';
-import { epsilonInfo, placementInfo } from './sharedSettings';
+import { defineMethod } from './method';
+import { epsilon, epsilonPlacement } from './sharedSettings';
 
 /**
  * AdaGrad (Duchi, Hazan & Singer, "Adaptive Subgradient Methods for Online Learning and Stochastic
@@ -14,29 +15,18 @@ import { epsilonInfo, placementInfo } from './sharedSettings';
  * epsilon) inside, initial accumulator 0.1; PyTorch's lr_decay is our inverse-time schedule with
  * decaySteps 1. The paper adds delta outside the root.
  */
-export const adagrad: MethodDefinition = {
-  info: {
+export const adagrad = defineMethod({
     kind: 'adagrad',
     label: 'AdaGrad',
     defaultLearningRate: 0.01,
-    hyperparameters: [
-      epsilonInfo(1e-10),
-      placementInfo,
-      {
-        name: 'initialAccumulator',
-        label: 'initial accumulator',
-        default: 0,
-        min: 0,
-        help: 'Starting value of the sum of squared gradients (PyTorch 0; Keras, Optax, tfjs 0.1).',
-      },
-    ],
-    usesSchedule: true,
+    family: 'first-order',
+    settings: {
+      epsilon: epsilon(1e-10),
+      epsilonPlacement,
+      initialAccumulator: number(0, { label: 'initial accumulator', min: 0, help: 'Starting value of the sum of squared gradients (PyTorch 0; Keras, Optax, tfjs 0.1).' }),
+    },
     defaultWeightDecay: 0,
     summary: 'Divides each coordinate by the root of its summed squared gradients: large early steps, then ever smaller.',
     source: 'Duchi, Hazan & Singer, "Adaptive Subgradient Methods for Online Learning and Stochastic Optimization", JMLR 12, 2011.',
-  },
-  build: (spec) =>
-    firstOrderChain('AdaGrad', spec, [
-      scaleByAdagrad(num(spec, 'epsilon'), str<EpsilonPlacement>(spec, 'epsilonPlacement'), num(spec, 'initialAccumulator')),
-    ]),
-};
+  build: (s, spec) => firstOrderChain('AdaGrad', spec, [scaleByAdagrad(s.epsilon, s.epsilonPlacement, s.initialAccumulator)]),
+});

@@ -1,16 +1,7 @@
-import type { HyperparameterInfo } from '../spec';
-import { scaleByAdam, type AdamEpsilonForm } from '../transforms';
+import { scaleByAdam } from '../transforms';
 import { firstOrderChain } from './firstOrder';
-import { num, str, type MethodDefinition } from './method';
-import { beta1Info, beta2Info, epsilonInfo } from './sharedSettings';
-
-export const adamEpsilonFormInfo: HyperparameterInfo = {
-  name: 'epsilonForm',
-  label: 'epsilon form',
-  default: 'eps-after-correction',
-  choices: ['eps-after-correction', 'eps-before-correction'],
-  help: "'eps-after-correction': mhat / (sqrt(vhat) + eps), epsilon added to the root of the bias-corrected second moment (Kingma & Ba 2015, Algorithm 1); 'eps-before-correction': lr sqrt(1 - b2^t)/(1 - b1^t) m / (sqrt(v) + eps), epsilon added to the root of the raw one (the paper's epsilon-hat form, section 2).",
-};
+import { defineMethod } from './method';
+import { adamEpsilonForm, beta1, beta2, epsilon } from './sharedSettings';
 
 /**
  * Adam (Kingma & Ba, "Adam: A Method for Stochastic Optimization", ICLR 2015, Algorithm 1):
@@ -23,19 +14,14 @@ export const adamEpsilonFormInfo: HyperparameterInfo = {
  * (epsilonForm 'eps-before-correction'); tfjs is Algorithm 1 with eps 1e-7. PyTorch's weight_decay is our coupled
  * l2Penalty; Optax's eps_root (inside the root) is not offered here.
  */
-export const adam: MethodDefinition = {
-  info: {
+export const adam = defineMethod({
     kind: 'adam',
     label: 'Adam',
     defaultLearningRate: 0.001,
-    hyperparameters: [beta1Info(), beta2Info(), epsilonInfo(1e-8), adamEpsilonFormInfo],
-    usesSchedule: true,
+    family: 'first-order',
+    settings: { beta1: beta1(), beta2: beta2(), epsilon: epsilon(1e-8), epsilonForm: adamEpsilonForm },
     defaultWeightDecay: 0,
     summary: 'Momentum on the gradient divided by the root of a running mean of squared gradients, both bias-corrected.',
     source: 'D. P. Kingma & J. Ba, "Adam: A Method for Stochastic Optimization", ICLR 2015.',
-  },
-  build: (spec) =>
-    firstOrderChain('Adam', spec, [
-      scaleByAdam(num(spec, 'beta1'), num(spec, 'beta2'), num(spec, 'epsilon'), str<AdamEpsilonForm>(spec, 'epsilonForm')),
-    ]),
-};
+  build: (s, spec) => firstOrderChain('Adam', spec, [scaleByAdam(s.beta1, s.beta2, s.epsilon, s.epsilonForm)]),
+});

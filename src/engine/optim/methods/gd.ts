@@ -1,5 +1,5 @@
 import { firstOrderChain } from './firstOrder';
-import type { MethodDefinition } from './method';
+import { defineMethod } from './method';
 
 /**
  * Gradient descent: x_t = x_{t-1} - lr_t g_t.
@@ -10,16 +10,14 @@ import type { MethodDefinition } from './method';
  * convex optimization textbook, Kluwer 2004, Thm 2.1.15). Cauchy (1847) proposed the method.
  * With plain descent, coupled L2 (g + l2 x) and decoupled decay (lr * weightDecay * x) are the same step.
  */
-export const gd: MethodDefinition = {
-  info: {
+export const gd = defineMethod({
     kind: 'gd',
     label: 'Gradient descent',
     defaultLearningRate: 0.01,
-    hyperparameters: [],
-    usesSchedule: true,
+    family: 'first-order',
+    settings: {},
     defaultWeightDecay: 0,
     summary: 'Steps against the gradient, scaled by the learning rate.',
     source: 'Cauchy, "Methode generale pour la resolution des systemes d\'equations simultanees", C. R. Acad. Sci. Paris 25, 1847.',
-  },
-  build: (spec) => firstOrderChain('Gradient descent', spec, []),
-};
+  build: (_settings, spec) => firstOrderChain('Gradient descent', spec, []),
+});

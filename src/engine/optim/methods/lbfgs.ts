@@ -3,7 +3,8 @@ import { clearHistory, createHistory, pushPair, twoLoopDirection, type Curvature
 import { strongWolfeSearch, type LinePoint } from '../search';
 import type { ResolvedSpec } from '../spec';
 import type { Optimizer, StepReport } from '../types';
-import { num, str, type MethodDefinition } from './method';
+import { choice, number, type SettingValues } from '../settings';
+import { defineMethod } from './method';
 
 /**
  * L-BFGS (Liu & Nocedal, "On the limited memory BFGS method for large scale optimization", Math.
@@ -25,44 +26,37 @@ import { num, str, type MethodDefinition } from './method';
  * evaluation the search made.
  * With l2Penalty the objective is f + l2/2 |x|^2 throughout; the recorded loss stays f.
  */
-export const lbfgs: MethodDefinition = {
-  info: {
+const LBFGS_SETTINGS = {
+  historySize: number(10, { label: 'history size (m)', min: 1, max: 1000, integer: true, help: 'Curvature pairs kept.' }),
+  lineSearch: choice(['strong-wolfe', 'none'], {
+    label: 'line search',
+    help: "'strong-wolfe': Nocedal & Wright Alg. 3.5/3.6; 'none': fixed step equal to the learning rate (PyTorch's default).",
+  }),
+  c1: number(1e-4, { label: 'c1 (sufficient decrease)', min: 0, max: 1, minExclusive: true, maxExclusive: true, help: 'Armijo constant of the Wolfe conditions.' }),
+  c2: number(0.9, { label: 'c2 (curvature)', min: 0, max: 1, minExclusive: true, maxExclusive: true, help: 'Curvature constant of the strong Wolfe conditions (0.9 for quasi-Newton).' }),
+  maxLineSearchEvaluations: number(20, { label: 'evaluations per line search', min: 1, max: 1000, integer: true, help: 'Budget of function evaluations for one line search.' }),
+};
+
+export const lbfgs = defineMethod({
     kind: 'lbfgs',
     label: 'L-BFGS',
     defaultLearningRate: 1,
-    hyperparameters: [
-      { name: 'historySize', label: 'history size (m)', default: 10, min: 1, max: 1000, integer: true, help: 'Curvature pairs kept.' },
-      {
-        name: 'lineSearch',
-        label: 'line search',
-        default: 'strong-wolfe',
-        choices: ['strong-wolfe', 'none'],
-        help: "'strong-wolfe': Nocedal & Wright Alg. 3.5/3.6; 'none': fixed step equal to the learning rate (PyTorch's default).",
-      },
-      { name: 'c1', label: 'c1 (sufficient decrease)', default: 1e-4, min: 0, max: 1, minExclusive: true, maxExclusive: true, help: 'Armijo constant of the Wolfe conditions.' },
-      { name: 'c2', label: 'c2 (curvature)', default: 0.9, min: 0, max: 1, minExclusive: true, maxExclusive: true, help: 'Curvature constant of the strong Wolfe conditions (0.9 for quasi-Newton).' },
-      { name: 'maxLineSearchEvaluations', label: 'evaluations per line search', default: 20, min: 1, max: 1000, integer: true, help: 'Budget of function evaluations for one line search.' },
-    ],
-    usesSchedule: false,
+    family: 'line-search',
+    settings: LBFGS_SETTINGS,
     defaultWeightDecay: 0,
     summary: 'Quasi-Newton steps from a short memory of gradient changes, with a line search.',
     source: 'D. C. Liu & J. Nocedal, "On the limited memory BFGS method for large scale optimization", Math. Programming 45, 1989.',
-  },
-  crossChecks: (spec) =>
-    num(spec, 'c1') < num(spec, 'c2') ? [] : [['hyper.c1', `c1 must be less than c2, got c1 = ${num(spec, 'c1')}, c2 = ${num(spec, 'c2')}`]],
-  build: (spec) => buildLbfgs(spec),
-};
+  crossChecks: ({ c1, c2 }) => (c1 < c2 ? [] : [['hyper.c1', `c1 must be less than c2, got c1 = ${c1}, c2 = ${c2}`]]),
+  build: (settings, spec) => buildLbfgs(settings, spec),
+});
 
 export interface LbfgsState {
   history: CurvatureHistory;
 }
 
-function buildLbfgs(spec: ResolvedSpec): Optimizer<LbfgsState> {
-  const m = num(spec, 'historySize');
-  const c1 = num(spec, 'c1');
-  const c2 = num(spec, 'c2');
-  const maxEvaluations = num(spec, 'maxLineSearchEvaluations');
-  const useSearch = str(spec, 'lineSearch') === 'strong-wolfe';
+function buildLbfgs(settings: SettingValues<typeof LBFGS_SETTINGS>, spec: ResolvedSpec): Optimizer<LbfgsState> {
+  const { historySize: m, c1, c2, maxLineSearchEvaluations: maxEvaluations } = settings;
+  const useSearch = settings.lineSearch === 'strong-wolfe';
   const lr = spec.learningRate;
   const l2 = spec.l2Penalty;
   let n = -1;

@@ -1,7 +1,8 @@
 import { traceMomentum } from '../transforms';
 import { firstOrderChain } from './firstOrder';
-import { num, type MethodDefinition } from './method';
-import { momentumInfo } from './sharedSettings';
+import { unit } from '../settings';
+import { defineMethod } from './method';
+import { momentum as momentumSetting } from './sharedSettings';
 
 /**
  * Heavy-ball momentum (Polyak 1964), PyTorch buffer form:
@@ -18,27 +19,17 @@ import { momentumInfo } from './sharedSettings';
  * Source: B. T. Polyak, "Some methods of speeding up the convergence of iteration methods", USSR
  * Comput. Math. & Math. Phys. 4(5), 1964.
  */
-export const momentum: MethodDefinition = {
-  info: {
+export const momentum = defineMethod({
     kind: 'momentum',
     label: 'Momentum (heavy ball)',
     defaultLearningRate: 0.01,
-    hyperparameters: [
-      momentumInfo(0.9, 'Fraction of the previous step direction kept (mu).'),
-      {
-        name: 'dampening',
-        label: 'dampening',
-        default: 0,
-        min: 0,
-        max: 1,
-        maxExclusive: true,
-        help: 'PyTorch dampening tau: new gradients enter the buffer as (1 - tau) g, except on the first step.',
-      },
-    ],
-    usesSchedule: true,
+    family: 'first-order',
+    settings: {
+      momentum: momentumSetting(0.9, 'Fraction of the previous step direction kept (mu).'),
+      dampening: unit(0, { help: 'PyTorch dampening tau: new gradients enter the buffer as (1 - tau) g, except on the first step.' }),
+    },
     defaultWeightDecay: 0,
     summary: 'Gradient descent that keeps a running sum of past steps, rolling through narrow valleys.',
     source: 'B. T. Polyak, "Some methods of speeding up the convergence of iteration methods", USSR Comput. Math. & Math. Phys. 4(5), 1964.',
-  },
-  build: (spec) => firstOrderChain('Momentum (heavy ball)', spec, [traceMomentum(num(spec, 'momentum'), num(spec, 'dampening'))]),
-};
+  build: (s, spec) => firstOrderChain('Momentum (heavy ball)', spec, [traceMomentum(s.momentum, s.dampening)]),
+});

@@ -3,7 +3,8 @@ import { dot } from '../../vector';
 import { backtrackingSearch } from '../search';
 import type { ResolvedSpec } from '../spec';
 import type { Optimizer, StepReport } from '../types';
-import { num, str, type MethodDefinition } from './method';
+import { choice, number, type SettingValues } from '../settings';
+import { defineMethod } from './method';
 
 /**
  * Newton's method with damping: x_{k+1} = x_k - lr H_k^{-1} g_k (lr = 1: pure Newton, which reaches
@@ -27,46 +28,36 @@ import { num, str, type MethodDefinition } from './method';
  * the one extra evaluation per step. Reported learning rate: the step factor a actually taken (0 if no step was accepted).
  * With l2Penalty the objective is f + l2/2 |x|^2 (Hessian + l2 I); the recorded loss stays f.
  */
-export const newton: MethodDefinition = {
-  info: {
+const NEWTON_SETTINGS = {
+  variant: choice(['plain', 'saddle-free'], {
+    help: "'plain': H^-1 g; 'saddle-free': |H|^-1 g from the eigen-decomposition, with a floor on |eigenvalue| (Dauphin et al. 2014).",
+  }),
+  eigenvalueFloor: number(1e-3, { label: 'eigenvalue floor', min: 0, minExclusive: true, help: 'Smallest |eigenvalue| used by the saddle-free variant.' }),
+  lineSearch: choice(['none', 'backtracking'], {
+    label: 'line search',
+    help: "'none': fixed damping factor lr; 'backtracking': shrink the step from lr until the Armijo condition holds.",
+  }),
+  c1: number(1e-4, { label: 'c1 (sufficient decrease)', min: 0, max: 1, minExclusive: true, maxExclusive: true, help: 'Armijo constant.' }),
+  backtrackingFactor: number(0.5, { label: 'backtracking factor', min: 0, max: 1, minExclusive: true, maxExclusive: true, help: 'Step shrink factor per rejected trial.' }),
+  maxBacktracks: number(30, { label: 'trials per step', min: 1, max: 1000, integer: true, help: 'Most trial points per line search.' }),
+};
+
+export const newton = defineMethod({
     kind: 'newton',
     label: "Newton's method",
     defaultLearningRate: 1,
-    hyperparameters: [
-      {
-        name: 'variant',
-        label: 'variant',
-        default: 'plain',
-        choices: ['plain', 'saddle-free'],
-        help: "'plain': H^-1 g; 'saddle-free': |H|^-1 g from the eigen-decomposition, with a floor on |eigenvalue| (Dauphin et al. 2014).",
-      },
-      { name: 'eigenvalueFloor', label: 'eigenvalue floor', default: 1e-3, min: 0, minExclusive: true, help: 'Smallest |eigenvalue| used by the saddle-free variant.' },
-      {
-        name: 'lineSearch',
-        label: 'line search',
-        default: 'none',
-        choices: ['none', 'backtracking'],
-        help: "'none': fixed damping factor lr; 'backtracking': shrink the step from lr until the Armijo condition holds.",
-      },
-      { name: 'c1', label: 'c1 (sufficient decrease)', default: 1e-4, min: 0, max: 1, minExclusive: true, maxExclusive: true, help: 'Armijo constant.' },
-      { name: 'backtrackingFactor', label: 'backtracking factor', default: 0.5, min: 0, max: 1, minExclusive: true, maxExclusive: true, help: 'Step shrink factor per rejected trial.' },
-      { name: 'maxBacktracks', label: 'trials per step', default: 30, min: 1, max: 1000, integer: true, help: 'Most trial points per line search.' },
-    ],
-    usesSchedule: false,
+    family: 'curvature',
+    settings: NEWTON_SETTINGS,
     defaultWeightDecay: 0,
     summary: 'Steps to the minimum of the local quadratic model from the exact Hessian.',
     source: 'J. Nocedal & S. J. Wright, Numerical Optimization, 2nd ed., Springer 2006, Ch. 3; saddle-free variant: Dauphin et al., NeurIPS 2014.',
-  },
-  build: (spec) => buildNewton(spec),
-};
+  build: (settings, spec) => buildNewton(settings, spec),
+});
 
-function buildNewton(spec: ResolvedSpec): Optimizer<null> {
-  const saddleFree = str(spec, 'variant') === 'saddle-free';
-  const floor = num(spec, 'eigenvalueFloor');
-  const search = str(spec, 'lineSearch') === 'backtracking';
-  const c1 = num(spec, 'c1');
-  const shrink = num(spec, 'backtrackingFactor');
-  const maxTrials = num(spec, 'maxBacktracks');
+function buildNewton(settings: SettingValues<typeof NEWTON_SETTINGS>, spec: ResolvedSpec): Optimizer<null> {
+  const saddleFree = settings.variant === 'saddle-free';
+  const search = settings.lineSearch === 'backtracking';
+  const { eigenvalueFloor: floor, c1, backtrackingFactor: shrink, maxBacktracks: maxTrials } = settings;
   const lr = spec.learningRate;
   const l2 = spec.l2Penalty;
   let n = -1;

@@ -1,7 +1,8 @@
-import { scaleByRms, type EpsilonPlacement } from '../transforms';
+import { flag, number, unit } from '../settings';
+import { scaleByRms } from '../transforms';
 import { firstOrderChain } from './firstOrder';
-import { bool, num, str, type MethodDefinition } from './method';
-import { epsilonInfo, momentumInfo, placementInfo } from './sharedSettings';
+import { defineMethod } from './method';
+import { epsilon, epsilonPlacement, momentum } from './sharedSettings';
 
 /**
  * RMSProp (Tieleman & Hinton, course slides "Neural Networks for Machine Learning", Coursera, 2012, slide set 6e):
@@ -17,47 +18,31 @@ import { epsilonInfo, momentumInfo, placementInfo } from './sharedSettings';
  * momentum buffer, and in its centred form subtracts eps: g / sqrt(v - gbar^2 - eps) (tfjs-core 4.22.0
  * source, rmsprop_optimizer.js). The slides have no epsilon.
  */
-export const rmsprop: MethodDefinition = {
-  info: {
+export const rmsprop = defineMethod({
     kind: 'rmsprop',
     label: 'RMSProp',
     defaultLearningRate: 0.01,
-    hyperparameters: [
-      {
-        name: 'decay',
-        label: 'decay (rho)',
-        default: 0.9,
-        min: 0,
-        max: 1,
-        maxExclusive: true,
-        help: 'Decay of the running mean of squared gradients (PyTorch calls it alpha, default 0.99; Keras rho 0.9).',
-      },
-      epsilonInfo(1e-8),
-      placementInfo,
-      {
-        name: 'initialMeanSquare',
-        label: 'initial mean square',
-        default: 0,
-        min: 0,
-        help: 'Starting value of the running mean of squared gradients (PyTorch, Keras 0; TF1 1).',
-      },
-      { name: 'centered', label: 'centred', default: false, help: 'Divide by an estimate of the gradient variance, v - gbar^2, instead of v.' },
-      momentumInfo(0, 'Momentum applied to the scaled gradient (0 = none).'),
-    ],
-    usesSchedule: true,
+    family: 'first-order',
+    settings: {
+      decay: unit(0.9, { label: 'decay (rho)', help: 'Decay of the running mean of squared gradients (PyTorch calls it alpha, default 0.99; Keras rho 0.9).' }),
+      epsilon: epsilon(1e-8),
+      epsilonPlacement,
+      initialMeanSquare: number(0, { label: 'initial mean square', min: 0, help: 'Starting value of the running mean of squared gradients (PyTorch, Keras 0; TF1 1).' }),
+      centered: flag(false, { label: 'centred', help: 'Divide by an estimate of the gradient variance, v - gbar^2, instead of v.' }),
+      momentum: momentum(0, 'Momentum applied to the scaled gradient (0 = none).'),
+    },
     defaultWeightDecay: 0,
     summary: 'Divides each coordinate by the root of a running mean of its squared gradients.',
     source: 'T. Tieleman & G. Hinton, "Neural Networks for Machine Learning", Coursera course slides 6e, 2012.',
-  },
-  build: (spec) =>
+  build: (s, spec) =>
     firstOrderChain('RMSProp', spec, [
       scaleByRms({
-        decay: num(spec, 'decay'),
-        epsilon: num(spec, 'epsilon'),
-        placement: str<EpsilonPlacement>(spec, 'epsilonPlacement'),
-        initialMeanSquare: num(spec, 'initialMeanSquare'),
-        centered: bool(spec, 'centered'),
-        momentum: num(spec, 'momentum'),
+        decay: s.decay,
+        epsilon: s.epsilon,
+        placement: s.epsilonPlacement,
+        initialMeanSquare: s.initialMeanSquare,
+        centered: s.centered,
+        momentum: s.momentum,
       }),
     ]),
-};
+});

@@ -4,8 +4,8 @@ import { RuleSyntaxError } from '../../rules/errors';
 import { MAX_RULE_LENGTH } from '../../rules/parse';
 import { ruleOptimizer } from '../../rules/optimizer';
 import { isPlainObject, show } from '../checks';
-import type { HyperparameterInfo } from '../spec';
-import type { MethodDefinition } from './method';
+import type { HyperparameterInfo } from '../settings';
+import { defineMethod } from './method';
 
 /** The spec's rule field checked, or the [field, message] saying what is wrong with it. */
 function ruleField(raw: Record<string, unknown>): { name: string; text: string } | [string, string] {
@@ -21,23 +21,21 @@ function ruleField(raw: Record<string, unknown>): { name: string; text: string }
 
 /**
  * Kind 'rule': an optimizer written as a few lines of state updates in the rule language (see
- * src/engine/rules and DEVELOPERS.md "Update rules"), compiled into one generated function. Its
+ * src/engine/rules and its README.md), compiled into one generated function. Its
  * settings are the rule's `hyper` lines (any finite number; the rule says what makes sense); the
  * learning-rate schedule, clipNorm and l2Penalty apply as for the built-in first-order kinds (the
  * rule reads the scheduled rate as `lr`, and `g` after clipping and the penalty). Decoupled weight
  * decay is written into the rule itself (as Lion's `decay`), so the top-level weightDecay is refused.
  */
-export const rule: MethodDefinition = {
-  info: {
+export const rule = defineMethod({
     kind: 'rule',
     label: 'Own update rule',
     defaultLearningRate: adamRule.defaultLearningRate,
-    hyperparameters: [],
-    usesSchedule: true,
+    family: 'first-order',
+    settings: {},
     defaultWeightDecay: 0,
     summary: 'An optimizer written as a few lines of per-parameter state updates.',
     source: 'The rule text; the library rules cite their papers.',
-  },
   settingsOf(raw) {
     const field = ruleField(raw);
     if (Array.isArray(field)) return { field: field[0], message: field[1] };
@@ -51,8 +49,9 @@ export const rule: MethodDefinition = {
       throw error;
     }
   },
-  crossChecks: (spec) => (spec.weightDecay > 0 ? [['weightDecay', 'weightDecay does not apply to a rule; write the decay into the rule (as Lion does)']] : []),
-  build(spec) {
+  crossChecks: (_settings, spec) => (spec.weightDecay > 0 ? [['weightDecay', 'weightDecay does not apply to a rule; write the decay into the rule (as Lion does)']] : []),
+  // The rule's own settings are not declared (they come from its text), so they are read from the spec.
+  build(_settings, spec) {
     const r = spec.rule!;
     return ruleOptimizer(compileRule(r.text), {
       label: r.name,
@@ -63,4 +62,4 @@ export const rule: MethodDefinition = {
       l2Penalty: spec.l2Penalty,
     });
   },
-};
+});

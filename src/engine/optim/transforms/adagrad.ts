@@ -1,6 +1,8 @@
 import type { GradientTransform } from '../transform';
 
-export type EpsilonPlacement = 'outside' | 'inside';
+/** Where epsilon goes: g / (sqrt(s) + eps) or g / sqrt(s + eps). The first is the default. */
+export const EPSILON_PLACEMENTS = ['outside', 'inside'] as const;
+export type EpsilonPlacement = (typeof EPSILON_PLACEMENTS)[number];
 
 /**
  * AdaGrad scaling: G_t = G_{t-1} + g_t^2 (G_0 = initialAccumulator), then

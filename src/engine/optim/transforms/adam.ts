@@ -1,21 +1,22 @@
 import type { GradientTransform } from '../transform';
 import { power } from '../../power';
+import { updateMoments } from './moments';
 
 export interface MomentsState {
   m: Float64Array;
   v: Float64Array;
 }
 
-export type AdamEpsilonForm = 'eps-after-correction' | 'eps-before-correction';
+/** The two forms of Adam's denominator (below); the first is the default. */
+export const ADAM_EPSILON_FORMS = ['eps-after-correction', 'eps-before-correction'] as const;
+export type AdamEpsilonForm = (typeof ADAM_EPSILON_FORMS)[number];
 
 /**
  * Adam scaling (Kingma & Ba, ICLR 2015): m_t = b1 m + (1 - b1) g, v_t = b2 v + (1 - b2) g^2,
- *   'eps-after-correction':  u = mhat / (sqrt(vhat) + eps), mhat = m_t / (1 - b1^t), vhat = v_t / (1 - b2^t)
- *                 (eps added to the root of the bias-corrected moment: the paper's Algorithm 1;
- *                 PyTorch, Optax, tfjs);
- *   'eps-before-correction': u = [sqrt(1 - b2^t) / (1 - b1^t)] m_t / (sqrt(v_t) + eps)
- *                 (eps added to the root of the raw moment, the correction folded into the step: the
- *                 paper's "efficient" form with epsilon-hat, section 2; Keras/TF). The two agree when
+ *   'eps-after-correction': u = mhat / (sqrt(vhat) + eps), mhat = m_t / (1 - b1^t), vhat = v_t / (1 - b2^t)
+ *                 (the paper's Algorithm 1; PyTorch, Optax, tfjs);
+ *   'eps-before-correction':        u = [sqrt(1 - b2^t) / (1 - b1^t)] m_t / (sqrt(v_t) + eps)
+ *                 (the paper's "efficient" form with epsilon-hat; Keras/TF). The two agree when
  *                 eps_hat = eps sqrt(1 - b2^t).
  */
 export function scaleByAdam(beta1: number, beta2: number, epsilon: number, form: AdamEpsilonForm = 'eps-after-correction'): GradientTransform<MomentsState> {
@@ -30,8 +31,7 @@ export function scaleByAdam(beta1: number, beta2: number, epsilon: number, form:
       const hatScale = Math.sqrt(c2) / c1;
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
-        m[i] = beta1 * m[i] + (1 - beta1) * g;
-        v[i] = beta2 * v[i] + (1 - beta2) * g * g;
+        updateMoments(m, v, i, g, beta1, beta2);
         if (form === 'eps-after-correction') {
           const d = Math.sqrt(v[i] / c2) + epsilon;
           u[i] = d > 0 ? m[i] / c1 / d : 0;

@@ -1,23 +1,26 @@
 import type { GradientTransform } from '../transform';
 import { power } from '../../power';
+import { updateMoments } from './moments';
 
-export type AmsgradForm = 'max-raw-moment' | 'max-corrected-moment' | 'no-bias-correction';
+/** The three forms of AMSGrad's maximum (below); the first is the default. */
+export const AMSGRAD_FORMS = ['max-raw-moment', 'max-corrected-moment', 'no-bias-correction'] as const;
+export type AmsgradForm = (typeof AMSGRAD_FORMS)[number];
 
 export interface AmsgradState {
   m: Float64Array;
   v: Float64Array;
-  /** Running maximum (of v_t, or of the bias-corrected v_t in the 'max-corrected-moment' form). */
+  /** Running maximum (of v_t, or of the bias-corrected v_t in the Optax form). */
   vMax: Float64Array;
 }
 
 /**
  * AMSGrad scaling (Reddi, Kale & Kumar, ICLR 2018): Adam's moments m_t, v_t with a running maximum
  * in the denominator, so the per-coordinate step never grows.
- *   'max-raw-moment' (PyTorch):      vMax = max(vMax, v_t), u = [m_t/(1 - b1^t)] / (sqrt(vMax/(1 - b2^t)) + eps);
- *   'max-corrected-moment' (Optax):  vMax = max(vMax, v_t/(1 - b2^t)), u = [m_t/(1 - b1^t)] / (sqrt(vMax) + eps);
- *   'no-bias-correction' (the paper's Algorithm 2): vMax = max(vMax, v_t), u = m_t / (sqrt(vMax) + eps);
- *              the paper has no epsilon (set epsilon = 0 for the literal rule) and analyses
- *              alpha_t = alpha/sqrt(t) (the inverse-time schedule with power 0.5).
+ *   'max-raw-moment': vMax = max(vMax, v_t), u = [m_t/(1 - b1^t)] / (sqrt(vMax/(1 - b2^t)) + eps);
+ *   'max-corrected-moment':   vMax = max(vMax, v_t/(1 - b2^t)), u = [m_t/(1 - b1^t)] / (sqrt(vMax) + eps);
+ *   'no-bias-correction':   vMax = max(vMax, v_t), u = m_t / (sqrt(vMax) + eps): no bias correction; the paper has
+ *              no epsilon (set epsilon = 0 for the literal rule) and analyses alpha_t = alpha/sqrt(t)
+ *              (the inverse-time schedule with power 0.5).
  */
 export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, form: AmsgradForm): GradientTransform<AmsgradState> {
   return {
@@ -30,8 +33,7 @@ export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, fo
       const c2 = form === 'no-bias-correction' ? 1 : 1 - power(beta2, t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
-        m[i] = beta1 * m[i] + (1 - beta1) * g;
-        v[i] = beta2 * v[i] + (1 - beta2) * g * g;
+        updateMoments(m, v, i, g, beta1, beta2);
         let d: number;
         if (form === 'max-corrected-moment') {
           vMax[i] = Math.max(vMax[i], v[i] / c2);

@@ -1,12 +1,15 @@
 import type { GradientTransform } from '../transform';
 import { power } from '../../power';
+import { updateMoments } from './moments';
 
-export type NadamForm = 'rising-momentum' | 'constant-momentum';
+/** The two forms of NAdam's first moment (below); the first is the default. */
+export const NADAM_FORMS = ['rising-momentum', 'constant-momentum'] as const;
+export type NadamForm = (typeof NADAM_FORMS)[number];
 
 export interface NadamState {
   m: Float64Array;
   v: Float64Array;
-  /** prod_{i <= t} mu_i of the momentum schedule ('rising-momentum' form). */
+  /** prod_{i <= t} mu_i of the momentum schedule (scheduled form). */
   muProduct: number;
 }
 
@@ -16,7 +19,7 @@ export interface NadamState {
  * with the Nesterov-style first moment
  *   'rising-momentum' (Dozat; PyTorch NAdam): mu_t = b1 (1 - 0.5 * 0.96^(t psi)), psi = momentumDecay,
  *      mhat = mu_{t+1} m_t / (1 - prod_{i<=t+1} mu_i) + (1 - mu_t) g_t / (1 - prod_{i<=t} mu_i);
- *   'constant-momentum' (mu_t = b1 at every step; Optax nadam): mhat = b1 m_t / (1 - b1^(t+1)) + (1 - b1) g_t / (1 - b1^t).
+ *   'constant-momentum' (Optax nadam): mhat = b1 m_t / (1 - b1^(t+1)) + (1 - b1) g_t / (1 - b1^t).
  */
 export function scaleByNadam(beta1: number, beta2: number, epsilon: number, momentumDecay: number, form: NadamForm): GradientTransform<NadamState> {
   const mu = (t: number) => beta1 * (1 - 0.5 * Math.pow(0.96, t * momentumDecay));
@@ -41,8 +44,7 @@ export function scaleByNadam(beta1: number, beta2: number, epsilon: number, mome
       const c2 = 1 - power(beta2, t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
-        m[i] = beta1 * m[i] + (1 - beta1) * g;
-        v[i] = beta2 * v[i] + (1 - beta2) * g * g;
+        updateMoments(m, v, i, g, beta1, beta2);
         const d = Math.sqrt(v[i] / c2) + epsilon;
         u[i] = d > 0 ? (a * m[i] + b * g) / d : 0;
       }

@@ -7,7 +7,8 @@
 import { OUTCOME_KINDS, type CriticalPoint, type KnownPoint as BasinPoint, type StartMapSpec } from '../../../engine';
 import type { StudyCellsState } from '../../../store/study-store';
 import type { LossAxis } from '../../chart/loss-chart';
-import { AXES_MARGIN, drawAxes, viewTransform, type AxisLabels, type PixelSize, type ViewBox } from '../../plot';
+import { AXES_MARGIN, drawAxes, viewTransform, type AxisLabels, type PixelSize } from '../../plot';
+import type { ViewBox } from '../../../engine';
 import { drawBandChart, BAND_CHART_STYLE } from '../../study/band-chart';
 import { CRITICAL_GLYPHS, drawCriticalPoints, glyphOf } from '../../study/critical-chart';
 import { paintStartMap, type LegendRow } from '../../study/paint-map';
