@@ -61,7 +61,7 @@ describe('optimizer settings: numbers outside their range', () => {
   });
 });
 
-const settings = (patch: Partial<RunSettings> & { stop?: Partial<RunSettings['stop']> }): RunSettings =>
+const settings = (patch: Omit<Partial<RunSettings>, 'stop'> & { stop?: Partial<RunSettings['stop']> }): RunSettings =>
   ({ start: [-1.2, 1], seed: 1, ...patch, stop: { maxSteps: 100, ...patch.stop } }) as RunSettings;
 
 function runSettingsProblem(s: RunSettings): string {
