@@ -12,7 +12,7 @@ import './ui/styles.css';
 const opened = openStorage(() => window.localStorage);
 const saved = opened.storage ? loadSavedWorkspace(opened.storage) : { workspace: null, problem: opened.problem, saving: false };
 const app = createAppStore({
-  link: workerLink(),
+  link: workerLink({ name: 'engine', watchSilence: true }),
   grids: createPageGridPool(),
   requestFrame: (fn) => requestAnimationFrame(() => fn()),
   initial: saved.workspace ?? undefined,
@@ -37,7 +37,7 @@ app.store.subscribe((state, previous) => {
 if (saved.problem) app.store.setState({ notice: saved.problem });
 
 // Studies run in a worker of their own, started with the first study, so runs keep streaming beside them.
-const study = createStudyStore(lazyLink(workerLink));
+const study = createStudyStore(lazyLink(() => workerLink({ name: 'studies' })));
 
 createRoot(document.getElementById('root')!).render(
   <AppContext.Provider value={app}>
