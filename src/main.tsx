@@ -1,7 +1,7 @@
 import { createRoot } from 'react-dom/client';
 import { createAppStore, workspaceChanged, workspaceOf } from './store/app-store';
 import { lazyLink, workerLink } from './store/engine-link';
-import { loadSavedWorkspace, saveWorkspace } from './store/persistence';
+import { loadSavedWorkspace, openStorage, saveWorkspace } from './store/persistence';
 import { App } from './ui/App';
 import { createPageGridPool } from './worker/pool-web';
 import { AppContext } from './ui/app-context';
@@ -9,9 +9,10 @@ import { createStudyStore } from './store/study-store';
 import { StudyContext } from './ui/study/study-context';
 import './ui/styles.css';
 
-const saved = loadSavedWorkspace(window.localStorage);
+const opened = openStorage(() => window.localStorage);
+const saved = opened.storage ? loadSavedWorkspace(opened.storage) : { workspace: null, problem: opened.problem, saving: false };
 const app = createAppStore({
-  link: workerLink(),
+  link: workerLink({ name: 'engine', watchSilence: true }),
   grids: createPageGridPool(),
   requestFrame: (fn) => requestAnimationFrame(() => fn()),
   initial: saved.workspace ?? undefined,
@@ -21,21 +22,22 @@ const app = createAppStore({
 let saveTimer = 0;
 let lastSaved = '';
 app.store.subscribe((state, previous) => {
-  if (!workspaceChanged(state, previous)) return;
+  if (!saved.saving || !opened.storage || !workspaceChanged(state, previous)) return;
+  const storage = opened.storage;
   window.clearTimeout(saveTimer);
   saveTimer = window.setTimeout(() => {
     const workspace = workspaceOf(state);
     const text = JSON.stringify(workspace);
     if (text === lastSaved) return;
-    lastSaved = text;
-    const problem = saveWorkspace(window.localStorage, workspace);
+    const problem = saveWorkspace(storage, workspace);
     if (problem) app.store.setState({ notice: problem });
+    else lastSaved = text;
   }, 300);
 });
 if (saved.problem) app.store.setState({ notice: saved.problem });
 
 // Studies run in a worker of their own, started with the first study, so runs keep streaming beside them.
-const study = createStudyStore(lazyLink(workerLink));
+const study = createStudyStore(lazyLink(() => workerLink({ name: 'studies' })));
 
 createRoot(document.getElementById('root')!).render(
   <AppContext.Provider value={app}>

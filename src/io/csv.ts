@@ -6,9 +6,9 @@
  * String(n), which reads back to the same double (and -0 as "-0", which String() would write as "0"); NaN, null and undefined are empty cells; +-Infinity
  * are written "Infinity" / "-Infinity" (Number() reads them back).
  *
- * Formula neutralising (OWASP "CSV Injection"): a text cell that starts with =, +, -, @, a tab or CR
- * would be evaluated as a formula by common spreadsheet programs, so it gets a single quote (') in
- * front. The type decides, not the look: the number -1.5 is written -1.5, while the text "-1.5" (say,
+ * Formula neutralising (OWASP "CSV Injection"; OWASP ASVS 5.0 requirement 1.2.10 adds NUL): a text
+ * cell that starts with =, +, -, @, a tab, CR or NUL would be evaluated as a formula by common
+ * spreadsheet programs, so it gets a single quote (') in front. The type decides, not the look: the number -1.5 is written -1.5, while the text "-1.5" (say,
  * a run label) is written '-1.5. Header cells are text and follow the same rule. Neutralising happens
  * before quoting, so "=1,2" becomes "'=1,2" (quoted for its comma).
  */
@@ -18,7 +18,7 @@ export type CsvCell = string | number | null | undefined;
 
 export const CSV_LINE_END = '\r\n';
 
-const FORMULA_START = /^[=+\-@\t\r]/;
+const FORMULA_START = /^[=+\-@\t\r\0]/;
 const NEEDS_QUOTES = /[",\r\n]/;
 
 /** One cell as CSV text (neutralised and quoted as described above). */

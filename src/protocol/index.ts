@@ -1,1 +1,1 @@
-export type { CsvParseOptions, FromPoolMember, FromWorker, Pace, RowRange, RunControl, RunOutcome, RunSpec, StudyCells, StudyThreshold, ToPoolMember, ToWorker } from './messages';
+export type { CsvParseOptions, FromPoolMember, FromWorker, LinkPing, LinkPong, Pace, RowRange, RunControl, RunOutcome, RunSpec, StudyCells, StudyThreshold, ToPoolMember, ToWorker } from './messages';

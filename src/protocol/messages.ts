@@ -120,3 +120,11 @@ export type FromPoolMember =
   | { type: 'band/error'; requestId: string; rows: RowRange; message: string };
 
 export type { RunOutcome };
+
+/**
+ * Liveness of a page's worker link (store/engine-link.ts): the page pings every few seconds and the
+ * worker entry answers at once, outside the message switches above. Any message counts as a sign of
+ * life, so a busy worker that streams batches is never taken for dead.
+ */
+export type LinkPing = { type: 'link/ping' };
+export type LinkPong = { type: 'link/pong' };

@@ -189,8 +189,9 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       });
   }
 
-  /** Replies to one-off requests (CSV parsing, profiles), by request id. */
+  /** Replies to one-off requests (CSV parsing, profiles), by request id; `lost` when the worker is replaced. */
   const replies = new Map<string, (msg: FromWorker) => void>();
+  const lostReplies = new Map<string, (e: Error) => void>();
 
   function handle(msg: FromWorker): void {
     switch (msg.type) {
@@ -227,16 +228,30 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
 
   /** Sends a one-off request and resolves with its final reply; `onOther` sees the rest (progress). */
   function ask<T extends FromWorker>(msg: ToWorker & { requestId: string }, isFinal: (m: FromWorker) => m is T, onOther?: (m: FromWorker) => void): Promise<T> {
-    return new Promise((resolve) => {
+    return new Promise((resolve, reject) => {
       replies.set(msg.requestId, (reply) => {
         if (!isFinal(reply)) return onOther?.(reply);
         replies.delete(msg.requestId);
+        lostReplies.delete(msg.requestId);
         resolve(reply);
       });
+      lostReplies.set(msg.requestId, reject);
       link.send(msg);
     });
   }
   link.listen(handle);
+  // A replaced worker took its runs, requests and pace with it: end them with the reason, resend the pace.
+  link.onRestart?.((reason) => {
+    const message = `the engine worker ${reason}; it was restarted`;
+    live.workerLost(`${message}: press Restart to run again`);
+    for (const reject of lostReplies.values()) reject(new Error(message));
+    replies.clear();
+    lostReplies.clear();
+    const g = get().grid;
+    if (!grids && g.phase === 'computing') set({ grid: { ...g, phase: 'error', error: message } });
+    link.send({ type: 'run/pace', pace: get().pace });
+    set({ notice: `The engine worker ${reason}. It was restarted; runs that were in progress were stopped (Restart runs them again).` });
+  });
 
   function updateReference(): void {
     const s = get();
@@ -285,12 +300,16 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       applySurface({ ...surface, constants: { ...(surface.constants ?? {}), [name]: value } }, true);
     },
     async importCsv(text, options, onProgress) {
-      const reply = await ask(
-        { type: 'csv/parse', requestId: freshId('t'), text, options },
-        (m): m is Extract<FromWorker, { type: 'csv/result' }> => m.type === 'csv/result',
-        (m) => m.type === 'csv/progress' && onProgress?.(m.fraction, m.rowsRead),
-      );
-      return reply.result;
+      try {
+        const reply = await ask(
+          { type: 'csv/parse', requestId: freshId('t'), text, options },
+          (m): m is Extract<FromWorker, { type: 'csv/result' }> => m.type === 'csv/result',
+          (m) => m.type === 'csv/progress' && onProgress?.(m.fraction, m.rowsRead),
+        );
+        return reply.result;
+      } catch (e) {
+        return { ok: false, message: (e as Error).message, problems: [], moreProblems: 0 };
+      }
     },
     async sampleProfile(from, to, alphas = { from: -0.5, to: 1.5, count: 101 }) {
       const reply = await ask(

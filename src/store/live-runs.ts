@@ -106,6 +106,16 @@ export class LiveRuns {
     }
   }
 
+  /** The worker was replaced: every run it was stepping ends with `message` (their trajectories stay). */
+  workerLost(message: string): void {
+    for (const [configId, live] of this.byConfig) {
+      if (live.status.phase !== 'running' && live.status.phase !== 'paused') continue;
+      live.status = { ...live.status, phase: 'error', error: { message } };
+      this.configOfRun.delete(live.runId);
+      this.touch(configId);
+    }
+  }
+
   handle(msg: FromWorker): void {
     if (msg.type !== 'run/batch' && msg.type !== 'run/error') return;
     const configId = this.configOfRun.get(msg.runId);

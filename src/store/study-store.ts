@@ -135,6 +135,14 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
     }
   });
 
+  // A replaced worker took the study and the one-off requests with it.
+  link.onRestart?.((reason) => {
+    const message = `the study worker ${reason}; it was restarted, start again`;
+    for (const asked of waiting.values()) asked.reject(new Error(message));
+    waiting.clear();
+    if (store.getState().status === 'running') store.setState({ status: 'error', message });
+  });
+
   return {
     store,
     start({ surface, variables, spec, configLabel, known, basinRadius }) {

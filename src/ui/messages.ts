@@ -109,11 +109,15 @@ export function surfaceMessage(message: string): string {
 
 type CsvProblem = CsvImport['problems'][number];
 
+/** A number written with a decimal comma ("1,5", "-0,25"), as some locales' spreadsheets export. */
+const DECIMAL_COMMA = /^\s*[-+]?\d*,\d+\s*$/;
+
 /** One unreadable value of an imported file, as listed under the import. */
 export function csvProblemText(p: CsvProblem): string {
   const where = p.column ? `row ${p.row}, column ${p.column}` : `row ${p.row}`;
-  const reason = p.reason === 'too many fields' ? 'more fields than the header has' : p.reason;
-  return `${where}: ${reason}${p.value ? ` ("${p.value}")` : ''}`;
+  const reason = p.reason === 'too many fields' ? 'more fields than the header has' : p.reason === 'too large' ? 'too large for a number' : p.reason;
+  const hint = p.reason === 'not a number' && DECIMAL_COMMA.test(p.value) ? ', write decimals with a point (1.5, not 1,5)' : '';
+  return `${where}: ${reason}${p.value ? ` ("${p.value}")` : ''}${hint}`;
 }
 
 /** Why an import failed: the parser's own message, or for unreadable values the first of them. */

@@ -40,7 +40,7 @@ describe('saved workspaces load back unchanged', () => {
   it.each(OPTIMIZERS.map((o) => o.kind))('optimizer %s at its default settings', (kind) => {
     const w = demoWorkspace();
     const workspace: Workspace = { ...w, runs: [{ ...w.runs[0], optimizer: defaultOptimizerSpec(kind) }] };
-    expect(saveAndLoad(workspace)).toEqual({ workspace, problem: null });
+    expect(saveAndLoad(workspace)).toEqual({ workspace, problem: null, saving: true });
   });
 
   it('has an example for every surface kind, and each builds', () => {
@@ -50,7 +50,7 @@ describe('saved workspaces load back unchanged', () => {
 
   it.each(SURFACE_KINDS)('surface kind %s', (kind) => {
     const workspace: Workspace = { ...demoWorkspace(), surface: SURFACE_EXAMPLES[kind] };
-    expect(saveAndLoad(workspace)).toEqual({ workspace, problem: null });
+    expect(saveAndLoad(workspace)).toEqual({ workspace, problem: null, saving: true });
   });
 
   it('a 6,000-character formula (over the old 5,000 cap, within the parser limit) loads', () => {
@@ -58,7 +58,7 @@ describe('saved workspaces load back unchanged', () => {
     expect(text.length).toBe(6000);
     expect(text.length).toBeLessThan(MAX_FORMULA_LENGTH);
     const workspace: Workspace = { ...demoWorkspace(), surface: { kind: 'formula', text } };
-    expect(saveAndLoad(workspace)).toEqual({ workspace, problem: null });
+    expect(saveAndLoad(workspace)).toEqual({ workspace, problem: null, saving: true });
   });
 
   it('a version-1 file saved by an earlier page loads as the current version', () => {

@@ -40,7 +40,7 @@ export function checkMeaning(experiment: Experiment, text?: string): FileProblem
       new RunCursor(surface, buildOptimizer(run.optimizer), run.settings);
     } catch (e) {
       const field = e instanceof SettingError ? e.field : undefined;
-      const where = field && field in run.optimizer ? ['runs', k, 'optimizer', field] : field && field in run.settings ? ['runs', k, 'settings', field] : ['runs', k];
+      const where = field && field in run.optimizer ? ['runs', k, 'optimizer', field] : field && field in run.settings ? ['runs', k, 'settings', field] : field && field in run.settings.stop ? ['runs', k, 'settings', 'stop', field] : ['runs', k];
       problems.push(located(where, errorText(e), text));
     }
   });

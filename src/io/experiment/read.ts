@@ -1,5 +1,5 @@
 /**
- * Reading an experiment file: JSON, then the version, then that version's schema, then the migrations
+ * Reading an experiment file: JSON, then no "__proto__" key (prototype-keys.ts), then the version, then that version's schema, then the migrations
  * up to the current version. Every problem is reported with its JSON path (and its line and column when
  * the input is text); nothing is half-read.
  */
@@ -7,6 +7,7 @@ import { CURRENT_VERSION, EARLIER_VERSIONS, experimentSchema, type Experiment } 
 import { located, problemsFromIssues, type FileProblem } from './problems';
 import { positionOf } from './json-locator';
 import { jsonSyntaxError } from './json-syntax';
+import { FORBIDDEN_KEY, prototypeKeyPath } from './prototype-keys';
 
 export type ReadResult = { ok: true; experiment: Experiment; problems: [] } | { ok: false; problems: FileProblem[] };
 
@@ -21,6 +22,8 @@ export function readExperiment(input: unknown): ReadResult {
       return { ok: false, problems: [jsonProblem(text, e as Error)] };
     }
   }
+  const prototypeKey = prototypeKeyPath(value);
+  if (prototypeKey) return fail(located(prototypeKey, `a key named "${FORBIDDEN_KEY}" is not allowed anywhere in the file (it would replace an object's prototype)`, text));
   if (typeof value !== 'object' || value === null || Array.isArray(value))
     return fail(located([], `expected a JSON object (an experiment), got ${value === null ? 'null' : Array.isArray(value) ? 'an array' : typeof value}`, text));
   const version = (value as { version?: unknown }).version;

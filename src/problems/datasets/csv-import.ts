@@ -13,7 +13,8 @@ import type { TableDatasetSpec } from './spec';
  *   (the first data row is row 2). They count CSV records: one per line, unless a quoted field spans
  *   lines. Blank lines are skipped without a report but keep their number.
  * - A cell is "missing" when empty or one of NA, N/A, NaN, null (any case; common practice in exported
- *   tables); "not a number" when it is not a plain decimal number (so no hex, no Infinity). In a file
+ *   tables); "not a number" when it is not a plain decimal number (so no hex, no Infinity); "too large"
+ *   when it is one but overflows a double (1e400). In a file
  *   whose delimiter is not the comma (semicolon, tab, bar), a comma is also read as the decimal mark,
  *   as spreadsheets in decimal-comma locales write it ("1,5;-0,25"); a cell with both a comma and a
  *   point ("1.000,5") is not a number, since which one groups thousands is a guess. A record
@@ -50,7 +51,7 @@ export interface CsvProblem {
   row: number;
   column: string;
   value: string;
-  reason: 'missing' | 'not a number' | 'too many fields';
+  reason: 'missing' | 'not a number' | 'too large' | 'too many fields';
 }
 
 export type CsvImport =
@@ -87,11 +88,15 @@ export function utf8Length(text: string): number {
 
 const formatCount = (n: number) => n.toLocaleString('en-US');
 
+/** The refusal of a file of `bytes` bytes (the page says it before reading a file that is too large). */
+export function csvTooLargeMessage(bytes: number, maxBytes = MAX_CSV_BYTES): string {
+  return `the file is ${(bytes / 1024 / 1024).toFixed(1)} MiB; at most ${(maxBytes / 1024 / 1024).toFixed(1)} MiB can be imported`;
+}
+
 export function parseDatasetCsv(text: string, options: CsvImportOptions = {}): CsvImport {
   const maxBytes = Math.min(options.maxBytes ?? MAX_CSV_BYTES, MAX_CSV_BYTES);
   const bytes = text.length > maxBytes ? text.length : utf8Length(text);
-  if (bytes > maxBytes)
-    return fail(`the file is ${(bytes / 1024 / 1024).toFixed(1)} MiB; at most ${(maxBytes / 1024 / 1024).toFixed(1)} MiB can be imported`);
+  if (bytes > maxBytes) return fail(csvTooLargeMessage(bytes, maxBytes));
   const source = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   const delimiter = options.delimiter ?? headerDelimiter(source);
   const builder = new CsvTableBuilder({ ...options, decimalComma: options.decimalComma ?? (delimiter !== ',' && delimiter !== '') });
@@ -193,10 +198,10 @@ export class CsvTableBuilder {
         row[k] = code;
       } else {
         const value = decimalValue(cell, this.options.decimalComma === true);
-        if (value !== null) row[k] = value;
+        if (value !== null && Number.isFinite(value)) row[k] = value;
         else {
           bad = true;
-          this.report({ row: this.rowNumber, column: this.keptNames[k], value: raw, reason: 'not a number' });
+          this.report({ row: this.rowNumber, column: this.keptNames[k], value: raw, reason: value === null ? 'not a number' : 'too large' });
         }
       }
     }
@@ -217,7 +222,8 @@ export class CsvTableBuilder {
         moreProblems: this.moreProblems,
       };
     }
-    if (this.rows.length === 0) return { ok: false, message: 'no usable data rows', problems: this.problems, moreProblems: this.moreProblems };
+    if (this.dataRows === 0) return { ok: false, message: 'no usable data rows: the file has a header row but no data rows', problems: [], moreProblems: 0 };
+    if (this.rows.length === 0) return { ok: false, message: 'no usable data rows: every row was dropped', problems: this.problems, moreProblems: this.moreProblems };
     const dataset: TableDatasetSpec = { kind: 'table', name: this.options.name ?? 'imported table', columns: this.keptNames, rows: this.rows };
     const categories: Record<string, string[]> = {};
     this.keptNames.forEach((name, k) => {

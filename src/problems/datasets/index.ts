@@ -6,6 +6,6 @@ export { IRIS_COLUMNS, irisTable } from './iris';
 export { parseNistFile, type NistFile } from './nist-format';
 export { NIST_DATASET_IDS, isNistDatasetId, nistFile, nistTable } from './nist-sets';
 export { datasetKey, datasetTable, validateDatasetSpec } from './resolve';
-export { CsvTableBuilder, MAX_REPORTED_PROBLEMS, parseDatasetCsv, utf8Length, type CsvImport, type CsvImportOptions, type CsvProblem } from './csv-import';
+export { CsvTableBuilder, MAX_REPORTED_PROBLEMS, csvTooLargeMessage, parseDatasetCsv, utf8Length, type CsvImport, type CsvImportOptions, type CsvProblem } from './csv-import';
 export { MAX_CSV_BYTES, MAX_TABLE_COLUMNS, MAX_TABLE_ROWS } from './limits';
 export { LruCache } from './lru';

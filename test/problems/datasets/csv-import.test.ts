@@ -93,7 +93,7 @@ describe('parseDatasetCsv', () => {
     ['', 'the file is empty: expected a header row of column names'],
     ['a,,c\n1,2,3\n', 'column 2 of the header (row 1) has no name'],
     ['a,a\n1,2\n', "the header names column 'a' twice"],
-    ['a,b\n', 'no usable data rows'],
+    ['a,b\n', 'no usable data rows: the file has a header row but no data rows'],
   ])('refuses %j', (text, message) => {
     const r = parseDatasetCsv(text);
     expect(r.ok).toBe(false);

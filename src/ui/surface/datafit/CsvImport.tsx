@@ -1,5 +1,5 @@
 import { useId, useState } from 'react';
-import type { CsvImport as CsvImportResult, TableDatasetSpec } from '../../../problems';
+import { MAX_CSV_BYTES, csvTooLargeMessage, type CsvImport as CsvImportResult, type TableDatasetSpec } from '../../../problems';
 import { useActions } from '../../app-context';
 import { csvFailureText, csvProblemText } from '../../messages';
 
@@ -38,6 +38,13 @@ export function CsvImport({ onTable, onFailed }: { onTable(table: TableDatasetSp
         onChange={async (e) => {
           const f = e.target.files?.[0];
           if (!f) return;
+          if (f.size > MAX_CSV_BYTES) {
+            // Refused before reading: a file far over the limit is never loaded into the page.
+            setFile({ name: f.name, text: '' });
+            setResult({ ok: false, message: csvTooLargeMessage(f.size), problems: [], moreProblems: 0 });
+            e.target.value = '';
+            return onFailed();
+          }
           const text = await f.text();
           setFile({ name: f.name, text });
           await parse(f.name, text, drop);
