@@ -1,5 +1,5 @@
 import type { GradientTransform } from '../transform';
-import { power } from '../../power';
+import { biasCorrection } from '../../power';
 
 export interface MomentsState {
   m: Float64Array;
@@ -17,27 +17,34 @@ export type AdamEpsilonForm = 'algorithm1' | 'hat';
  *                 eps_hat = eps sqrt(1 - b2^t).
  */
 export function scaleByAdam(beta1: number, beta2: number, epsilon: number, form: AdamEpsilonForm = 'algorithm1'): GradientTransform<MomentsState> {
+  // 1 - beta^t, the same doubles as 1 - power(beta, t) (power.ts), with the powers' squares made once.
+  const correction1 = biasCorrection(beta1);
+  const correction2 = biasCorrection(beta2);
   return {
     name: 'scaleByAdam',
     elementwise: true,
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length) }),
     update(u, s, _p, t) {
       const { m, v } = s;
-      const c1 = 1 - power(beta1, t);
-      const c2 = 1 - power(beta2, t);
+      const c1 = correction1(t);
+      const c2 = correction2(t);
       const hatScale = Math.sqrt(c2) / c1;
-      for (let i = 0; i < u.length; i++) {
-        const g = u[i];
-        m[i] = beta1 * m[i] + (1 - beta1) * g;
-        v[i] = beta2 * v[i] + (1 - beta2) * g * g;
-        if (form === 'algorithm1') {
+      if (form === 'algorithm1')
+        for (let i = 0; i < u.length; i++) {
+          const g = u[i];
+          m[i] = beta1 * m[i] + (1 - beta1) * g;
+          v[i] = beta2 * v[i] + (1 - beta2) * g * g;
           const d = Math.sqrt(v[i] / c2) + epsilon;
           u[i] = d > 0 ? m[i] / c1 / d : 0;
-        } else {
+        }
+      else
+        for (let i = 0; i < u.length; i++) {
+          const g = u[i];
+          m[i] = beta1 * m[i] + (1 - beta1) * g;
+          v[i] = beta2 * v[i] + (1 - beta2) * g * g;
           const d = Math.sqrt(v[i]) + epsilon;
           u[i] = d > 0 ? (hatScale * m[i]) / d : 0;
         }
-      }
       return s;
     },
   };

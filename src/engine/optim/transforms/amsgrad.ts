@@ -1,5 +1,5 @@
 import type { GradientTransform } from '../transform';
-import { power } from '../../power';
+import { biasCorrection } from '../../power';
 
 export type AmsgradForm = 'pytorch' | 'optax' | 'paper';
 
@@ -20,14 +20,16 @@ export interface AmsgradState {
  *              (the inverse-time schedule with power 0.5).
  */
 export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, form: AmsgradForm): GradientTransform<AmsgradState> {
+  const correction1 = biasCorrection(beta1);
+  const correction2 = biasCorrection(beta2);
   return {
     name: 'scaleByAmsgrad',
     elementwise: true,
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length), vMax: new Float64Array(p.length) }),
     update(u, s, _p, t) {
       const { m, v, vMax } = s;
-      const c1 = form === 'paper' ? 1 : 1 - power(beta1, t);
-      const c2 = form === 'paper' ? 1 : 1 - power(beta2, t);
+      const c1 = form === 'paper' ? 1 : correction1(t);
+      const c2 = form === 'paper' ? 1 : correction2(t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
         m[i] = beta1 * m[i] + (1 - beta1) * g;
