@@ -64,6 +64,11 @@ export function recordRecentAt(
   const base = pointsAt + slot * pointStride;
   for (let i = 0; i < n; i++) points[base + i] = x[xAt + i];
   loss[lossAt + slot * lossStride] = lossValue;
+  recordMilestoneAt(distanceAt, milestonesAt, t, x, xAt, n, x0, x0At);
+}
+
+/** The milestone part of recordRecentAt: at t = 2^k, the distance from the start (nothing at other t). */
+export function recordMilestoneAt(distanceAt: Float64Array, milestonesAt: number, t: number, x: Float64Array, xAt: number, n: number, x0: Float64Array, x0At: number): void {
   if (t > 0 && (t & (t - 1)) === 0) {
     const k = Math.log2(t);
     if (k < MILESTONES) {

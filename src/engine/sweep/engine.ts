@@ -6,10 +6,11 @@ import { nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrig
 import { judgeEnd, type EndFacts, type EndTrigger } from '../run/end-state';
 import { addNoise, addNoiseAt, countingSurface, noisyOracle } from '../run/oracle';
 import type { RunOutcome } from '../run/outcome';
-import { MILESTONES, RECENT_POINTS, recordRecentAt, type RecentPath } from '../run/recent';
+import { MILESTONES, RECENT_POINTS, recordMilestoneAt, recordRecentAt, type RecentPath } from '../run/recent';
 import type { StopRules } from '../run/settings';
 import type { Surface } from '../surface';
 import { norm2 } from '../vector';
+import { fusedKernel, type FusedHost, type FusedKernel } from './fused';
 import { validateSweepPlan, type SweepPlan, type SweepProgress, type SweepResult } from './plan';
 
 /**
@@ -18,6 +19,9 @@ import { validateSweepPlan, type SweepPlan, type SweepProgress, type SweepResult
  * transforms (Adam's two powers of beta per step) is spread thin.
  */
 const BLOCK = 64;
+
+/** Rounds per batch on the fused path: the step numbers of a batch are computed once for every block. */
+const FUSED_BATCH = 256;
 
 /** The block path's parts: the chain's transforms and one chain state per block of BLOCK runs. */
 interface Blocks {
@@ -60,11 +64,13 @@ interface RunContext {
  *
  * Stream it with `advance(rounds)` or `advanceFor(ms, clock)` and read `result()` between calls.
  */
-export class Sweep {
+export class Sweep implements FusedHost {
   readonly count: number;
   readonly dimension: number;
   readonly surface: Surface;
   readonly stop: StopRules;
+  /** How the runs step: the fused kernel (fused.ts), the block path, or run by run. */
+  readonly path: 'fused' | 'blocks' | 'runs';
   private readonly noise: number;
   private readonly lossTolerance: number;
   private readonly stationarityTolerance: number | undefined;
@@ -99,6 +105,10 @@ export class Sweep {
   private readonly rngs: RngState[] = [];
   private readonly contexts: RunContext[] = [];
   private readonly blocks: Blocks | null;
+  private readonly fused: FusedKernel | null;
+  /** The fused path's step numbers and learning rates for one batch of rounds. */
+  private readonly batchNumbers: Float64Array;
+  private readonly batchRates: Float64Array;
   private readonly scratchX: Float64Array;
   private readonly scratchGrad: Float64Array;
 
@@ -174,8 +184,12 @@ export class Sweep {
       this.outcomes[r] = outcome;
       if (!outcome) this.live[this.liveCount++] = r;
     }
-    this.blocks = blockPath ? this.makeBlocks(shared as ChainOptimizer) : null;
-    if (!this.blocks) for (let r = 0; r < count; r++) this.states.push(this.optimizers[r].init(Float64Array.from(this.xs[r])));
+    this.fused = blockPath && this.noise === 0 ? this.makeFused(shared as ChainOptimizer) : null;
+    this.blocks = blockPath && !this.fused ? this.makeBlocks(shared as ChainOptimizer) : null;
+    this.path = this.fused ? 'fused' : this.blocks ? 'blocks' : 'runs';
+    this.batchNumbers = new Float64Array(this.fused ? FUSED_BATCH * this.fused.stepNumbers : 0);
+    this.batchRates = new Float64Array(this.fused ? FUSED_BATCH : 0);
+    if (this.path === 'runs') for (let r = 0; r < count; r++) this.states.push(this.optimizers[r].init(Float64Array.from(this.xs[r])));
   }
 
   /** Run r's subarray views and recent-path record over the flat arrays, made on first use. */
@@ -188,6 +202,21 @@ export class Sweep {
     this.grads[r] = this.grad.subarray(lo, hi);
     this.works[r] = this.work.subarray(lo, hi);
     this.x0s[r] = this.x0.subarray(lo, hi);
+  }
+
+  private makeFused(o: ChainOptimizer): FusedKernel | null {
+    const arrays = {
+      x: this.x,
+      grad: this.grad,
+      loss: this.loss,
+      initialLoss: this.initialLoss,
+      stepsToTolerance: this.stepsToTolerance,
+      ringPoints: this.ringPoints,
+      ringLoss: this.ringLoss,
+      calm: this.calm,
+      live: this.live,
+    };
+    return fusedKernel(this.surface, o.transforms, this.stop, this.lossTolerance, this.count, arrays, this);
   }
 
   private makeBlocks(o: ChainOptimizer): Blocks {
@@ -216,7 +245,8 @@ export class Sweep {
   /** Takes up to `maxRounds` lockstep rounds (one step of every live run each) and reports progress. */
   advance(maxRounds: number): SweepProgress {
     const rounds = Math.max(0, Math.floor(maxRounds));
-    if (this.blocks && this.liveCount > 0 && rounds > 0) this.blockRounds(this.blocks, rounds);
+    if (this.fused && this.liveCount > 0 && rounds > 0) this.fusedRounds(this.fused, rounds);
+    else if (this.blocks && this.liveCount > 0 && rounds > 0) this.blockRounds(this.blocks, rounds);
     else for (let k = 0; k < rounds && this.liveCount > 0; k++) this.round();
     return this.progress;
   }
@@ -322,6 +352,78 @@ export class Sweep {
     }
     this.liveCount = kept;
     this.rounds += used;
+  }
+
+  /**
+   * `rounds` rounds on the fused path, in batches of up to FUSED_BATCH rounds: the batch's step
+   * numbers and learning rates are computed once (the same calls the transforms make per step), then
+   * each block of runs takes the batch's rounds through the kernel, block by block as on the block path.
+   */
+  private fusedRounds(kernel: FusedKernel, rounds: number): void {
+    const live = this.live;
+    const numbers = this.batchNumbers;
+    const rates = this.batchRates;
+    const width = kernel.stepNumbers;
+    const chain = this.optimizers[0] as ChainOptimizer;
+    const learningRate = learningRateStage(chain.transforms, chain.label);
+    let done = 0;
+    while (done < rounds && this.liveCount > 0) {
+      const batch = Math.min(FUSED_BATCH, rounds - done);
+      const t0 = this.rounds;
+      for (let q = 0; q < batch; q++) {
+        kernel.writeStepNumbers(t0 + q + 1, numbers, q * width);
+        rates[q] = learningRate.learningRate(t0 + q + 1);
+      }
+      const liveCount = this.liveCount;
+      let kept = 0;
+      let used = 0;
+      let k = 0;
+      while (k < liveCount) {
+        const end = ((live[k] / BLOCK) | 0) * BLOCK + BLOCK;
+        let segmentEnd = k;
+        while (segmentEnd < liveCount && live[segmentEnd] < end) segmentEnd++;
+        let alive = segmentEnd;
+        let q = 0;
+        for (; q < batch && alive > k; q++) {
+          const t = t0 + q + 1;
+          this.totalSteps += alive - k;
+          alive = kernel.round(kernel.state, k, alive, k, t, rates[q], numbers, q * width, t % RECENT_POINTS, (t & (t - 1)) === 0 ? 1 : 0);
+        }
+        used = Math.max(used, q);
+        for (let j = k; j < alive; j++) live[kept++] = live[j];
+        k = segmentEnd;
+      }
+      this.liveCount = kept;
+      this.rounds += used;
+      done += batch;
+    }
+    for (let k = 0; k < this.liveCount; k++) this.countFusedSteps(live[k], this.rounds);
+  }
+
+  /** For the fused kernel (FusedHost): a point rule ended run r at step t; the outcome as the block path builds it. */
+  endFusedPoint(r: number, t: number): void {
+    this.countFusedSteps(r, t);
+    const n = this.dimension;
+    const finding = pointFindingAt(this.x, this.grad, r * n, n, this.loss[r], this.initialLoss[r], this.stop);
+    this.endFlat(r, finding as Exclude<PointFinding, 'ok'>, null);
+  }
+
+  /** For the fused kernel (FusedHost): the loss-change rule or the step limit ended run r at step t. */
+  endFusedProgress(r: number, t: number): void {
+    this.countFusedSteps(r, t);
+    this.endFlat(r, null, progressTrigger(this.stop, this.calm[r], t));
+  }
+
+  /** A fused run's step and evaluation counts at step t: one evaluation per step after the start's. */
+  private countFusedSteps(r: number, t: number): void {
+    this.steps[r] = t;
+    this.evaluations[r] = t + 1;
+  }
+
+  /** For the fused kernel (FusedHost): run r's distance milestone at step t, as recordRecentAt records it. */
+  recordFusedMilestone(r: number, t: number): void {
+    const n = this.dimension;
+    recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
   }
 
   /**

@@ -24,6 +24,25 @@ export function scaleByAdam(beta1: number, beta2: number, epsilon: number, form:
     name: 'scaleByAdam',
     elementwise: true,
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length) }),
+    // update's operations on one entry, in its order (lockstep.ts): s = [m, v], k = [b1, b2, eps].
+    lockstep: {
+      arrays: [0, 0],
+      constants: [beta1, beta2, epsilon],
+      steps: form === 'algorithm1' ? 2 : 1,
+      step(t, out, at) {
+        const c1 = correction1(t);
+        const c2 = correction2(t);
+        if (form === 'algorithm1') {
+          out[at] = c1;
+          out[at + 1] = c2;
+        } else out[at] = Math.sqrt(c2) / c1;
+      },
+      code: ({ u, s: [m, v], k: [b1, b2, eps], q }) =>
+        `${m} = ${b1} * ${m} + (1 - ${b1}) * ${u}; ${v} = ${b2} * ${v} + (1 - ${b2}) * ${u} * ${u}; ` +
+        (form === 'algorithm1'
+          ? `const d = Math.sqrt(${v} / ${q[1]}) + ${eps}; ${u} = d > 0 ? ${m} / ${q[0]} / d : 0;`
+          : `const d = Math.sqrt(${v}) + ${eps}; ${u} = d > 0 ? (${q[0]} * ${m}) / d : 0;`),
+    },
     update(u, s, _p, t) {
       const { m, v } = s;
       const c1 = correction1(t);

@@ -26,6 +26,20 @@ export function scaleByAmsgrad(beta1: number, beta2: number, epsilon: number, fo
     name: 'scaleByAmsgrad',
     elementwise: true,
     init: (p) => ({ m: new Float64Array(p.length), v: new Float64Array(p.length), vMax: new Float64Array(p.length) }),
+    // update's operations on one entry, in its order (lockstep.ts): s = [m, v, vMax], q = [c1, c2].
+    lockstep: {
+      arrays: [0, 0, 0],
+      constants: [beta1, beta2, epsilon],
+      steps: 2,
+      step(t, out, at) {
+        out[at] = form === 'paper' ? 1 : correction1(t);
+        out[at + 1] = form === 'paper' ? 1 : correction2(t);
+      },
+      code: ({ u, s: [m, v, vMax], k: [b1, b2, eps], q: [c1, c2] }) =>
+        `${m} = ${b1} * ${m} + (1 - ${b1}) * ${u}; ${v} = ${b2} * ${v} + (1 - ${b2}) * ${u} * ${u}; ` +
+        (form === 'optax' ? `${vMax} = Math.max(${vMax}, ${v} / ${c2}); const d = Math.sqrt(${vMax}) + ${eps}; ` : `${vMax} = Math.max(${vMax}, ${v}); const d = Math.sqrt(${vMax} / ${c2}) + ${eps}; `) +
+        `${u} = d > 0 ? ${m} / ${c1} / d : 0;`,
+    },
     update(u, s, _p, t) {
       const { m, v, vMax } = s;
       const c1 = form === 'paper' ? 1 : correction1(t);
