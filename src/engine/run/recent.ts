@@ -79,10 +79,17 @@ export function recordMilestoneAt(distanceAt: Float64Array, milestonesAt: number
   }
 }
 
-/** The point recorded `back` steps before step t (back < filled), as a view. */
-export function recentPoint(path: RecentPath, t: number, back: number, n: number): Float64Array {
-  const slot = (((t - back) % RECENT_POINTS) + RECENT_POINTS) % RECENT_POINTS;
-  return path.points.subarray(slot * n, (slot + 1) * n);
+/**
+ * The distance between the points recorded `backA` and `backB` steps before step t (each < filled),
+ * read in place: no views are made (the end judgement asks for several at every run's end).
+ */
+export function recentDistance(path: RecentPath, t: number, backA: number, backB: number, n: number): number {
+  const a = ((((t - backA) % RECENT_POINTS) + RECENT_POINTS) % RECENT_POINTS) * n;
+  const b = ((((t - backB) % RECENT_POINTS) + RECENT_POINTS) % RECENT_POINTS) * n;
+  const p = path.points;
+  let s = 0;
+  for (let i = 0; i < n; i++) s += (p[a + i] - p[b + i]) ** 2;
+  return Math.sqrt(s);
 }
 
 export function distance(a: ArrayLike<number>, b: ArrayLike<number>): number {

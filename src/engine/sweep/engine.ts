@@ -111,6 +111,9 @@ export class Sweep implements FusedHost {
   private readonly batchRates: Float64Array;
   private readonly scratchX: Float64Array;
   private readonly scratchGrad: Float64Array;
+  /** The surface counting into `counter`, which `counted` loads with a run's count and reads back. */
+  private readonly counter = { evaluations: 0 };
+  private readonly countedSurface: Surface;
 
   constructor(plan: SweepPlan) {
     const count = validateSweepPlan(plan);
@@ -141,6 +144,7 @@ export class Sweep implements FusedHost {
     this.live = new Int32Array(count);
     this.scratchX = new Float64Array(n);
     this.scratchGrad = new Float64Array(n);
+    this.countedSurface = countingSurface(surface, this.counter);
 
     // One optimizer per distinct learning rate: an Optimizer keeps its run's state in `state`, its
     // closures only scratch buffers that each step fills before reading, so runs can share it.
@@ -534,12 +538,15 @@ export class Sweep implements FusedHost {
 
   /** The facts the end judgement reads, for run r (made only when the run ends). */
   private facts(r: number): EndFacts {
-    this.views(r);
+    // Run by run, the run's own views; otherwise copies (the judgement only reads them, and a copy of a
+    // few numbers is much cheaper to make than a view when thousands of runs end at once).
+    const n = this.dimension;
+    const own = this.xs[r] !== undefined;
     return {
       t: this.steps[r],
-      x: this.xs[r],
-      x0: this.x0s[r],
-      grad: this.grads[r],
+      x: own ? this.xs[r] : copyOf(this.x, r * n, n),
+      x0: own ? this.x0s[r] : copyOf(this.x0, r * n, n),
+      grad: own ? this.grads[r] : copyOf(this.grad, r * n, n),
       loss: this.loss[r],
       initialLoss: this.initialLoss[r],
       initialGradNorm: this.initialGradNorm[r],
@@ -562,13 +569,14 @@ export class Sweep implements FusedHost {
       for (let i = 0; i < n; i++) points[slot * n + i] = this.ringPoints[from + i];
       loss[slot] = this.ringLoss[slot * this.count + r];
     }
-    return { points, loss, filled: Math.min(RECENT_POINTS, this.steps[r] + 1), distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES) };
+    return { points, loss, filled: Math.min(RECENT_POINTS, this.steps[r] + 1), distanceAt: copyOf(this.milestones, r * MILESTONES, MILESTONES) };
   }
 
   /** Runs `f` on the surface counting into run r's evaluations, as the cursor's judgement counts. */
   private counted<T>(r: number, f: (surface: Surface) => T): T {
-    const counter = { evaluations: this.evaluations[r] };
-    const out = f(countingSurface(this.surface, counter));
+    const counter = this.counter;
+    counter.evaluations = this.evaluations[r];
+    const out = f(this.countedSurface);
     this.evaluations[r] = counter.evaluations;
     return out;
   }
@@ -580,4 +588,11 @@ export class Sweep implements FusedHost {
   private judge(r: number, trigger: EndTrigger): RunOutcome {
     return this.counted(r, (s) => judgeEnd(s, this.facts(r), trigger));
   }
+}
+
+/** A copy of a[at .. at + n) (a plain loop: for a few numbers far cheaper than a view or slice). */
+function copyOf(a: Float64Array, at: number, n: number): Float64Array {
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = a[at + i];
+  return out;
 }
