@@ -62,6 +62,13 @@ interface RunContext {
  * the Sutskever form of Nesterov momentum, clipped chains, several learning rates) step run by run
  * with a state per run.
  *
+ * The fused path (fused.ts), tried first: on a compiled formula surface, with every transform of the
+ * chain offering lockstep code (optim/lockstep.ts) and no gradient noise, one generated function
+ * takes a block's round, each run's whole step inline (transforms, move, the formula's value and
+ * gradient, ring, stop rules), with the same operations in the same order as the block path. A rule
+ * that fires hands the run back here (FusedHost), where its outcome is built as on the block path.
+ * `path` says which of the three a sweep took.
+ *
  * Stream it with `advance(rounds)` or `advanceFor(ms, clock)` and read `result()` between calls.
  */
 export class Sweep implements FusedHost {
