@@ -217,9 +217,7 @@ export class Sweep implements FusedHost {
 
   private makeFused(o: ChainOptimizer): FusedKernel | null {
     const arrays = {
-      x: this.x,
       grad: this.grad,
-      loss: this.loss,
       initialLoss: this.initialLoss,
       stepsToTolerance: this.stepsToTolerance,
       ringPoints: this.ringPoints,
@@ -408,12 +406,12 @@ export class Sweep implements FusedHost {
       this.rounds += used;
       done += batch;
     }
-    for (let k = 0; k < this.liveCount; k++) this.countFusedSteps(live[k], this.rounds);
+    for (let k = 0; k < this.liveCount; k++) this.syncFused(live[k], this.rounds);
   }
 
   /** For the fused kernel (FusedHost): a point rule ended run r at step t; the outcome as the block path builds it. */
   endFusedPoint(r: number, t: number): void {
-    this.countFusedSteps(r, t);
+    this.syncFused(r, t);
     const n = this.dimension;
     const finding = pointFindingAt(this.x, this.grad, r * n, n, this.loss[r], this.initialLoss[r], this.stop);
     this.endFlat(r, finding as Exclude<PointFinding, 'ok'>, null);
@@ -421,18 +419,26 @@ export class Sweep implements FusedHost {
 
   /** For the fused kernel (FusedHost): the loss-change rule or the step limit ended run r at step t. */
   endFusedProgress(r: number, t: number): void {
-    this.countFusedSteps(r, t);
+    this.syncFused(r, t);
     this.endFlat(r, null, progressTrigger(this.stop, this.calm[r], t));
   }
 
-  /** A fused run's step and evaluation counts at step t: one evaluation per step after the start's. */
-  private countFusedSteps(r: number, t: number): void {
+  /**
+   * A fused run's state at step t into the flat arrays: its point and loss from the ring's slot for t
+   * (the kernel's record of them), its step count and evaluations (one per step after the start's).
+   */
+  private syncFused(r: number, t: number): void {
+    const n = this.dimension;
+    const slot = (t % RECENT_POINTS) * this.count + r;
+    for (let i = 0; i < n; i++) this.x[r * n + i] = this.ringPoints[slot * n + i];
+    this.loss[r] = this.ringLoss[slot];
     this.steps[r] = t;
     this.evaluations[r] = t + 1;
   }
 
   /** For the fused kernel (FusedHost): run r's distance milestone at step t, as recordRecentAt records it. */
   recordFusedMilestone(r: number, t: number): void {
+    this.syncFused(r, t);
     const n = this.dimension;
     recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
   }

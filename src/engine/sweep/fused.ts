@@ -2,6 +2,7 @@ import type { FormulaSurface } from '../expr/compile';
 import { KERNEL_TABLE, isKernelName } from '../expr/kernels';
 import type { LockstepCode } from '../optim/lockstep';
 import type { GradientTransform } from '../optim/transform';
+import { RECENT_POINTS } from '../run/recent';
 import { DEFAULT_BLOW_UP_FACTOR, DEFAULT_LOSS_CHANGE_PATIENCE, type StopRules } from '../run/settings';
 import type { Surface } from '../surface';
 import { norm2At } from '../vector';
@@ -33,7 +34,7 @@ import { norm2At } from '../vector';
  * optimised kernel start over for each sweep).
  */
 export interface FusedHost {
-  /** A point rule of checks.ts (rules 1-6) ended run r at step t. */
+  /** A point rule of checks.ts (rules 1-6) ended run r at step t (its point and loss are in the ring's slot for t). */
   endFusedPoint(r: number, t: number): void;
   /** The loss-change rule or the step limit ended run r at step t. */
   endFusedProgress(r: number, t: number): void;
@@ -42,14 +43,15 @@ export interface FusedHost {
 }
 
 /**
- * The engine's flat arrays the kernel reads and writes (engine.ts, Sweep). Not among them: the step
- * and evaluation counts, which on this path are t and t + 1 for every live run (one evaluation per
- * step after the start's), so the engine writes them when a run ends and after each call.
+ * The engine's flat arrays the kernel reads and writes (engine.ts, Sweep). The recent-point ring is
+ * the kernel's record of each run's point and loss: a round reads them from the previous step's slot
+ * and writes the new ones to this step's, so the engine's point and loss arrays are not written per
+ * step; the engine copies the current slot into them when a run ends and after each call. Nor are the
+ * step and evaluation counts, which on this path are t and t + 1 for every live run (one evaluation
+ * per step after the start's).
  */
 export interface FusedArrays {
-  x: Float64Array;
   grad: Float64Array;
-  loss: Float64Array;
   initialLoss: Float64Array;
   stepsToTolerance: Int32Array;
   ringPoints: Float64Array;
@@ -179,7 +181,7 @@ export function kernelSource(
   // One sweep's arrays and numbers, read from the state into locals at each call.
   lines.push(
     'return function round(S, from, to, kept, t, lr, Q, qAt, slot, milestone) {',
-    'const X = S.x, G = S.grad, L = S.loss, IL = S.initialLoss, TT = S.stepsToTolerance, BOUND = S.blowUpBound;',
+    'const G = S.grad, IL = S.initialLoss, TT = S.stepsToTolerance, BOUND = S.blowUpBound;',
     'const RP = S.ringPoints, RL = S.ringLoss, CALM = S.calm, LIVE = S.live, HOST = S.host, c = S.c, P = S.numbers;',
     // The run count as an integer, so the ring's index arithmetic stays in integers.
     'const TOL = P[0], MAX_STEPS = P[1], GTOL = P[2], CTOL = P[3], PATIENCE = P[4], COUNT = P[5] | 0;',
@@ -198,24 +200,25 @@ export function kernelSource(
   names.forEach((nm) => nm.q.forEach((name) => lines.push(`const ${name} = Q[qAt + ${offset++}];`)));
   lines.push(
     'const ringAt = slot * COUNT;',
+    `const previousAt = ((slot + ${RECENT_POINTS - 1}) % ${RECENT_POINTS}) * COUNT;`,
     // Runs of a block where none has ended are consecutive: then r follows from the position alone.
     'const shift = LIVE[to - 1] - LIVE[from] === to - 1 - from ? LIVE[from] - from : -1;',
     'for (let run = from; run < to; run++) {',
     'const r = shift >= 0 ? shift + run : LIVE[run];',
     `const o = r * ${n};`,
+    `const previousRing = (previousAt + r) * ${n};`,
   );
   lines.push(`let ${coords.map((i) => `x${i}`).join(', ')};`);
   for (const i of coords) {
-    lines.push(`{ const j = ${at(i)}; let u = G[j]; const p = X[j];`);
+    lines.push(`{ const j = ${at(i)}; let u = G[j]; const p = RP[previousRing${i === 0 ? '' : ` + ${i}`}];`);
     names.forEach((nm) => nm.s.forEach((e) => lines.push(`let ${e.local} = ${e.array}[j];`)));
     codes.forEach((c, ti) => lines.push(`{ ${c.code({ u: 'u', p: 'p', s: names[ti].s.map((e) => e.local), k: names[ti].k, q: names[ti].q })} }`));
     names.forEach((nm) => nm.s.forEach((e) => lines.push(`${e.array}[j] = ${e.local};`)));
-    lines.push(`x${i} = p + u; X[j] = x${i}; }`);
+    lines.push(`x${i} = p + u; }`);
   }
   lines.push(...gradient.statements, `const loss = ${gradient.value};`);
   for (const i of coords) lines.push(`const g${i} = ${gradient.gradient[i]}; G[${at(i)}] = g${i};`);
-  if (rules.calmRule) lines.push('const previous = L[r];');
-  lines.push('L[r] = loss;');
+  if (rules.calmRule) lines.push('const previous = RL[previousAt + r];');
   if (rules.tolerance) lines.push('if (loss <= TOL && TT[r] < 0) TT[r] = t;');
   lines.push(
     `const ring = (ringAt + r) * ${n};`,

@@ -127,6 +127,11 @@ describe('Sweep fused kernel: the same bits as the block path and as RunCursor',
       expectSameBits({ surface: fourD, optimizer, stop, starts: starts(fourD, 70, 2) }, 1000);
   });
 
+  it('with kernels and branches in the formula (abs, max, min, softplus, a fractional power)', () => {
+    const kinked = buildSurface({ kind: 'formula', text: 'abs(x - 1) + max(y, 0)^2 + softplus(x*y) + min(x, y)^2 + (x^2 + 1)^0.75' });
+    for (const optimizer of [spec('gd', 0.01), spec('adam', 0.05)]) expectSameBits({ surface: kinked, optimizer, stop: { maxSteps: 300, lossChangeTolerance: 1e-12 }, starts: starts(kinked, 40, 2) });
+  });
+
   it('stays off with gradient noise, for chains without lockstep code and for surfaces without statements', () => {
     const base = { surface: himmelblau, stop: { maxSteps: 10 }, starts: gridStarts(-1, 1, -1, 1, 2) };
     expect(new Sweep({ ...base, optimizer: spec('adam', 0.1), gradientNoise: 0.1 }).path).toBe('blocks');
