@@ -19,8 +19,10 @@ import { norm2At } from '../vector';
  * everything else. Each operation is the one the block path does, in the same order, so every number
  * is the same double: the transforms' code repeats their `update`, the point is the formula's own
  * statements, the rules are checks.ts's (rules 1-6, then the loss-change rule and the step limit) and
- * the ring write is recent.ts's. A rule that fires hands the run back to the engine (`end`), which
- * builds its outcome as the block path does. test/engine/sweep/fused.test.ts checks the bits.
+ * the ring write is recent.ts's (the ring also carries each run's point and loss from round to round,
+ * see FusedArrays). A rule that fires hands the run back to the engine (FusedHost), which builds its
+ * outcome as the block path does. test/engine/sweep/fused.test.ts checks the bits against the block
+ * path and RunCursor.
  *
  * Safety: the source is made of this file's fixed text, the transforms' fixed code and the
  * formula's statements, which the formula compiler made from its graph alone and checked token by
