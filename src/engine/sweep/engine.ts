@@ -121,6 +121,8 @@ export class Sweep implements FusedHost {
   /** The surface counting into `counter`, which `counted` loads with a run's count and reads back. */
   private readonly counter = { evaluations: 0 };
   private readonly countedSurface: Surface;
+  /** What `facts` hands the end judgement, refilled for each run that ends (see facts). */
+  private readonly judgementBuffers: { x: Float64Array; x0: Float64Array; grad: Float64Array; points: Float64Array; loss: Float64Array; distanceAt: Float64Array };
 
   constructor(plan: SweepPlan) {
     const count = validateSweepPlan(plan);
@@ -152,6 +154,14 @@ export class Sweep implements FusedHost {
     this.scratchX = new Float64Array(n);
     this.scratchGrad = new Float64Array(n);
     this.countedSurface = countingSurface(surface, this.counter);
+    this.judgementBuffers = {
+      x: new Float64Array(n),
+      x0: new Float64Array(n),
+      grad: new Float64Array(n),
+      points: new Float64Array(RECENT_POINTS * n),
+      loss: new Float64Array(RECENT_POINTS),
+      distanceAt: new Float64Array(MILESTONES),
+    };
 
     // One optimizer per distinct learning rate: an Optimizer keeps its run's state in `state`, its
     // closures only scratch buffers that each step fills before reading, so runs can share it.
@@ -551,15 +561,17 @@ export class Sweep implements FusedHost {
 
   /** The facts the end judgement reads, for run r (made only when the run ends). */
   private facts(r: number): EndFacts {
-    // Run by run, the run's own views; otherwise copies (the judgement only reads them, and a copy of a
-    // few numbers is much cheaper to make than a view when thousands of runs end at once).
+    // Run by run, the run's own views; otherwise copies into the sweep's judgement buffers (the
+    // judgement only reads them and its outcome keeps none of them, so one set serves every run that
+    // ends, and thousands of runs ending at once make no arrays).
     const n = this.dimension;
     const own = this.xs[r] !== undefined;
+    const b = this.judgementBuffers;
     return {
       t: this.steps[r],
-      x: own ? this.xs[r] : copyOf(this.x, r * n, n),
-      x0: own ? this.x0s[r] : copyOf(this.x0, r * n, n),
-      grad: own ? this.grads[r] : copyOf(this.grad, r * n, n),
+      x: own ? this.xs[r] : copyInto(b.x, this.x, r * n),
+      x0: own ? this.x0s[r] : copyInto(b.x0, this.x0, r * n),
+      grad: own ? this.grads[r] : copyInto(b.grad, this.grad, r * n),
       loss: this.loss[r],
       initialLoss: this.initialLoss[r],
       initialGradNorm: this.initialGradNorm[r],
@@ -575,14 +587,16 @@ export class Sweep implements FusedHost {
    */
   private recentPath(r: number): RecentPath {
     const n = this.dimension;
-    const points = new Float64Array(RECENT_POINTS * n);
-    const loss = new Float64Array(RECENT_POINTS);
+    const { points, loss, distanceAt } = this.judgementBuffers;
+    const ring = this.ringPoints;
+    const ringLoss = this.ringLoss;
+    const count = this.count;
     for (let slot = 0; slot < RECENT_POINTS; slot++) {
-      const from = (slot * this.count + r) * n;
-      for (let i = 0; i < n; i++) points[slot * n + i] = this.ringPoints[from + i];
-      loss[slot] = this.ringLoss[slot * this.count + r];
+      const from = (slot * count + r) * n;
+      for (let i = 0; i < n; i++) points[slot * n + i] = ring[from + i];
+      loss[slot] = ringLoss[slot * count + r];
     }
-    return { points, loss, filled: Math.min(RECENT_POINTS, this.steps[r] + 1), distanceAt: copyOf(this.milestones, r * MILESTONES, MILESTONES) };
+    return { points, loss, filled: Math.min(RECENT_POINTS, this.steps[r] + 1), distanceAt: copyInto(distanceAt, this.milestones, r * MILESTONES) };
   }
 
   /** Runs `f` on the surface counting into run r's evaluations, as the cursor's judgement counts. */
@@ -603,9 +617,8 @@ export class Sweep implements FusedHost {
   }
 }
 
-/** A copy of a[at .. at + n) (a plain loop: for a few numbers far cheaper than a view or slice). */
-function copyOf(a: Float64Array, at: number, n: number): Float64Array {
-  const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) out[i] = a[at + i];
+/** Copies a[at .. at + out.length) into out (a plain loop: for a few numbers far cheaper than set()). */
+function copyInto(out: Float64Array, a: Float64Array, at: number): Float64Array {
+  for (let i = 0; i < out.length; i++) out[i] = a[at + i];
   return out;
 }
