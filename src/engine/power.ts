@@ -54,9 +54,13 @@ export function biasCorrection(beta: number): (t: number) => number {
   return (t) => {
     if (!(Number.isInteger(t) && t >= 1 && t <= MAX_INTEGER_EXPONENT)) return 1 - power(beta, t);
     if (t >= saturatedFrom) return 1;
+    // The set bits of t from the lowest up (n & -n isolates the lowest; clz32 gives its position).
     let n = t >>> 0;
     let result = 1;
-    for (let k = 0; n !== 0; k++, n >>>= 1) if (n & 1) result *= squares[k];
+    while (n !== 0) {
+      result *= squares[31 - Math.clz32(n & -n)];
+      n &= n - 1;
+    }
     return 1 - result;
   };
 }
