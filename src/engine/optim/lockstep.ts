@@ -7,8 +7,9 @@
  * rewritten), the entry of the point before the step `p`, the transform's state entries `s[j]` (its
  * per-entry Float64Arrays, loaded into locals and stored back), constants `k[j]` fixed at build and
  * step numbers `q[j]` that `step(t)` computes once per step for every run (a bias correction, -lr_t).
- * The text is ours (no user input reaches it); numbers pass as values, not as source. The sweep's
- * tests check every such code against `update` bit for bit.
+ * Locals the code declares live in a block of its own (the kernel wraps each transform's code), and it
+ * reads no other name. The text is ours (no user input reaches it); numbers pass as values, not as
+ * source. The sweep's tests check every such code against `update` bit for bit.
  */
 export interface LockstepCode {
   /** One entry per per-entry state array, in order: the value every entry starts at (`init`'s fill). */

@@ -46,8 +46,8 @@ export function scaleByRms(o: RmsOptions): GradientTransform<RmsState> {
         return (
           `${v} = ${rho} * ${v} + (1 - ${rho}) * ${u} * ${u}; let w = ${v}; ` +
           (gbar ? `${gbar} = ${rho} * ${gbar} + (1 - ${rho}) * ${u}; w = Math.max(0, w - ${gbar} * ${gbar}); ` : '') +
-          `const d = ${o.placement === 'outside' ? `Math.sqrt(w) + ${eps}` : `Math.sqrt(w + ${eps})`}; const r = d > 0 ? ${u} / d : 0; ` +
-          (b ? `${b} = ${mu} * ${b} + r; ${u} = ${b};` : `${u} = r;`)
+          `const d = ${o.placement === 'outside' ? `Math.sqrt(w) + ${eps}` : `Math.sqrt(w + ${eps})`}; const scaled = d > 0 ? ${u} / d : 0; ` +
+          (b ? `${b} = ${mu} * ${b} + scaled; ${u} = ${b};` : `${u} = scaled;`)
         );
       },
     },
