@@ -22,3 +22,45 @@ export function power(a: number, b: number): number {
   }
   return b < 0 ? 1 / result : result;
 }
+
+/** 2^-54: 1 - x rounds to exactly 1 for every 0 <= x <= 2^-54 (the tie at 2^-54 goes to the even 1). */
+const ONE_MINUS_ROUNDS_TO_ONE = 2 ** -54;
+
+/**
+ * `t => 1 - power(beta, t)` for whole t >= 1 (Adam's bias corrections), the same double for every t,
+ * with less work per call. `power` squares its base once per bit of t; here those squares are
+ * computed once (sq[k] = beta^(2^k), by the same repeated squaring, so each product is the same) and a
+ * call only multiplies the ones for t's set bits, lowest first, as `power` does.
+ *
+ * Saturation, for 0 <= beta < 1: every partial product of `power` lies in [0, 1] (rounding is
+ * monotone and 1 is a double), so power(beta, t) <= sq[k] for the top bit k of t, and sq[k] never
+ * grows with k. Once sq[K] <= 2^-54, every t >= 2^K gives 1 - power(beta, t) = 1 exactly, and the
+ * function returns 1 without multiplying (beta 0.999: from t = 65,536; 0.9: from t = 512).
+ */
+export function biasCorrection(beta: number): (t: number) => number {
+  const squares = new Float64Array(32);
+  let base = beta;
+  for (let k = 0; k < 32; k++) {
+    squares[k] = base;
+    base *= base;
+  }
+  let saturatedFrom = Infinity;
+  if (beta >= 0 && beta < 1)
+    for (let k = 0; k < 32; k++)
+      if (squares[k] <= ONE_MINUS_ROUNDS_TO_ONE) {
+        saturatedFrom = 2 ** k;
+        break;
+      }
+  return (t) => {
+    if (!(Number.isInteger(t) && t >= 1 && t <= MAX_INTEGER_EXPONENT)) return 1 - power(beta, t);
+    if (t >= saturatedFrom) return 1;
+    // The set bits of t from the lowest up (n & -n isolates the lowest; clz32 gives its position).
+    let n = t >>> 0;
+    let result = 1;
+    while (n !== 0) {
+      result *= squares[31 - Math.clz32(n & -n)];
+      n &= n - 1;
+    }
+    return 1 - result;
+  };
+}

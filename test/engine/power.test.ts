@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { power } from '../../src/engine/power';
+import { biasCorrection, power } from '../../src/engine/power';
 
 describe('power: whole exponents by products only (the same double in every engine)', () => {
   it.each([
@@ -31,5 +31,23 @@ describe('power: whole exponents by products only (the same double in every engi
     expect(power(1.1, 2)).toBe(1.1 * 1.1);
     expect(power(2, 0.5)).toBe(Math.SQRT2);
     expect(power(-8, 1 / 3)).toBeNaN();
+  });
+});
+
+describe('biasCorrection: 1 - power(beta, t) with the squares made once', () => {
+  it('gives the same double as 1 - power(beta, t) at every step, across the saturation point', () => {
+    // 0.9 saturates from t = 512 and 0.999 from t = 65,536 (power.ts); the others never saturate.
+    for (const beta of [0.9, 0.999, 0.99, 0.5, 0, 0.9999999, -0.5, 1, 1.0001]) {
+      const correction = biasCorrection(beta);
+      const last = beta === 0.999 ? 140_000 : 5_000;
+      for (let t = 1; t <= last; t++) if (!Object.is(correction(t), 1 - power(beta, t))) throw new Error(`beta ${beta}, t ${t}: ${correction(t)} vs ${1 - power(beta, t)}`);
+    }
+  });
+
+  it('saturates exactly where the first power falls to 2^-54 or below, and agrees past 2^31 and off the integers', () => {
+    const correction = biasCorrection(0.9);
+    expect(1 - power(0.9, 511)).toBe(1); // already 1 before the saturation point: the shortcut only skips work
+    expect(power(0.9, 512)).toBeLessThanOrEqual(2 ** -54);
+    for (const t of [2 ** 20, 2 ** 31, 2 ** 31 + 1, 2.5, 0, -3]) expect(Object.is(correction(t), 1 - power(0.9, t))).toBe(true);
   });
 });

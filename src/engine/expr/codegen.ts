@@ -57,18 +57,22 @@ export function formatNumber(value: number): string {
   return negative ? `(-${digits})` : digits;
 }
 
-function operand(g: Graph, id: NodeId): string {
+export function operand(g: Graph, id: NodeId): string {
   const value = g.constantValue(id);
   return value !== undefined ? formatNumber(value) : `t${id}`;
 }
 
-function expressionFor(g: Graph, node: GraphNode): string {
+/** How a variable is read: `x[i]` in the kernels; locals `x<i>` in code inlined elsewhere (inline.ts). */
+export type VariableReader = (index: number) => string;
+const indexedRead: VariableReader = (i) => `x[${i}]`;
+
+function expressionFor(g: Graph, node: GraphNode, readVariable: VariableReader): string {
   const o = (id: NodeId) => operand(g, id);
   switch (node.op) {
     case 'const':
       return formatNumber(node.value);
     case 'var':
-      return `x[${node.index}]`;
+      return readVariable(node.index);
     case 'input':
       return `v[${node.index}]`;
     case 'param':
@@ -111,7 +115,7 @@ function kernelsUsed(node: GraphNode, g: Graph): string[] {
 }
 
 /** Statements computing every node `roots` need, in id order (operands before uses). */
-function body(g: Graph, roots: readonly NodeId[], kernels: Set<string>): string[] {
+export function body(g: Graph, roots: readonly NodeId[], kernels: Set<string>, readVariable: VariableReader = indexedRead): string[] {
   const needed = g.reachable(roots);
   const lines: string[] = [];
   for (let id = 0; id < needed.length; id++) {
@@ -119,7 +123,7 @@ function body(g: Graph, roots: readonly NodeId[], kernels: Set<string>): string[
     const node = g.node(id);
     if (node.op === 'const') continue;
     for (const k of kernelsUsed(node, g)) kernels.add(k);
-    lines.push(`const t${id} = ${expressionFor(g, node)};`);
+    lines.push(`const t${id} = ${expressionFor(g, node, readVariable)};`);
   }
   return lines;
 }

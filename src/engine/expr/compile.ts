@@ -6,6 +6,7 @@ import { Differentiator } from './derive';
 import { FormulaSyntaxError, errorAt, optionError, type FormulaError } from './errors';
 import { BUILTIN_CONSTANTS, FUNCTIONS } from './functions';
 import { Graph, type NodeId } from './graph';
+import { inlineGradient, type InlineGradient } from './inline';
 import { lowerFormula } from './lower';
 import { freeNames, nameUses } from './names';
 import { parseFormula } from './parser';
@@ -32,6 +33,11 @@ export interface FormulaSurface extends Surface {
    * Throws FormulaSyntaxError for an unknown name or a non-finite value.
    */
   withConstants(values: Readonly<Record<string, number>>): FormulaSurface;
+  /**
+   * The value and gradient as statements for generated code to inline (inline.ts), with the bound
+   * constant values the statements read as `c[i]` (a copy).
+   */
+  inlineGradient(): { code: InlineGradient; constants: Float64Array };
 }
 
 export interface ModelOptions {
@@ -119,6 +125,8 @@ export interface Program<K> {
   readonly constantNames: readonly string[];
   /** The generated JavaScript (for inspection and the safety tests). */
   readonly source: string;
+  /** The value and gradient as inlinable statements (inline.ts); surfaces only (a model reads data rows). */
+  readonly inline: InlineGradient | null;
   readonly instantiate: (constants: Float64Array) => K;
 }
 
@@ -158,6 +166,7 @@ function buildProgram<K extends SurfaceKernels | ModelKernels>(text: string, ast
     inputs: roles.inputs,
     constantNames: roles.constants.names,
     source,
+    inline: shape === 'surface' ? inlineGradient(g, value, gradient) : null,
     instantiate: buildFactory<K>(source),
   };
 }
@@ -229,7 +238,7 @@ abstract class BoundProgram<K extends SurfaceKernels | ModelKernels> {
 
   constructor(
     protected readonly program: Program<K>,
-    private readonly constantValues: Float64Array,
+    protected readonly constantValues: Float64Array,
   ) {
     const kernels = program.instantiate(constantValues);
     this.text = program.text;
@@ -258,6 +267,10 @@ class CompiledFormulaSurface extends BoundProgram<SurfaceKernels> implements For
 
   withConstants(values: Readonly<Record<string, number>>): FormulaSurface {
     return new CompiledFormulaSurface(this.program, this.mergedConstants(values));
+  }
+
+  inlineGradient(): { code: InlineGradient; constants: Float64Array } {
+    return { code: this.program.inline!, constants: Float64Array.from(this.constantValues) };
   }
 
   explainUndefined(x: ArrayLike<number>, what: 'value' | 'gradient'): string | null {

@@ -1,3 +1,4 @@
+import type { LockstepCode } from './lockstep';
 import type { Optimizer, StepReport } from './types';
 
 /**
@@ -27,6 +28,8 @@ export interface GradientTransform<S = unknown> {
    * relies on this). Not set on transforms that mix entries (clipping by the global norm).
    */
   readonly elementwise?: boolean;
+  /** On some elementwise transforms: the same per-entry operations as code for the sweep's fused kernel (lockstep.ts). */
+  readonly lockstep?: LockstepCode;
 }
 
 /** State of a chained optimizer: one entry per transform, in chain order. */

@@ -109,7 +109,7 @@ export class RunCursor {
       // The optimizer sees the next batch's loss and gradient on a minibatch run, the exact ones otherwise.
       let stepLoss = s.loss;
       if (s.minibatch) stepLoss = this.drawBatch(s.minibatch);
-      else this.work.set(s.grad);
+      else for (let i = 0; i < n; i++) this.work[i] = s.grad[i]; // a plain loop: far cheaper than set() for a few numbers
       if (noise > 0) addNoise(this.work, noise, s.rng);
       s.t += 1;
       const report = this.optimizer.step(s.x, this.work, s.optimizerState, { t: s.t, loss: stepLoss, oracle: this.oracle });
@@ -149,7 +149,8 @@ export class RunCursor {
   private record(batch: TrajectoryBatch, learningRate: number): void {
     const s = this.state;
     const row = batch.count++;
-    batch.points.set(s.x, row * s.x.length);
+    const n = s.x.length;
+    for (let i = 0; i < n; i++) batch.points[row * n + i] = s.x[i];
     batch.loss[row] = s.loss;
     batch.gradNorm[row] = norm2(s.grad);
     batch.learningRate[row] = learningRate;

@@ -3,7 +3,7 @@ import { choleskyDecompose, choleskySolve } from '../linalg';
 import type { Surface } from '../surface';
 import { norm2 } from '../vector';
 import type { EndPoint, RunOutcome, StopRule } from './outcome';
-import { distance, recentPoint, type RecentPath } from './recent';
+import { distance, recentDistance, type RecentPath } from './recent';
 import { stationarityThreshold } from './stationarity';
 
 /** What the judgement reads of a run at its end (a view of RunState). */
@@ -133,7 +133,7 @@ function stallDetail(trigger: { rule: StopRule; tolerance?: number; patience?: n
 function escapeDetail(f: EndFacts, flatStationary: boolean): string | null {
   const n = f.x.length;
   if (f.recent.filled < 2) return null;
-  const lastStep = distance(recentPoint(f.recent, f.t, 0, n), recentPoint(f.recent, f.t, 1, n));
+  const lastStep = recentDistance(f.recent, f.t, 0, 1, n);
   if (!(lastStep >= ESCAPE_STEP * Math.max(1, norm2(f.x)))) return null;
   const k = Math.floor(Math.log2(Math.max(1, f.t)));
   if (k < 2 || k >= f.recent.distanceAt.length) return null;
@@ -158,10 +158,10 @@ function findCycle(f: EndFacts): { period: number; amplitude: number } | null {
   for (let p = 2; p <= 4; p++) {
     if (r.filled < p + 2) break;
     let spread = 0;
-    for (let j = 1; j < p; j++) spread = Math.max(spread, distance(recentPoint(r, f.t, 0, n), recentPoint(r, f.t, j, n)));
+    for (let j = 1; j < p; j++) spread = Math.max(spread, recentDistance(r, f.t, 0, j, n));
     if (!(spread > 0) || spread <= 1e-12 * Math.max(1, norm2(f.x))) continue;
-    const back = distance(recentPoint(r, f.t, 0, n), recentPoint(r, f.t, p, n));
-    const before = distance(recentPoint(r, f.t, 1, n), recentPoint(r, f.t, p + 1, n));
+    const back = recentDistance(r, f.t, 0, p, n);
+    const before = recentDistance(r, f.t, 1, p + 1, n);
     if (back <= CYCLE_MATCH * spread && before <= CYCLE_MATCH * spread) return { period: p, amplitude: spread / 2 };
   }
   return null;

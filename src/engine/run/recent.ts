@@ -64,6 +64,11 @@ export function recordRecentAt(
   const base = pointsAt + slot * pointStride;
   for (let i = 0; i < n; i++) points[base + i] = x[xAt + i];
   loss[lossAt + slot * lossStride] = lossValue;
+  recordMilestoneAt(distanceAt, milestonesAt, t, x, xAt, n, x0, x0At);
+}
+
+/** The milestone part of recordRecentAt: at t = 2^k, the distance from the start (nothing at other t). */
+export function recordMilestoneAt(distanceAt: Float64Array, milestonesAt: number, t: number, x: Float64Array, xAt: number, n: number, x0: Float64Array, x0At: number): void {
   if (t > 0 && (t & (t - 1)) === 0) {
     const k = Math.log2(t);
     if (k < MILESTONES) {
@@ -74,10 +79,17 @@ export function recordRecentAt(
   }
 }
 
-/** The point recorded `back` steps before step t (back < filled), as a view. */
-export function recentPoint(path: RecentPath, t: number, back: number, n: number): Float64Array {
-  const slot = (((t - back) % RECENT_POINTS) + RECENT_POINTS) % RECENT_POINTS;
-  return path.points.subarray(slot * n, (slot + 1) * n);
+/**
+ * The distance between the points recorded `backA` and `backB` steps before step t (each < filled),
+ * read in place: no views are made (the end judgement asks for several at every run's end).
+ */
+export function recentDistance(path: RecentPath, t: number, backA: number, backB: number, n: number): number {
+  const a = ((((t - backA) % RECENT_POINTS) + RECENT_POINTS) % RECENT_POINTS) * n;
+  const b = ((((t - backB) % RECENT_POINTS) + RECENT_POINTS) % RECENT_POINTS) * n;
+  const p = path.points;
+  let s = 0;
+  for (let i = 0; i < n; i++) s += (p[a + i] - p[b + i]) ** 2;
+  return Math.sqrt(s);
 }
 
 export function distance(a: ArrayLike<number>, b: ArrayLike<number>): number {

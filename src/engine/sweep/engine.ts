@@ -6,10 +6,11 @@ import { nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrig
 import { judgeEnd, type EndFacts, type EndTrigger } from '../run/end-state';
 import { addNoise, addNoiseAt, countingSurface, noisyOracle } from '../run/oracle';
 import type { RunOutcome } from '../run/outcome';
-import { MILESTONES, RECENT_POINTS, recordRecentAt, type RecentPath } from '../run/recent';
+import { MILESTONES, RECENT_POINTS, recordMilestoneAt, recordRecentAt, type RecentPath } from '../run/recent';
 import type { StopRules } from '../run/settings';
 import type { Surface } from '../surface';
 import { norm2 } from '../vector';
+import { fusedKernel, type FusedHost, type FusedKernel } from './fused';
 import { validateSweepPlan, type SweepPlan, type SweepProgress, type SweepResult } from './plan';
 
 /**
@@ -18,6 +19,9 @@ import { validateSweepPlan, type SweepPlan, type SweepProgress, type SweepResult
  * transforms (Adam's two powers of beta per step) is spread thin.
  */
 const BLOCK = 64;
+
+/** Rounds per batch on the fused path: the step numbers of a batch are computed once for every block. */
+const FUSED_BATCH = 256;
 
 /** The block path's parts: the chain's transforms and one chain state per block of BLOCK runs. */
 interface Blocks {
@@ -58,13 +62,22 @@ interface RunContext {
  * Nesterov momentum's 'record-base-point' form, clipped chains, several learning rates) step run by run
  * with a state per run.
  *
+ * The fused path (fused.ts), tried first: on a compiled formula surface, with every transform of the
+ * chain offering lockstep code (optim/lockstep.ts) and no gradient noise, one generated function
+ * takes a block's round, each run's whole step inline (transforms, move, the formula's value and
+ * gradient, ring, stop rules), with the same operations in the same order as the block path. A rule
+ * that fires hands the run back here (FusedHost), where its outcome is built as on the block path.
+ * `path` says which of the three a sweep took.
+ *
  * Stream it with `advance(rounds)` or `advanceFor(ms, clock)` and read `result()` between calls.
  */
-export class Sweep {
+export class Sweep implements FusedHost {
   readonly count: number;
   readonly dimension: number;
   readonly surface: Surface;
   readonly stop: StopRules;
+  /** How the runs step: the fused kernel (fused.ts), the block path, or run by run. */
+  readonly path: 'fused' | 'blocks' | 'runs';
   private readonly noise: number;
   private readonly lossTolerance: number;
   private readonly stationarityTolerance: number | undefined;
@@ -99,8 +112,17 @@ export class Sweep {
   private readonly rngs: RngState[] = [];
   private readonly contexts: RunContext[] = [];
   private readonly blocks: Blocks | null;
+  private readonly fused: FusedKernel | null;
+  /** The fused path's step numbers and learning rates for one batch of rounds. */
+  private readonly batchNumbers: Float64Array;
+  private readonly batchRates: Float64Array;
   private readonly scratchX: Float64Array;
   private readonly scratchGrad: Float64Array;
+  /** The surface counting into `counter`, which `counted` loads with a run's count and reads back. */
+  private readonly counter = { evaluations: 0 };
+  private readonly countedSurface: Surface;
+  /** What `facts` hands the end judgement, refilled for each run that ends (see facts). */
+  private readonly judgementBuffers: { x: Float64Array; x0: Float64Array; grad: Float64Array; points: Float64Array; loss: Float64Array; distanceAt: Float64Array };
 
   constructor(plan: SweepPlan) {
     const count = validateSweepPlan(plan);
@@ -131,6 +153,15 @@ export class Sweep {
     this.live = new Int32Array(count);
     this.scratchX = new Float64Array(n);
     this.scratchGrad = new Float64Array(n);
+    this.countedSurface = countingSurface(surface, this.counter);
+    this.judgementBuffers = {
+      x: new Float64Array(n),
+      x0: new Float64Array(n),
+      grad: new Float64Array(n),
+      points: new Float64Array(RECENT_POINTS * n),
+      loss: new Float64Array(RECENT_POINTS),
+      distanceAt: new Float64Array(MILESTONES),
+    };
 
     // One optimizer per distinct learning rate: an Optimizer keeps its run's state in `state`, its
     // closures only scratch buffers that each step fills before reading, so runs can share it.
@@ -174,8 +205,12 @@ export class Sweep {
       this.outcomes[r] = outcome;
       if (!outcome) this.live[this.liveCount++] = r;
     }
-    this.blocks = blockPath ? this.makeBlocks(shared as ChainOptimizer) : null;
-    if (!this.blocks) for (let r = 0; r < count; r++) this.states.push(this.optimizers[r].init(Float64Array.from(this.xs[r])));
+    this.fused = blockPath && this.noise === 0 ? this.makeFused(shared as ChainOptimizer) : null;
+    this.blocks = blockPath && !this.fused ? this.makeBlocks(shared as ChainOptimizer) : null;
+    this.path = this.fused ? 'fused' : this.blocks ? 'blocks' : 'runs';
+    this.batchNumbers = new Float64Array(this.fused ? FUSED_BATCH * this.fused.stepNumbers : 0);
+    this.batchRates = new Float64Array(this.fused ? FUSED_BATCH : 0);
+    if (this.path === 'runs') for (let r = 0; r < count; r++) this.states.push(this.optimizers[r].init(Float64Array.from(this.xs[r])));
   }
 
   /** Run r's subarray views and recent-path record over the flat arrays, made on first use. */
@@ -188,6 +223,19 @@ export class Sweep {
     this.grads[r] = this.grad.subarray(lo, hi);
     this.works[r] = this.work.subarray(lo, hi);
     this.x0s[r] = this.x0.subarray(lo, hi);
+  }
+
+  private makeFused(o: ChainOptimizer): FusedKernel | null {
+    const arrays = {
+      grad: this.grad,
+      initialLoss: this.initialLoss,
+      stepsToTolerance: this.stepsToTolerance,
+      ringPoints: this.ringPoints,
+      ringLoss: this.ringLoss,
+      calm: this.calm,
+      live: this.live,
+    };
+    return fusedKernel(this.surface, o.transforms, this.stop, this.lossTolerance, this.count, arrays, this);
   }
 
   private makeBlocks(o: ChainOptimizer): Blocks {
@@ -216,7 +264,8 @@ export class Sweep {
   /** Takes up to `maxRounds` lockstep rounds (one step of every live run each) and reports progress. */
   advance(maxRounds: number): SweepProgress {
     const rounds = Math.max(0, Math.floor(maxRounds));
-    if (this.blocks && this.liveCount > 0 && rounds > 0) this.blockRounds(this.blocks, rounds);
+    if (this.fused && this.liveCount > 0 && rounds > 0) this.fusedRounds(this.fused, rounds);
+    else if (this.blocks && this.liveCount > 0 && rounds > 0) this.blockRounds(this.blocks, rounds);
     else for (let k = 0; k < rounds && this.liveCount > 0; k++) this.round();
     return this.progress;
   }
@@ -322,6 +371,86 @@ export class Sweep {
     }
     this.liveCount = kept;
     this.rounds += used;
+  }
+
+  /**
+   * `rounds` rounds on the fused path, in batches of up to FUSED_BATCH rounds: the batch's step
+   * numbers and learning rates are computed once (the same calls the transforms make per step), then
+   * each block of runs takes the batch's rounds through the kernel, block by block as on the block path.
+   */
+  private fusedRounds(kernel: FusedKernel, rounds: number): void {
+    const live = this.live;
+    const numbers = this.batchNumbers;
+    const rates = this.batchRates;
+    const width = kernel.stepNumbers;
+    const chain = this.optimizers[0] as ChainOptimizer;
+    const learningRate = learningRateStage(chain.transforms, chain.label);
+    let done = 0;
+    while (done < rounds && this.liveCount > 0) {
+      const batch = Math.min(FUSED_BATCH, rounds - done);
+      const t0 = this.rounds;
+      for (let q = 0; q < batch; q++) {
+        kernel.writeStepNumbers(t0 + q + 1, numbers, q * width);
+        rates[q] = learningRate.learningRate(t0 + q + 1);
+      }
+      const liveCount = this.liveCount;
+      let kept = 0;
+      let used = 0;
+      let k = 0;
+      while (k < liveCount) {
+        const end = ((live[k] / BLOCK) | 0) * BLOCK + BLOCK;
+        let segmentEnd = k;
+        while (segmentEnd < liveCount && live[segmentEnd] < end) segmentEnd++;
+        let alive = segmentEnd;
+        let q = 0;
+        for (; q < batch && alive > k; q++) {
+          const t = t0 + q + 1;
+          this.totalSteps += alive - k;
+          alive = kernel.round(kernel.state, k, alive, k, t, rates[q], numbers, q * width, t % RECENT_POINTS, (t & (t - 1)) === 0 ? 1 : 0);
+        }
+        used = Math.max(used, q);
+        for (let j = k; j < alive; j++) live[kept++] = live[j];
+        k = segmentEnd;
+      }
+      this.liveCount = kept;
+      this.rounds += used;
+      done += batch;
+    }
+    for (let k = 0; k < this.liveCount; k++) this.syncFused(live[k], this.rounds);
+  }
+
+  /** For the fused kernel (FusedHost): a point rule ended run r at step t; the outcome as the block path builds it. */
+  endFusedPoint(r: number, t: number): void {
+    this.syncFused(r, t);
+    const n = this.dimension;
+    const finding = pointFindingAt(this.x, this.grad, r * n, n, this.loss[r], this.initialLoss[r], this.stop);
+    this.endFlat(r, finding as Exclude<PointFinding, 'ok'>, null);
+  }
+
+  /** For the fused kernel (FusedHost): the loss-change rule or the step limit ended run r at step t. */
+  endFusedProgress(r: number, t: number): void {
+    this.syncFused(r, t);
+    this.endFlat(r, null, progressTrigger(this.stop, this.calm[r], t));
+  }
+
+  /**
+   * A fused run's state at step t into the flat arrays: its point and loss from the ring's slot for t
+   * (the kernel's record of them), its step count and evaluations (one per step after the start's).
+   */
+  private syncFused(r: number, t: number): void {
+    const n = this.dimension;
+    const slot = (t % RECENT_POINTS) * this.count + r;
+    for (let i = 0; i < n; i++) this.x[r * n + i] = this.ringPoints[slot * n + i];
+    this.loss[r] = this.ringLoss[slot];
+    this.steps[r] = t;
+    this.evaluations[r] = t + 1;
+  }
+
+  /** For the fused kernel (FusedHost): run r's distance milestone at step t, as recordRecentAt records it. */
+  recordFusedMilestone(r: number, t: number): void {
+    this.syncFused(r, t);
+    const n = this.dimension;
+    recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
   }
 
   /**
@@ -432,12 +561,17 @@ export class Sweep {
 
   /** The facts the end judgement reads, for run r (made only when the run ends). */
   private facts(r: number): EndFacts {
-    this.views(r);
+    // Run by run, the run's own views; otherwise copies into the sweep's judgement buffers (the
+    // judgement only reads them and its outcome keeps none of them, so one set serves every run that
+    // ends, and thousands of runs ending at once make no arrays).
+    const n = this.dimension;
+    const own = this.xs[r] !== undefined;
+    const b = this.judgementBuffers;
     return {
       t: this.steps[r],
-      x: this.xs[r],
-      x0: this.x0s[r],
-      grad: this.grads[r],
+      x: own ? this.xs[r] : copyInto(b.x, this.x, r * n),
+      x0: own ? this.x0s[r] : copyInto(b.x0, this.x0, r * n),
+      grad: own ? this.grads[r] : copyInto(b.grad, this.grad, r * n),
       loss: this.loss[r],
       initialLoss: this.initialLoss[r],
       initialGradNorm: this.initialGradNorm[r],
@@ -453,20 +587,23 @@ export class Sweep {
    */
   private recentPath(r: number): RecentPath {
     const n = this.dimension;
-    const points = new Float64Array(RECENT_POINTS * n);
-    const loss = new Float64Array(RECENT_POINTS);
+    const { points, loss, distanceAt } = this.judgementBuffers;
+    const ring = this.ringPoints;
+    const ringLoss = this.ringLoss;
+    const count = this.count;
     for (let slot = 0; slot < RECENT_POINTS; slot++) {
-      const from = (slot * this.count + r) * n;
-      for (let i = 0; i < n; i++) points[slot * n + i] = this.ringPoints[from + i];
-      loss[slot] = this.ringLoss[slot * this.count + r];
+      const from = (slot * count + r) * n;
+      for (let i = 0; i < n; i++) points[slot * n + i] = ring[from + i];
+      loss[slot] = ringLoss[slot * count + r];
     }
-    return { points, loss, filled: Math.min(RECENT_POINTS, this.steps[r] + 1), distanceAt: this.milestones.subarray(r * MILESTONES, (r + 1) * MILESTONES) };
+    return { points, loss, filled: Math.min(RECENT_POINTS, this.steps[r] + 1), distanceAt: copyInto(distanceAt, this.milestones, r * MILESTONES) };
   }
 
   /** Runs `f` on the surface counting into run r's evaluations, as the cursor's judgement counts. */
   private counted<T>(r: number, f: (surface: Surface) => T): T {
-    const counter = { evaluations: this.evaluations[r] };
-    const out = f(countingSurface(this.surface, counter));
+    const counter = this.counter;
+    counter.evaluations = this.evaluations[r];
+    const out = f(this.countedSurface);
     this.evaluations[r] = counter.evaluations;
     return out;
   }
@@ -478,4 +615,10 @@ export class Sweep {
   private judge(r: number, trigger: EndTrigger): RunOutcome {
     return this.counted(r, (s) => judgeEnd(s, this.facts(r), trigger));
   }
+}
+
+/** Copies a[at .. at + out.length) into out (a plain loop: for a few numbers far cheaper than set()). */
+function copyInto(out: Float64Array, a: Float64Array, at: number): Float64Array {
+  for (let i = 0; i < out.length; i++) out[i] = a[at + i];
+  return out;
 }

@@ -14,6 +14,14 @@ export function scaleByAdagrad(epsilon: number, placement: EpsilonPlacement, ini
     name: 'scaleByAdagrad',
     elementwise: true,
     init: (p) => ({ sumSquares: new Float64Array(p.length).fill(initialAccumulator) }),
+    // update's operations on one entry, in its order (lockstep.ts): s = [G], k = [eps].
+    lockstep: {
+      arrays: [initialAccumulator],
+      constants: [epsilon],
+      steps: 0,
+      code: ({ u, s: [G], k: [eps] }) =>
+        `${G} += ${u} * ${u}; const d = ${placement === 'outside' ? `Math.sqrt(${G}) + ${eps}` : `Math.sqrt(${G} + ${eps})`}; ${u} = d > 0 ? ${u} / d : 0;`,
+    },
     update(u, s) {
       const G = s.sumSquares;
       for (let i = 0; i < u.length; i++) {

@@ -10,6 +10,16 @@ export function scaleByLearningRate(base: number, schedule?: ScheduleSpec): Grad
     name: 'scaleByLearningRate',
     elementwise: true,
     init: () => null,
+    // update's operation on one entry (lockstep.ts): q = [-lr_t].
+    lockstep: {
+      arrays: [],
+      constants: [],
+      steps: 1,
+      step(t, out, at) {
+        out[at] = -learningRateAt(schedule, base, t);
+      },
+      code: ({ u, q: [minusRate] }) => `${u} = ${u} * ${minusRate};`,
+    },
     update(u, _s, _p, t) {
       const lr = learningRateAt(schedule, base, t);
       for (let i = 0; i < u.length; i++) u[i] *= -lr;

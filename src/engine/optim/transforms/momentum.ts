@@ -17,6 +17,18 @@ export function traceMomentum(mu: number, dampening = 0, nesterov = false): Grad
     name: nesterov ? 'traceNesterov' : 'traceMomentum',
     elementwise: true,
     init: (p) => ({ buffer: new Float64Array(p.length), steps: 0 }),
+    // update's operations on one entry (lockstep.ts), for a state fresh at t = 1 (the kernel's runs
+    // all start together), so "the first update" is q = [t === 1 ? 1 : 0]; s = [buffer].
+    lockstep: {
+      arrays: [0],
+      constants: [mu, dampening],
+      steps: 1,
+      step(t, out, at) {
+        out[at] = t === 1 ? 1 : 0;
+      },
+      code: ({ u, s: [b], k: [m, damp], q: [first] }) =>
+        `${b} = ${first} !== 0 ? ${u} : ${m} * ${b} + (1 - ${damp}) * ${u}; ${u} = ${nesterov ? `${u} + ${m} * ${b}` : b};`,
+    },
     update(u, s) {
       const b = s.buffer;
       const first = s.steps === 0;

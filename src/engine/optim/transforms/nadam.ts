@@ -1,5 +1,5 @@
 import type { GradientTransform } from '../transform';
-import { power } from '../../power';
+import { biasCorrection } from '../../power';
 import { updateMoments } from './moments';
 
 /** The two forms of NAdam's first moment (below); the first is the default. */
@@ -23,6 +23,8 @@ export interface NadamState {
  */
 export function scaleByNadam(beta1: number, beta2: number, epsilon: number, momentumDecay: number, form: NadamForm): GradientTransform<NadamState> {
   const mu = (t: number) => beta1 * (1 - 0.5 * Math.pow(0.96, t * momentumDecay));
+  const correction1 = biasCorrection(beta1);
+  const correction2 = biasCorrection(beta2);
   return {
     name: 'scaleByNadam',
     elementwise: true,
@@ -38,10 +40,10 @@ export function scaleByNadam(beta1: number, beta2: number, epsilon: number, mome
         a = muNext / (1 - s.muProduct * muNext);
         b = (1 - muT) / (1 - s.muProduct);
       } else {
-        a = beta1 / (1 - power(beta1, t + 1));
-        b = (1 - beta1) / (1 - power(beta1, t));
+        a = beta1 / correction1(t + 1);
+        b = (1 - beta1) / correction1(t);
       }
-      const c2 = 1 - power(beta2, t);
+      const c2 = correction2(t);
       for (let i = 0; i < u.length; i++) {
         const g = u[i];
         updateMoments(m, v, i, g, beta1, beta2);

@@ -34,6 +34,23 @@ export function scaleByRms(o: RmsOptions): GradientTransform<RmsState> {
       meanGrad: o.centered ? new Float64Array(p.length) : null,
       buffer: o.momentum > 0 ? new Float64Array(p.length) : null,
     }),
+    // update's operations on one entry, in its order (lockstep.ts): s = [v, gbar if centred, buffer if
+    // momentum], k = [rho, eps, mu].
+    lockstep: {
+      arrays: [o.initialMeanSquare, ...(o.centered ? [0] : []), ...(o.momentum > 0 ? [0] : [])],
+      constants: [o.decay, o.epsilon, o.momentum],
+      steps: 0,
+      code: ({ u, s: [v, ...rest], k: [rho, eps, mu] }) => {
+        const gbar = o.centered ? rest[0] : null;
+        const b = o.momentum > 0 ? rest[rest.length - 1] : null;
+        return (
+          `${v} = ${rho} * ${v} + (1 - ${rho}) * ${u} * ${u}; let w = ${v}; ` +
+          (gbar ? `${gbar} = ${rho} * ${gbar} + (1 - ${rho}) * ${u}; w = Math.max(0, w - ${gbar} * ${gbar}); ` : '') +
+          `const d = ${o.placement === 'outside' ? `Math.sqrt(w) + ${eps}` : `Math.sqrt(w + ${eps})`}; const scaled = d > 0 ? ${u} / d : 0; ` +
+          (b ? `${b} = ${mu} * ${b} + scaled; ${u} = ${b};` : `${u} = scaled;`)
+        );
+      },
+    },
     update(u, s) {
       const { meanSquare: v, meanGrad: gbar, buffer: b } = s;
       const rho = o.decay;

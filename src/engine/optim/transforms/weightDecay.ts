@@ -5,6 +5,8 @@ function addScaledParams(name: string, coefficient: number): GradientTransform<n
     name,
     elementwise: true,
     init: () => null,
+    // update's operation on one entry (lockstep.ts): k = [coefficient].
+    lockstep: { arrays: [], constants: [coefficient], steps: 0, code: ({ u, p, k: [a] }) => `${u} += ${a} * ${p};` },
     update(u, _s, params) {
       for (let i = 0; i < u.length; i++) u[i] += coefficient * params[i];
       return null;
