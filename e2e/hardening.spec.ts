@@ -195,11 +195,11 @@ test.describe('long and many runs', () => {
     record('longest main-thread task during four hidden 10^7-step runs (ms)', await longestTask(page));
   });
 
-  // Found by this spec and not fixed here: with the runs drawn, every frame recomputes every run's
-  // whole decimated path from all its steps, twice (scene.ts drawOverlay: once for the lines, once for
-  // the markers), so a frame costs O(steps taken); at about 10^6 steps per run, four runs keep the main
-  // thread busy for seconds (a round trip of 9.3 s was measured, against under 1.1 s with the runs
-  // hidden). Needs an incremental, append-only path per run in ui/view, outside this change.
+  // Found by this spec and not fixed yet. The map's paths are now extended incrementally
+  // (plot/trajectory.ts growingTrajectoryPath, so a frame walks only the new steps), but the page still
+  // freezes with four drawn runs of millions of steps: the loss chart scans every step of every run on
+  // each redraw (loss-chart.ts: scale choice and range), and the trajectory buffers double by copying
+  // hundreds of MB on the main thread (store/trajectory-buffer.ts). Both need a running summary.
   test.fixme('four drawn 10^7-step runs keep the page responsive', async ({ page }) => {
     await watchPage(page);
     await openFresh(page);

@@ -62,84 +62,156 @@ export interface TrajectoryOptions {
 export const TRAJECTORY_DEFAULTS = { minPixelStep: 0.75, clipMarginPx: 32, markerSize: 8, lineWidth: 1.75 } as const;
 
 export function trajectoryPath(points: Float64Array, count: number, transform: ViewTransform, options: TrajectoryOptions = {}): TrajectoryPath {
-  const stride = options.layout?.stride ?? 2;
-  const ca = options.layout?.a ?? 0;
-  const cb = options.layout?.b ?? 1;
-  if (!(Number.isInteger(stride) && stride >= 1 && ca >= 0 && cb >= 0 && ca < stride && cb < stride))
-    throw new Error(`trajectory: layout columns ${ca}, ${cb} must lie inside rows of ${stride} numbers`);
-  const rows = Math.max(0, Math.min(Math.floor(count), Math.floor(points.length / stride)));
-  const tol = options.minPixelStep ?? TRAJECTORY_DEFAULTS.minPixelStep;
-  const tol2 = tol * tol;
-  const margin = options.clipMarginPx ?? TRAJECTORY_DEFAULTS.clipMarginPx;
-  const box = { x0: -margin, y0: -margin, x1: transform.size.width + margin, y1: transform.size.height + margin };
-  const xOf = (r: number) => transform.pxOfA(points[r * stride + ca]);
-  const yOf = (r: number) => transform.pyOfB(points[r * stride + cb]);
+  const builder = new PathBuilder(points, transform, options);
+  const rows = builder.rowsOf(count);
+  builder.extend(rows);
+  return { polylines: builder.polylines(), markers: trajectoryMarkers(rows, builder.xOf, builder.yOf, builder.box, options) };
+}
 
-  const polylines: PixelPolyline[] = [];
-  let line: number[] | null = null;
-  let lastX = 0, lastY = 0;
-  let pending = false, pendX = 0, pendY = 0;
-  const start = (x: number, y: number) => {
-    line = [x, y];
-    lastX = x;
-    lastY = y;
-    pending = false;
-  };
-  const emit = (x: number, y: number) => {
-    line!.push(x, y);
-    lastX = x;
-    lastY = y;
-    pending = false;
-  };
-  const flush = () => {
-    if (line && pending) line.push(pendX, pendY);
-    if (line && line.length >= 4) polylines.push({ pxpy: Float64Array.from(line) });
-    line = null;
-    pending = false;
-  };
+/** Builders kept per points array, a few per array (one per view that draws it: map, panels, figures). */
+const BUILDERS = new WeakMap<Float64Array, { key: string; builder: PathBuilder }[]>();
+const BUILDERS_PER_ARRAY = 4;
 
-  let prevOk = false, prevX = 0, prevY = 0;
-  const seg = new Float64Array(4);
-  for (let r = 0; r < rows; r++) {
-    const x = xOf(r);
-    const y = yOf(r);
-    if (!(Number.isFinite(x) && Number.isFinite(y))) {
-      flush();
-      prevOk = false;
-      continue;
-    }
-    if (!prevOk) {
-      if (inside(box, x, y)) start(x, y);
-    } else {
-      const clip = inside(box, x, y) && inside(box, prevX, prevY) ? WHOLE : clipInto(box, prevX, prevY, x, y, seg);
-      if (clip === HIDDEN) flush();
-      else {
-        if (clip === WHOLE) {
-          seg[0] = prevX;
-          seg[1] = prevY;
-        }
-        if (line === null || clip & START_CUT) {
-          flush();
-          start(seg[0], seg[1]);
-        }
-        if (clip & END_CUT) {
-          if (pending) emit(pendX, pendY);
-          emit(seg[2], seg[3]);
-          flush();
-        } else if ((x - lastX) * (x - lastX) + (y - lastY) * (y - lastY) >= tol2) emit(x, y);
+/**
+ * trajectoryPath for a trajectory that only grows (the page's streamed runs): the same result, but
+ * the polyline is extended from the rows already walked for the same points array, view and options,
+ * so a frame costs the new steps, not all of them. A shorter count, another array (the buffer grew)
+ * or another view walks from the start.
+ */
+export function growingTrajectoryPath(points: Float64Array, count: number, transform: ViewTransform, options: TrajectoryOptions = {}): TrajectoryPath {
+  const key = pathKey(transform, options);
+  let entries = BUILDERS.get(points);
+  if (!entries) BUILDERS.set(points, (entries = []));
+  let entry = entries.find((e) => e.key === key);
+  if (entry) entries.splice(entries.indexOf(entry), 1);
+  const fresh = new PathBuilder(points, transform, options);
+  const rows = fresh.rowsOf(count);
+  if (!entry || entry.builder.rows > rows) entry = { key, builder: fresh };
+  entries.unshift(entry);
+  entries.length = Math.min(entries.length, BUILDERS_PER_ARRAY);
+  const builder = entry.builder;
+  builder.extend(rows);
+  return { polylines: builder.polylines(), markers: trajectoryMarkers(rows, builder.xOf, builder.yOf, builder.box, options) };
+}
+
+/** What a walked polyline depends on besides the points: the view's mapping and the walk's options. */
+function pathKey(t: ViewTransform, o: TrajectoryOptions): string {
+  const l = o.layout ?? {};
+  return [t.size.width, t.size.height, t.pxOfA(0), t.pxOfA(1), t.pyOfB(0), t.pyOfB(1), l.stride ?? 2, l.a ?? 0, l.b ?? 1, o.minPixelStep ?? '', o.clipMarginPx ?? ''].join(' ');
+}
+
+/**
+ * The decimating, clipping walk over the rows (see the header), resumable: `extend(rows)` walks the
+ * rows not yet walked; `polylines()` is the finished lines plus the open one with its pending point,
+ * without closing it, so the walk can go on.
+ */
+class PathBuilder {
+  rows = 0;
+  readonly box: Box;
+  readonly xOf: (r: number) => number;
+  readonly yOf: (r: number) => number;
+  private readonly stride: number;
+  private readonly tol2: number;
+  private readonly done: PixelPolyline[] = [];
+  private line: number[] | null = null;
+  private lastX = 0;
+  private lastY = 0;
+  private pending = false;
+  private pendX = 0;
+  private pendY = 0;
+  private prevOk = false;
+  private prevX = 0;
+  private prevY = 0;
+  private readonly seg = new Float64Array(4);
+
+  constructor(private readonly points: Float64Array, transform: ViewTransform, options: TrajectoryOptions) {
+    const stride = options.layout?.stride ?? 2;
+    const ca = options.layout?.a ?? 0;
+    const cb = options.layout?.b ?? 1;
+    if (!(Number.isInteger(stride) && stride >= 1 && ca >= 0 && cb >= 0 && ca < stride && cb < stride))
+      throw new Error(`trajectory: layout columns ${ca}, ${cb} must lie inside rows of ${stride} numbers`);
+    this.stride = stride;
+    const tol = options.minPixelStep ?? TRAJECTORY_DEFAULTS.minPixelStep;
+    this.tol2 = tol * tol;
+    const margin = options.clipMarginPx ?? TRAJECTORY_DEFAULTS.clipMarginPx;
+    this.box = { x0: -margin, y0: -margin, x1: transform.size.width + margin, y1: transform.size.height + margin };
+    this.xOf = (r: number) => transform.pxOfA(points[r * stride + ca]);
+    this.yOf = (r: number) => transform.pyOfB(points[r * stride + cb]);
+  }
+
+  /** The rows a count stands for in this array. */
+  rowsOf(count: number): number {
+    return Math.max(0, Math.min(Math.floor(count), Math.floor(this.points.length / this.stride)));
+  }
+
+  extend(rows: number): void {
+    const { box, seg, tol2 } = this;
+    for (let r = this.rows; r < rows; r++) {
+      const x = this.xOf(r);
+      const y = this.yOf(r);
+      if (!(Number.isFinite(x) && Number.isFinite(y))) {
+        this.flush();
+        this.prevOk = false;
+        continue;
+      }
+      if (!this.prevOk) {
+        if (inside(box, x, y)) this.start(x, y);
+      } else {
+        const clip = inside(box, x, y) && inside(box, this.prevX, this.prevY) ? WHOLE : clipInto(box, this.prevX, this.prevY, x, y, seg);
+        if (clip === HIDDEN) this.flush();
         else {
-          pending = true;
-          pendX = x;
-          pendY = y;
+          if (clip === WHOLE) {
+            seg[0] = this.prevX;
+            seg[1] = this.prevY;
+          }
+          if (this.line === null || clip & START_CUT) {
+            this.flush();
+            this.start(seg[0], seg[1]);
+          }
+          if (clip & END_CUT) {
+            if (this.pending) this.emit(this.pendX, this.pendY);
+            this.emit(seg[2], seg[3]);
+            this.flush();
+          } else if ((x - this.lastX) * (x - this.lastX) + (y - this.lastY) * (y - this.lastY) >= tol2) this.emit(x, y);
+          else {
+            this.pending = true;
+            this.pendX = x;
+            this.pendY = y;
+          }
         }
       }
+      this.prevOk = true;
+      this.prevX = x;
+      this.prevY = y;
     }
-    prevOk = true;
-    prevX = x;
-    prevY = y;
+    this.rows = Math.max(this.rows, rows);
   }
-  flush();
-  return { polylines, markers: trajectoryMarkers(rows, xOf, yOf, box, options) };
+
+  polylines(): PixelPolyline[] {
+    const open = this.line ? (this.pending ? [...this.line, this.pendX, this.pendY] : this.line) : null;
+    return open && open.length >= 4 ? [...this.done, { pxpy: Float64Array.from(open) }] : this.done.slice();
+  }
+
+  private start(x: number, y: number): void {
+    this.line = [x, y];
+    this.lastX = x;
+    this.lastY = y;
+    this.pending = false;
+  }
+
+  private emit(x: number, y: number): void {
+    this.line!.push(x, y);
+    this.lastX = x;
+    this.lastY = y;
+    this.pending = false;
+  }
+
+  private flush(): void {
+    if (this.line && this.pending) this.line.push(this.pendX, this.pendY);
+    if (this.line && this.line.length >= 4) this.done.push({ pxpy: Float64Array.from(this.line) });
+    this.line = null;
+    this.pending = false;
+  }
 }
 
 function trajectoryMarkers(
@@ -247,7 +319,7 @@ export function drawTrajectory(
   style: RunStyle,
   options: TrajectoryOptions = {},
 ): TrajectoryPath {
-  const path = trajectoryPath(points, count, transform, options);
+  const path = growingTrajectoryPath(points, count, transform, options);
   const width = options.lineWidth ?? TRAJECTORY_DEFAULTS.lineWidth;
   const markerSize = options.markerSize ?? TRAJECTORY_DEFAULTS.markerSize;
   ctx.save();
