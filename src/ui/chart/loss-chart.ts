@@ -4,6 +4,7 @@
  */
 import { scaleLinear, scaleLog } from 'd3';
 import type { LiveRuns } from '../../store/live-runs';
+import { lossExtremes, type LossExtremes } from './loss-range';
 import { beginChart, canvasFont, drawMarker, drawVerticalTitle, formatValue, niceTicks, PLOT_STYLE, runStyle, strokeChartFrame, type DrawingContext, type PixelSize, type RunStyle } from '../plot';
 
 export interface LossSeries {
@@ -25,13 +26,25 @@ export const GAP_FLOOR = 1e-16;
 
 export function chooseLossAxis(series: readonly LossSeries[], knownMinimum: number | null): LossAxis {
   if (knownMinimum !== null) return { kind: 'gap', minimum: knownMinimum };
-  for (const s of series) for (let k = 0; k < s.count; k++) if (!(s.loss[k] > 0) && Number.isFinite(s.loss[k])) return { kind: 'linear' };
+  for (const s of series) if (lossExtremes(s.loss, s.count).nonPositive) return { kind: 'linear' };
   return { kind: 'log' };
 }
 
 export function axisValue(axis: LossAxis, loss: number): number {
   if (axis.kind === 'gap') return Math.max(loss - axis.minimum, GAP_FLOOR);
   return loss;
+}
+
+/**
+ * The smallest and largest axis value (axisValue) over the rows the extremes summarise, skipping what
+ * the axis cannot show (non-finite values; values <= 0 on a log axis); [Infinity, -Infinity] if none.
+ * axisValue is non-decreasing in the loss, so the extremes of the loss give those of the axis value.
+ */
+export function axisRange(axis: LossAxis, e: LossExtremes): [number, number] {
+  if (axis.kind === 'gap')
+    return e.minBelowInf <= e.maxBelowInf ? [axisValue(axis, e.minBelowInf), axisValue(axis, e.maxBelowInf)].map((v) => (Number.isFinite(v) ? v : GAP_FLOOR)) as [number, number] : [Infinity, -Infinity];
+  if (axis.kind === 'log') return [e.minPositive, e.maxPositive];
+  return [e.minFinite, e.maxFinite];
 }
 
 export const CHART_MARGIN = { left: 70, right: 24, top: 10, bottom: 40 } as const;
@@ -54,12 +67,9 @@ export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: read
   let hi = -Infinity;
   const include = (loss: ArrayLike<number>, count: number) => {
     maxStep = Math.max(maxStep, count - 1);
-    for (let k = 0; k < count; k++) {
-      const v = axisValue(axis, loss[k]);
-      if (!Number.isFinite(v) || (axis.kind !== 'linear' && v <= 0)) continue;
-      lo = Math.min(lo, v);
-      hi = Math.max(hi, v);
-    }
+    const [a, b] = axisRange(axis, lossExtremes(loss, count));
+    lo = Math.min(lo, a);
+    hi = Math.max(hi, b);
   };
   for (const s of series) include(s.loss, s.count);
   for (const q of band?.quantiles ?? []) include(q, q.length);
