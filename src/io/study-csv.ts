@@ -1,5 +1,6 @@
 import { cellStart, drawStarts, hasParameterGroups, logSpaced, outcomeDetail, type RunOutcome, type StudySpec, type Surface } from '../engine';
 import { toCsv, type CsvCell } from './csv';
+import { reportedUnits } from './units';
 
 /**
  * Study CSV (same RFC 4180 and formula-neutralising rules as csv.ts), one row per start (start-point
@@ -12,6 +13,8 @@ import { toCsv, type CsvCell } from './csv';
  *   final_<variable> ...  the end point
  *   basin                 the known point or end-point cluster the run ended in; empty when none
  *   steps_to_tolerance    first step within the tolerance of the lowest known minimum; empty if never
+ * Points (start and end) are in the reported units (units.ts: the data's original units for a
+ * standardised data fit), like the results and trajectory CSVs.
  */
 export interface StudyRow {
   index: number;
@@ -68,14 +71,16 @@ export function studyRows(spec: StudySpec, surface: Surface, cells: StudyCellTab
   const n = surface.dimension;
   const starts = spec.kind === 'multi-start' ? drawStarts(spec.distribution, n, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined) : null;
   const rates = spec.kind === 'lr-sweep' ? logSpaced(spec.range[0], spec.range[1], spec.count) : null;
+  const units = reportedUnits(surface);
+  const reported = (x: ArrayLike<number>) => (units.standardised ? units.toReported(x) : x);
   const rows: StudyRow[] = [];
   for (let c = 0; c < cells.filled.length; c++) {
     const outcome = cells.outcomes[c];
     if (!cells.filled[c] || !outcome) continue;
-    const common = { index: c, outcome, steps: cells.steps[c], finalLoss: cells.loss[c], endPoint: cells.endPoints.subarray(c * n, (c + 1) * n), basin: basinOf(c), stepsToTolerance: null };
-    if (spec.kind === 'start-map') rows.push({ ...common, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: cellStart(spec, c, new Float64Array(n)) });
-    else if (spec.kind === 'multi-start') rows.push({ ...common, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: starts!.subarray(c * n, (c + 1) * n) });
-    else rows.push({ ...common, optimizer: spec.optimizers[Math.floor(c / spec.count)].label, learningRate: rates![c % spec.count], start: spec.start });
+    const common = { index: c, outcome, steps: cells.steps[c], finalLoss: cells.loss[c], endPoint: reported(cells.endPoints.subarray(c * n, (c + 1) * n)), basin: basinOf(c), stepsToTolerance: null };
+    if (spec.kind === 'start-map') rows.push({ ...common, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: reported(cellStart(spec, c, new Float64Array(n))) });
+    else if (spec.kind === 'multi-start') rows.push({ ...common, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: reported(starts!.subarray(c * n, (c + 1) * n)) });
+    else rows.push({ ...common, optimizer: spec.optimizers[Math.floor(c / spec.count)].label, learningRate: rates![c % spec.count], start: reported(spec.start) });
   }
   return rows;
 }
