@@ -46,7 +46,9 @@ export type ToWorker =
   /** The largest Hessian eigenvalue at `count` points (count x n, row-major), e.g. along a trajectory. */
   | { type: 'sharpness/sample'; requestId: string; surface: SurfaceSpec; points: Float64Array; count: number }
   /** Critical points of the surface found from `count` starts (count x n). */
-  | { type: 'critical/find'; requestId: string; surface: SurfaceSpec; starts: Float64Array; count: number };
+  | { type: 'critical/find'; requestId: string; surface: SurfaceSpec; starts: Float64Array; count: number }
+  /** A data-fit model's outputs at `params` for `count` input rows (count x d, original units), for the data view. */
+  | { type: 'fit/predict'; requestId: string; surface: SurfaceSpec; params: Float64Array; rows: Float64Array; count: number };
 
 /**
  * Learning-rate sweeps, per optimizer: the largest Hessian eigenvalue at the start, the predicted
@@ -103,7 +105,10 @@ export type FromWorker =
   | { type: 'study/error'; requestId: string; message: string }
   | { type: 'sharpness/result'; requestId: string; values: Float64Array }
   | { type: 'critical/result'; requestId: string; points: CriticalPoint[]; converged: number; failed: number }
-  | { type: 'analysis/error'; requestId: string; message: string };
+  | { type: 'analysis/error'; requestId: string; message: string }
+  /** count x width outputs, row-major: width 1 for a number or P(y = 1), K class probabilities for softmax. */
+  | { type: 'fit/predictions'; requestId: string; outputs: Float64Array; width: number }
+  | { type: 'fit/error'; requestId: string; message: string };
 
 /**
  * Pooled grid sampling (src/worker/pool.ts): the page's pool sends each member worker bands of one grid

@@ -58,6 +58,11 @@ export interface AppActions {
   importCsv(text: string, options: CsvParseOptions, onProgress?: (fraction: number, rowsRead: number) => void): Promise<CsvImport>;
   /** The loss along the segment from -> to, computed in the worker. */
   sampleProfile(from: number[], to: number[], alphas?: { from: number; to: number; count: number }): Promise<{ alphas: Float64Array; values: Float64Array }>;
+  /**
+   * The current data-fit model's outputs at `params` for `count` input rows (count x d, original units),
+   * computed in the worker (for the data view); rejects with the worker's message.
+   */
+  predictFit(params: Float64Array, rows: Float64Array, count: number): Promise<{ outputs: Float64Array; width: number }>;
   /** Changes the slice; a new plane or new axes also reset the view (to `view` if given). */
   setSlice(slice: Partial<SliceSettings> & { view?: ViewBox }): void;
   setView(view: ViewBox): void;
@@ -287,6 +292,14 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       );
       if (reply.type === 'profile/error') throw new Error(reply.message);
       return { alphas: reply.alphas, values: reply.values };
+    },
+    async predictFit(params, rows, count) {
+      const reply = await ask(
+        { type: 'fit/predict', requestId: freshId('f'), surface: get().surface, params, rows, count },
+        (m): m is Extract<FromWorker, { type: 'fit/predictions' | 'fit/error' }> => m.type === 'fit/predictions' || m.type === 'fit/error',
+      );
+      if (reply.type === 'fit/error') throw new Error(reply.message);
+      return { outputs: reply.outputs, width: reply.width };
     },
     setSlice({ view: requestedView, ...patch }) {
       const s = get();

@@ -5,6 +5,7 @@ import { RunPool } from './runs';
 import { StudyRunner } from './studies';
 import { sampleSharpness, searchCriticalPoints } from './analysis';
 import { parseCsvInWorker } from './tables';
+import { FitPredictor } from './predictions';
 import type { Timing } from './scheduler';
 
 /** The worker's message switch, free of worker globals so tests can drive it directly. */
@@ -12,6 +13,7 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
   const runs = new RunPool(post, timing);
   const grids = new GridSampler(post, timing);
   const studies = new StudyRunner(post, timing);
+  const predictions = new FitPredictor(post);
   return function handle(msg: ToWorker): void {
     switch (msg.type) {
       case 'run/start':
@@ -36,6 +38,8 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
         return sampleSharpness(post, msg.requestId, msg.surface, msg.points, msg.count);
       case 'critical/find':
         return searchCriticalPoints(post, msg.requestId, msg.surface, msg.starts, msg.count);
+      case 'fit/predict':
+        return predictions.predict(msg.requestId, msg.surface, msg.params, msg.rows, msg.count);
     }
   };
 }
