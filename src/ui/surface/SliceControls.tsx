@@ -2,6 +2,7 @@ import { useId, useState } from 'react';
 import { focusRun } from '../../store/app-store';
 import { useActions, useApp, useLiveRuns } from '../app-context';
 import { NumberField } from '../fields/NumberField';
+import { VectorFields } from '../fields/VectorFields';
 import { useMainThreadSurface } from '../view/use-surface';
 import { pcaPlaneSlice, randomPlaneSlice } from './plane-choices';
 
@@ -122,11 +123,14 @@ export function SliceControls() {
             )}
           </div>
           <div className="held-values" role="group" aria-label={`Held values of the other ${variables.length - 2} variables`} data-testid="held-values">
-            {variables.map((v, k) =>
-              k === i || k === j ? null : (
-                <NumberField key={v} compact label={`${v} held at`} value={slice.at[k]} onCommit={(x) => (actions.setSlice({ at: slice.at.map((old, m) => (m === k ? x! : old)) }), null)} />
-              ),
-            )}
+            <VectorFields
+              names={variables}
+              values={slice.at}
+              skip={new Set([i, j])}
+              label={(v) => `${v} held at`}
+              noun="held value of"
+              onCommit={(k, x) => (actions.setSlice({ at: slice.at.map((old, m) => (m === k ? x : old)) }), null)}
+            />
           </div>
         </>
       )}
