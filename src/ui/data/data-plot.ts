@@ -206,20 +206,34 @@ function ticks(ctx: DrawingContext, w: number, h: number, xr: [number, number], 
   ctx.textBaseline = 'top';
 }
 
-/** The predicted class over the REGION_SIDE^2 lattice of predictionRows, shaded under the points. */
+/**
+ * The predicted class over the REGION_SIDE^2 lattice of predictionRows, shaded under the points. Runs of
+ * equal cells along a row are one rectangle, drawn class by class: a cell each (4,096 fills with a
+ * colour change between most) took tens of milliseconds per redraw.
+ */
 function regions(ctx: DrawingContext, w: number, h: number, { outputs, width }: { outputs: Float64Array; width: number }): void {
   const n = REGION_SIDE;
   if (outputs.length !== n * n * width) return;
   const cw = w / n;
   const ch = h / n;
+  const classes = Int32Array.from({ length: n * n }, (_, k) => predictedClass(outputs, width, k));
+  const runs = new Map<number, [number, number, number][]>(); // class -> [row, first cell, cells]
+  for (let j = 0; j < n; j++)
+    for (let i = 0; i < n; ) {
+      const k = classes[j * n + i];
+      let end = i + 1;
+      while (end < n && classes[j * n + end] === k) end++;
+      if (k >= 0) {
+        if (!runs.has(k)) runs.set(k, []);
+        runs.get(k)!.push([j, i, end - i]);
+      }
+      i = end;
+    }
   ctx.save();
   ctx.globalAlpha = 0.28;
-  for (let j = 0; j < n; j++)
-    for (let i = 0; i < n; i++) {
-      const k = predictedClass(outputs, width, j * n + i);
-      if (k < 0) continue;
-      ctx.fillStyle = CLASS_COLOURS[k % CLASS_COLOURS.length];
-      ctx.fillRect(i * cw, j * ch, cw + 0.5, ch + 0.5);
-    }
+  for (const [k, list] of runs) {
+    ctx.fillStyle = CLASS_COLOURS[k % CLASS_COLOURS.length];
+    for (const [j, i, cells] of list) ctx.fillRect(i * cw, j * ch, cells * cw + 0.5, ch + 0.5);
+  }
   ctx.restore();
 }

@@ -1,4 +1,4 @@
-import { useId, useState, type ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import { NumberField } from './NumberField';
 
 /** Up to this many entries every field is shown; beyond, one chosen entry at a time. */
@@ -20,27 +20,23 @@ export interface VectorFieldsProps {
  * One number field per entry of a vector (a start point, the held values of a slice). A network has
  * hundreds or thousands of parameters: a field each meant thousands of inputs in the page, and every
  * re-render of them took hundreds of milliseconds. Past LIST_ALL_UP_TO entries the fields give way to
- * a chooser of the entry and the one field for it.
+ * the number of the entry to show and the one field for it.
  */
 export function VectorFields({ names, values, label, skip, onCommit, noun }: VectorFieldsProps): ReactNode {
-  const id = useId();
   const shown = names.map((_, k) => k).filter((k) => !skip?.has(k));
   const [chosen, setChosen] = useState(shown[0] ?? 0);
   if (shown.length <= LIST_ALL_UP_TO)
     return shown.map((k) => <NumberField key={names[k]} compact label={label(names[k])} value={values[k]} onCommit={(v) => onCommit(k, v!)} />);
   const k = shown.includes(chosen) ? chosen : shown[0];
+  // A number, not a menu: a menu of a thousand names is a thousand elements to lay out and restyle.
   return (
     <>
-      <div className="field field-compact">
-        <label htmlFor={`${id}-which`}>{`${noun} (${shown.length})`}</label>
-        <select id={`${id}-which`} value={k} onChange={(e) => setChosen(Number(e.target.value))}>
-          {shown.map((q) => (
-            <option key={names[q]} value={q}>
-              {names[q]}
-            </option>
-          ))}
-        </select>
-      </div>
+      <NumberField
+        compact
+        label={`${noun} number (1 to ${shown.length})`}
+        value={shown.indexOf(k) + 1}
+        onCommit={(v) => (Number.isInteger(v) && v! >= 1 && v! <= shown.length ? (setChosen(shown[v! - 1]), null) : `${noun} number: a whole number from 1 to ${shown.length}`)}
+      />
       <NumberField key={names[k]} compact label={label(names[k])} value={values[k]} onCommit={(v) => onCommit(k, v!)} />
     </>
   );

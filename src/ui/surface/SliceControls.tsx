@@ -128,7 +128,7 @@ export function SliceControls() {
               values={slice.at}
               skip={new Set([i, j])}
               label={(v) => `${v} held at`}
-              noun="held value of"
+              noun="held value"
               onCommit={(k, x) => (actions.setSlice({ at: slice.at.map((old, m) => (m === k ? x : old)) }), null)}
             />
           </div>

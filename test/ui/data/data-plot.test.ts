@@ -60,12 +60,15 @@ describe('the data view', () => {
     outputs[5] = Number.NaN;
     const ctx = new RecordingContext();
     drawDataScene(ctx, { width: 400, height: 300 }, { table: table(10), inputs: ['x', 'z'], target: 'c', task: 'binary', predictions: { outputs, width: 1 } });
-    const cells = ctx.calls.filter((c) => c.op === 'fillRect');
-    const byColour = new Map<string, number>();
-    for (const c of cells) byColour.set(c.fillStyle, (byColour.get(c.fillStyle) ?? 0) + 1);
-    const counts = [...byColour.values()].sort((a, b) => a - b);
+    // Cells per colour: each shading fill is a run of whole cells along one row, cell width (400 - 56 - 12) / n.
+    const cw = (400 - 56 - 12) / n;
+    const fills = ctx.calls.filter((c) => c.op === 'fillRect' && c.fillStyle !== '#ffffff');
+    const cells = new Map<string, number>();
+    for (const c of fills) cells.set(c.fillStyle, (cells.get(c.fillStyle) ?? 0) + Math.round(((c.args[2] as number) - 0.5) / cw));
     // Two class colours: n^2 / 2 cells of class 0 and n^2 / 2 - 1 of class 1 (the NaN cell is left blank).
-    expect(counts.slice(-2)).toEqual([(n * n) / 2 - 1, (n * n) / 2]);
+    expect([...cells.values()].sort((a, b) => a - b)).toEqual([(n * n) / 2 - 1, (n * n) / 2]);
+    // One rectangle per half row, and one more where the blank cell splits a run.
+    expect(fills.length).toBe(2 * n + 1);
   });
 
   it('takes the most probable class, and none where the outputs are not numbers', () => {
