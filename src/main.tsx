@@ -3,7 +3,7 @@ import { createAppStore, workspaceChanged, workspaceOf } from './store/app-store
 import { lazyLink, workerLink } from './store/engine-link';
 import { loadSavedWorkspace, saveWorkspace } from './store/persistence';
 import { App } from './ui/App';
-import { createPageGridPool } from './worker/pool-web';
+import { createPageGridPool } from './client/pool-web';
 import { AppContext } from './ui/app-context';
 import { createStudyStore } from './store/study-store';
 import { StudyContext } from './ui/study/study-context';

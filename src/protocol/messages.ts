@@ -25,7 +25,7 @@ export type Pace = number | 'max';
 export type RunControl = 'pause' | 'resume' | 'step' | 'cancel';
 
 /**
- * Rows j0 <= j < j1 of a grid: one pool member's share of a pooled grid request (see src/worker/pool.ts).
+ * Rows j0 <= j < j1 of a grid: one pool member's share of a pooled grid request (see src/client/grid-pool.ts).
  * A band's values are row-major nx (j1 - j0) numbers, row j0 first.
  */
 export type RowRange = [number, number];
@@ -111,7 +111,7 @@ export type FromWorker =
   | { type: 'fit/error'; requestId: string; message: string };
 
 /**
- * Pooled grid sampling (src/worker/pool.ts): the page's pool sends each member worker bands of one grid
+ * Pooled grid sampling (src/client/grid-pool.ts): the page's pool sends each member worker bands of one grid
  * request. Kept as unions of their own so the engine link's messages above are unchanged; the same
  * worker entry (src/worker/engine.worker.ts) answers both.
  */

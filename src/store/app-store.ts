@@ -4,7 +4,8 @@ import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription,
 import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
 import type { ViewBox } from '../ui/plot';
-import { GridRequestCancelled, type GridPoolResult } from '../worker/pool';
+import { GridRequestCancelled } from '../protocol';
+import type { GridPoolResult } from '../client/grid-pool';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
 import { LiveRuns, type RunStatus } from './live-runs';

@@ -1,6 +1,6 @@
 import type { FromPoolMember, FromWorker, ToPoolMember } from '../../src/protocol';
 import { createBandHandler } from '../../src/worker/bands';
-import type { WorkerLike } from '../../src/worker/pool';
+import type { WorkerLike } from '../../src/client/grid-pool';
 import type { Timing } from '../../src/worker/scheduler';
 
 /**

@@ -2,7 +2,7 @@ import { useId, useState } from 'react';
 import { focusRun } from '../../store/app-store';
 import { useActions, useApp, useLiveRuns } from '../app-context';
 import { NumberField } from '../fields/NumberField';
-import { VectorFields } from '../fields/VectorFields';
+import { LIST_ALL_UP_TO, VectorFields } from '../fields/VectorFields';
 import { useMainThreadSurface } from '../view/use-surface';
 import { pcaPlaneSlice, randomPlaneSlice } from './plane-choices';
 
@@ -70,26 +70,34 @@ export function SliceControls() {
     }
   }
 
-  const axisSelect = (which: 0 | 1) => (
-    <div className="field field-compact">
-      <label htmlFor={`${id}-axis-${which}`}>{which === 0 ? 'Horizontal axis' : 'Vertical axis'}</label>
-      <select
-        id={`${id}-axis-${which}`}
-        value={slice.axes[which]}
-        onChange={(e) => {
-          const k = Number(e.target.value);
-          const other = slice.axes[1 - which];
-          actions.setSlice({ plane: null, axes: which === 0 ? [k, k === other ? i : other] : [k === other ? j : other, k] });
-        }}
-      >
-        {variables.map((v, k) => (
-          <option key={v} value={k}>
-            {v}
-          </option>
-        ))}
-      </select>
-    </div>
-  );
+  const chooseAxis = (which: 0 | 1, k: number) => {
+    const other = slice.axes[1 - which];
+    actions.setSlice({ plane: null, axes: which === 0 ? [k, k === other ? i : other] : [k === other ? j : other, k] });
+  };
+  const axisName = (which: 0 | 1) => (which === 0 ? 'Horizontal axis' : 'Vertical axis');
+  // A menu of a thousand names is a thousand elements to restyle on every update of this panel (it
+  // follows the focus run): past LIST_ALL_UP_TO variables the axis is chosen by number.
+  const axisSelect = (which: 0 | 1) =>
+    variables.length > LIST_ALL_UP_TO ? (
+      <NumberField
+        compact
+        label={`${axisName(which)}: variable number (1 to ${variables.length})`}
+        help={variables[slice.axes[which]]}
+        value={slice.axes[which] + 1}
+        onCommit={(v) => (Number.isInteger(v) && v! >= 1 && v! <= variables.length ? (chooseAxis(which, v! - 1), null) : `${axisName(which)}: a whole number from 1 to ${variables.length}`)}
+      />
+    ) : (
+      <div className="field field-compact">
+        <label htmlFor={`${id}-axis-${which}`}>{axisName(which)}</label>
+        <select id={`${id}-axis-${which}`} value={slice.axes[which]} onChange={(e) => chooseAxis(which, Number(e.target.value))}>
+          {variables.map((v, k) => (
+            <option key={v} value={k}>
+              {v}
+            </option>
+          ))}
+        </select>
+      </div>
+    );
 
   return (
     <fieldset className="slice">

@@ -83,6 +83,9 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     if (!ctx) return;
     drawBase(ctx, { layout, view, picture, axisLabels: titles, knownPoints, arrows, title });
     canvas.dataset.drawn = picture ? 'contours' : 'empty';
+    // Which grid is on screen (read by the browser tests: time to the first picture of a new surface).
+    canvas.dataset.gridRequest = picture?.requestId ?? '';
+    canvas.dataset.gridSide = picture ? String(picture.grid.nx) : '';
     if (picture && performance.getEntriesByName(FIRST_CONTOUR_MARK).length === 0) performance.mark(FIRST_CONTOUR_MARK);
   }, [layout, picture, view, titles.a, titles.b, knownPoints, arrows, title]);
 
@@ -204,12 +207,16 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
       >
         <canvas ref={baseRef} className="surface-base" data-testid="surface-base" />
         <canvas ref={overlayRef} className="surface-overlay" data-testid="surface-overlay" />
-        {grid.phase === 'computing' && (
-          <div className="grid-progress" role="progressbar" aria-label="Sampling the surface" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(grid.progress * 100)}>
-            sampling {Math.round(grid.progress * 100)}%
-          </div>
-        )}
         {grid.phase === 'error' && <div className="grid-error" role="alert">{grid.error}</div>}
+      </div>
+      {/* Below the canvas, in a line of its own that is always there: drawn over the map, the badge
+          covered the plot, the colour bar or a neighbouring panel. */}
+      <div className="grid-status">
+        {grid.phase === 'computing' && (
+          <span className="grid-progress" role="progressbar" aria-label="Sampling the surface" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(grid.progress * 100)}>
+            sampling {Math.round(grid.progress * 100)}%{grid.stage === 'coarse' && grid.request ? ` (showing a ${grid.request.nx} x ${grid.request.ny} preview)` : ''}
+          </span>
+        )}
       </div>
       {!compact && <HoverReadout surface={surface} />}
     </div>

@@ -1,7 +1,7 @@
 /// <reference lib="dom" />
 // Page side of the grid pool: Web Workers running the normal engine worker entry.
 import type { FromPoolMember, FromWorker } from '../protocol';
-import { createGridPool, defaultPoolSize, type GridPool, type WorkerLike } from './pool';
+import { createGridPool, defaultPoolSize, type GridPool, type WorkerLike } from './grid-pool';
 
 /** Adapts a Web Worker to the pool's WorkerLike. */
 export function webWorkerLike(worker: Worker): WorkerLike {
@@ -24,5 +24,5 @@ export function webWorkerLike(worker: Worker): WorkerLike {
  * engine worker; it answers 'band/sample'). Size: navigator.hardwareConcurrency clamped to [1, 8].
  */
 export function createPageGridPool(size = defaultPoolSize()): GridPool {
-  return createGridPool(() => webWorkerLike(new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module' })), size);
+  return createGridPool(() => webWorkerLike(new Worker(new URL('../worker/engine.worker.ts', import.meta.url), { type: 'module' })), size);
 }
