@@ -1,6 +1,6 @@
 import { validateGridRequest, type GridRequest } from '../engine';
 import type { SurfaceSpec } from '../problems';
-import { GridRequestCancelled, previewSidesFor, type FromPoolMember, type FromWorker, type RowRange, type ToPoolMember } from '../protocol';
+import { GridRequestCancelled, previewSidesFor, type FromPoolMember, type FromWorker, type RowRange, type ToPoolMember, type ToWorker } from '../protocol';
 
 // The page's side of pooled grid sampling: cuts one grid into bands for several workers and puts the
 // answers back together. Runs on the page (src/client); the members run src/worker/bands.ts.
@@ -9,10 +9,11 @@ export { GridRequestCancelled };
 /**
  * The least a pool needs of a worker, so the same pool code drives Web Workers in the page
  * (`webWorkerLike`) and Node worker_threads in the benchmark. Members run the normal worker handler
- * (src/worker/handler.ts), which answers 'band/sample' and 'band/cancel'.
+ * (src/worker/bands.ts answers 'band/sample' and 'band/cancel'; src/worker/handler.ts the rest, such as
+ * the parts of a study sent by src/client/study-pool.ts).
  */
 export interface WorkerLike {
-  postMessage(msg: ToPoolMember): void;
+  postMessage(msg: ToPoolMember | ToWorker): void;
   /**
    * Registers the two listeners: messages from the worker (the pool reads only band replies, so a
    * member may also be running trajectories), and failures of the worker itself.

@@ -1,7 +1,9 @@
 /// <reference lib="dom" />
-// Page side of the grid pool: Web Workers running the normal engine worker entry.
+// Page side of the worker pool: Web Workers running the normal engine worker entry, shared by the grid
+// pool and the study pool (src/client/study-pool.ts).
 import type { FromPoolMember, FromWorker } from '../protocol';
 import { createGridPool, defaultPoolSize, type GridPool, type WorkerLike } from './grid-pool';
+import { sharedWorkers } from './shared-workers';
 
 /** Adapts a Web Worker to the pool's WorkerLike. */
 export function webWorkerLike(worker: Worker): WorkerLike {
@@ -20,9 +22,15 @@ export function webWorkerLike(worker: Worker): WorkerLike {
 }
 
 /**
- * A grid pool of module Web Workers running src/worker/engine.worker.ts (the same entry as the page's
- * engine worker; it answers 'band/sample'). Size: navigator.hardwareConcurrency clamped to [1, 8].
+ * The page's pool workers: module Web Workers running src/worker/engine.worker.ts (the same entry as the
+ * page's engine worker; it answers bands and study parts). Size: navigator.hardwareConcurrency clamped
+ * to [1, 8].
  */
-export function createPageGridPool(size = defaultPoolSize()): GridPool {
-  return createGridPool(() => webWorkerLike(new Worker(new URL('../worker/engine.worker.ts', import.meta.url), { type: 'module' })), size);
+export function createPageWorkers(size = defaultPoolSize()): WorkerLike[] {
+  return sharedWorkers(() => webWorkerLike(new Worker(new URL('../worker/engine.worker.ts', import.meta.url), { type: 'module' })), size);
+}
+
+/** A grid pool on the given workers (default: a fresh set of createPageWorkers). */
+export function createPageGridPool(workers: readonly WorkerLike[] = createPageWorkers()): GridPool {
+  return createGridPool((index) => workers[index], workers.length);
 }

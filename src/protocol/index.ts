@@ -1,3 +1,3 @@
-export type { CsvParseOptions, FromPoolMember, FromWorker, Pace, RowRange, RunControl, RunOutcome, RunSpec, StudyCells, StudyThreshold, ToPoolMember, ToWorker } from './messages';
+export type { CsvParseOptions, FromPoolMember, FromWorker, Pace, RowRange, RunControl, RunOutcome, RunSpec, StudyCells, StudyPart, StudyThreshold, ToPoolMember, ToWorker } from './messages';
 export { GridRequestCancelled } from './errors';
 export { PREVIEW_SIDES, previewSidesFor } from './grid-previews';

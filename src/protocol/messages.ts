@@ -40,8 +40,17 @@ export type ToWorker =
   | { type: 'csv/parse'; requestId: string; text: string; options: CsvParseOptions }
   /** The loss along the segment from -> to (Goodfellow, Vinyals & Saxe 2015), at `count` alphas in [lo, hi]. */
   | { type: 'profile/sample'; requestId: string; surface: SurfaceSpec; from: number[]; to: number[]; alphas: { from: number; to: number; count: number } }
-  /** Run a study (src/worker/studies.ts); a new study supersedes the one in progress. */
-  | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StudySpec }
+  /**
+   * Run a study (src/worker/studies.ts), or with `part` only that share of it (the page's study pool,
+   * src/client/study-pool.ts); a new study supersedes the one in progress.
+   */
+  | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StudySpec; part?: StudyPart }
+  /**
+   * The end of a study run in parts, from the merged cells: a multi-start's loss bands from every
+   * run's loss curve (by cell), a learning-rate sweep's thresholds from every outcome; answered by
+   * 'study/done'.
+   */
+  | { type: 'study/finish'; requestId: string; surface: SurfaceSpec; study: StudySpec; outcomes: RunOutcome[]; curves: Float64Array[] }
   | { type: 'study/cancel'; requestId: string }
   /** The largest Hessian eigenvalue at `count` points (count x n, row-major), e.g. along a trajectory. */
   | { type: 'sharpness/sample'; requestId: string; surface: SurfaceSpec; points: Float64Array; count: number }
@@ -60,6 +69,16 @@ export interface StudyThreshold {
   lambdaMax: number;
   predicted: number | null;
   observed: { lo: number; hi: number; refined: boolean } | null;
+}
+
+/**
+ * Share `index` of `count` of a study: of every wave of runs (a map's coarse-to-fine waves, each
+ * optimizer's rates, a multi-start's starts) the band splitBands(wave length, count)[index], so every
+ * part starts with its share of the coarse grid.
+ */
+export interface StudyPart {
+  index: number;
+  count: number;
 }
 
 /** Finished cells of a study, in the order they finished (cell indices as in StartMapSpec). */
@@ -100,8 +119,12 @@ export type FromWorker =
   | { type: 'profile/result'; requestId: string; alphas: Float64Array; values: Float64Array }
   | { type: 'profile/error'; requestId: string; message: string }
   | { type: 'study/cells'; requestId: string; cells: StudyCells; done: number; total: number; elapsedMs: number }
-  /** `bands`: for multi-start studies, the 25%, 50% and 75% quantiles of the loss across runs per step. */
-  | { type: 'study/done'; requestId: string; elapsedMs: number; bands?: Float64Array[]; thresholds?: StudyThreshold[] }
+  /**
+   * `bands`: for multi-start studies, the 25%, 50% and 75% quantiles of the loss across runs per step.
+   * A part of a study ends with neither; a multi-start part sends its runs' loss curves instead
+   * (`curves[k]` for cell `curveIndices[k]`).
+   */
+  | { type: 'study/done'; requestId: string; elapsedMs: number; bands?: Float64Array[]; thresholds?: StudyThreshold[]; curveIndices?: Int32Array; curves?: Float64Array[] }
   | { type: 'study/error'; requestId: string; message: string }
   | { type: 'sharpness/result'; requestId: string; values: Float64Array }
   | { type: 'critical/result'; requestId: string; points: CriticalPoint[]; converged: number; failed: number }

@@ -14,22 +14,3 @@ export function workerLink(): EngineLink {
     listen: (handler) => worker.addEventListener('message', (e: MessageEvent<FromWorker>) => handler(e.data)),
   };
 }
-
-/** A link whose worker is created on the first message (listeners are attached then). */
-export function lazyLink(create: () => EngineLink): EngineLink {
-  let link: EngineLink | null = null;
-  const listeners: ((msg: FromWorker) => void)[] = [];
-  return {
-    send(msg) {
-      if (!link) {
-        link = create();
-        for (const l of listeners) link.listen(l);
-      }
-      link.send(msg);
-    },
-    listen(handler) {
-      listeners.push(handler);
-      link?.listen(handler);
-    },
-  };
-}

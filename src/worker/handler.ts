@@ -2,7 +2,7 @@ import type { FromWorker, ToWorker } from '../protocol';
 import { GridSampler } from './grids';
 import { sampleProfile } from './profiles';
 import { RunPool } from './runs';
-import { StudyRunner } from './studies';
+import { finishStudyParts, StudyRunner } from './studies';
 import { sampleSharpness, searchCriticalPoints } from './analysis';
 import { parseCsvInWorker } from './tables';
 import { FitPredictor } from './predictions';
@@ -31,7 +31,9 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
       case 'profile/sample':
         return sampleProfile(post, msg.requestId, msg.surface, msg.from, msg.to, msg.alphas);
       case 'study/start':
-        return studies.start(msg.requestId, msg.surface, msg.study);
+        return studies.start(msg.requestId, msg.surface, msg.study, msg.part);
+      case 'study/finish':
+        return finishStudyParts(post, msg.requestId, msg.surface, msg.study, msg.outcomes, msg.curves);
       case 'study/cancel':
         return studies.cancel(msg.requestId);
       case 'sharpness/sample':

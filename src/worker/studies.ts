@@ -1,10 +1,10 @@
 import {
   buildOptimizer, cellStart, coarseToFineOrder, drawStarts, hasParameterGroups, logSpaced, lossBands, predictedStabilityLimit, refineDivergenceThreshold,
-  RunCursor, sharpnessAlong, Sweep, validateLearningRateSweep, validateMultiStart, validateStartMap,
+  RunCursor, sharpnessAlong, splitBands, Sweep, validateLearningRateSweep, validateMultiStart, validateStartMap,
   type LearningRateSweepSpec, type MultiStartSpec, type OptimizerSpec, type RunOutcome, type StartMapSpec, type StopRules, type StudySpec, type Surface,
 } from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
-import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
+import type { FromWorker, StudyCells, StudyPart, StudyThreshold } from '../protocol';
 import { errorText } from './runs';
 import { SLICE_MS, type Timing } from './scheduler';
 
@@ -21,8 +21,26 @@ interface StudyWork {
   readonly total: number;
   readonly finished: boolean;
   run(deadline: number, now: () => number): CellResult[];
-  /** What goes out with the last message (bands, thresholds). */
-  finish(): Pick<Extract<FromWorker, { type: 'study/done' }>, 'bands' | 'thresholds'>;
+  /**
+   * What goes out with the last message: for a whole study its bands or thresholds (finishStudy); for
+   * a part, a multi-start's loss curves (the page merges the parts and asks for 'study/finish').
+   */
+  finish(): StudyEnd;
+}
+
+type StudyEnd = Pick<Extract<FromWorker, { type: 'study/done' }>, 'bands' | 'thresholds' | 'curveIndices' | 'curves'>;
+
+/** The whole study, as one part. */
+const WHOLE: StudyPart = { index: 0, count: 1 };
+
+/** Part `part.index` of the `length` runs of one wave: its band of splitBands (empty past the last band). */
+function bandOf(length: number, part: StudyPart): { lo: number; hi: number } {
+  return splitBands(length, part.count)[part.index] ?? { lo: length, hi: length };
+}
+
+function validatePart(part: StudyPart): void {
+  if (!(Number.isInteger(part.count) && part.count >= 1 && Number.isInteger(part.index) && part.index >= 0 && part.index < part.count))
+    throw new Error(`study part: index must be a whole number in [0, count), got ${part.index} of ${part.count}`);
 }
 
 /** Most cells in one message to the page. */
@@ -37,7 +55,8 @@ interface StudyJob {
 
 /**
  * Runs studies in the worker, one at a time (a new one supersedes the one in progress; cancel drops it
- * between slices). Start-point maps and learning-rate sweeps run on the lockstep sweep engine
+ * between slices), whole or one part of one (StudyPart: the page's study pool gives each worker the
+ * same share of every wave, and ends the study with 'study/finish' once every part is in). Start-point maps and learning-rate sweeps run on the lockstep sweep engine
  * (engine/sweep, each run bit-identical to the same RunCursor run); a map runs in waves, the coarse
  * grid of its coarse-to-fine order first, so a full blocky picture shows early. Multi-start studies
  * run one RunCursor per start, which also records each run's loss curve for the quantile bands.
@@ -50,11 +69,12 @@ export class StudyRunner {
     private readonly timing: Timing,
   ) {}
 
-  start(requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec): void {
+  start(requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec, part?: StudyPart): void {
     try {
+      if (part) validatePart(part);
       const surface = buildSurface(surfaceSpec);
       const started = !this.job;
-      this.job = { requestId, work: planWork(spec, surface), done: 0, startedAt: this.timing.now() };
+      this.job = { requestId, work: planWork(spec, surface, part), done: 0, startedAt: this.timing.now() };
       if (started) this.timing.later(() => this.slice(), 0);
     } catch (e) {
       this.job = null;
@@ -117,14 +137,34 @@ function pack(cells: CellResult[]): StudyCells {
   };
 }
 
-function planWork(spec: StudySpec, surface: Surface): StudyWork {
+function planWork(spec: StudySpec, surface: Surface, part?: StudyPart): StudyWork {
   switch (spec.kind) {
     case 'start-map':
-      return startMapWork(spec, surface);
+      return startMapWork(spec, surface, part ?? WHOLE);
     case 'multi-start':
-      return new CursorWork(spec, surface);
+      return new CursorWork(spec, surface, part);
     case 'lr-sweep':
-      return learningRateWork(spec, surface);
+      return learningRateWork(spec, surface, part);
+  }
+}
+
+/**
+ * The end of a study from all its cells: a multi-start's quartile bands of the loss from every run's
+ * curve (cell order), a learning-rate sweep's thresholds from every outcome (cell order); nothing for a
+ * map. The same function ends a whole study and one merged from parts, so the two agree exactly.
+ */
+export function finishStudy(spec: StudySpec, surface: Surface, outcomes: readonly (RunOutcome | undefined)[], curves: Float64Array[]): StudyEnd {
+  if (spec.kind === 'multi-start') return { bands: lossBands(curves, [0.25, 0.5, 0.75]).bands };
+  if (spec.kind === 'lr-sweep') return { thresholds: sweepThresholds(spec, surface, outcomes) };
+  return {};
+}
+
+/** 'study/finish': ends a study run in parts (the page's study pool) from the merged cells; the pool times the study. */
+export function finishStudyParts(post: (msg: FromWorker) => void, requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec, outcomes: RunOutcome[], curves: Float64Array[]): void {
+  try {
+    post({ type: 'study/done', requestId, elapsedMs: 0, ...finishStudy(spec, buildSurface(surfaceSpec), outcomes, curves) });
+  } catch (e) {
+    post({ type: 'study/error', requestId, message: errorText(e) });
   }
 }
 
@@ -148,7 +188,7 @@ class SweepWork implements StudyWork {
   constructor(
     private readonly surface: Surface,
     private readonly waves: Wave[],
-    private readonly onFinish: () => ReturnType<StudyWork['finish']> = () => ({}),
+    private readonly onFinish: () => StudyEnd = () => ({}),
   ) {
     this.total = waves.reduce((s, w) => s + w.indices.length, 0);
   }
@@ -186,8 +226,8 @@ class SweepWork implements StudyWork {
   }
 }
 
-/** A map's cells in coarse-to-fine order, cut into waves at the full grids of stride 8, 4, 2 and 1. */
-function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
+/** A map's cells in coarse-to-fine order, cut into waves at the full grids of stride 8, 4, 2 and 1 (of each, the part's band). */
+function startMapWork(spec: StartMapSpec, surface: Surface, part: StudyPart): StudyWork {
   const n = surface.dimension;
   validateStartMap(spec, n);
   const r = spec.resolution;
@@ -197,53 +237,38 @@ function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
   let from = 0;
   for (const to of cuts) {
     if (to <= from) continue;
-    const indices = order.slice(from, to);
+    const band = bandOf(to - from, part);
+    const indices = order.slice(from + band.lo, from + band.hi);
+    from = to;
+    if (indices.length === 0) continue;
     const starts = new Float64Array(indices.length * n);
     const cell = new Float64Array(n);
     indices.forEach((c, k) => starts.set(cellStart(spec, c, cell), k * n));
     waves.push({ indices, optimizer: spec.optimizer, stop: spec.stop, seed: spec.seed, starts });
-    from = to;
   }
   return new SweepWork(surface, waves);
 }
 
 /**
- * Each optimizer at every rate, one wave per optimizer; at the end, per optimizer, the observed
- * divergence threshold (between the last rate before the first diverged run and that run's rate,
- * narrowed by refineDivergenceThreshold to 1e-6 relative where its stability test agrees) and the
- * prediction from the largest Hessian eigenvalue at the start.
+ * Each optimizer at every rate (of a part: its band of the rates), one wave per optimizer. A whole
+ * sweep ends with the thresholds (sweepThresholds); a part leaves them to 'study/finish'.
  */
-function learningRateWork(spec: LearningRateSweepSpec, surface: Surface): StudyWork {
+function learningRateWork(spec: LearningRateSweepSpec, surface: Surface, part?: StudyPart): StudyWork {
   const n = surface.dimension;
   validateLearningRateSweep(spec, n);
   spec.optimizers.forEach((o) => buildOptimizer(o.spec));
   const rates = logSpaced(spec.range[0], spec.range[1], spec.count);
-  const starts = new Float64Array(spec.count * n);
-  for (let k = 0; k < spec.count; k++) starts.set(spec.start, k * n);
-  const waves: Wave[] = spec.optimizers.map((o, q) => ({
-    indices: Int32Array.from({ length: spec.count }, (_, k) => q * spec.count + k), optimizer: o.spec, stop: spec.stop, seed: spec.seed, starts, learningRates: rates,
-  }));
+  const { lo, hi } = bandOf(spec.count, part ?? WHOLE);
+  const starts = new Float64Array((hi - lo) * n);
+  for (let k = 0; k < hi - lo; k++) starts.set(spec.start, k * n);
+  const waves: Wave[] =
+    hi > lo
+      ? spec.optimizers.map((o, q) => ({
+          indices: Int32Array.from({ length: hi - lo }, (_, k) => q * spec.count + lo + k), optimizer: o.spec, stop: spec.stop, seed: spec.seed, starts, learningRates: rates.slice(lo, hi),
+        }))
+      : [];
   const outcomes: (RunOutcome | undefined)[] = [];
-  const work = new SweepWork(surface, waves, () => {
-    const lambdaMax = sharpnessAlong(surface, Float64Array.from(spec.start), 1)[0];
-    const thresholds: StudyThreshold[] = spec.optimizers.map((o, q) => {
-      const predicted = predictedStabilityLimit(o.spec, lambdaMax);
-      const first = rates.findIndex((_, k) => outcomes[q * spec.count + k]?.kind === 'diverged');
-      if (first <= 0) return { lambdaMax, predicted, observed: null };
-      let lo = rates[first - 1];
-      let hi = rates[first];
-      let refined = false;
-      try {
-        const r = refineDivergenceThreshold({ surface, optimizer: o.spec, start: spec.start, seed: spec.seed, steps: Math.min(spec.stop.maxSteps, 2000) }, lo, hi, { relativeTolerance: 1e-6 });
-        [lo, hi, refined] = [r.lo, r.hi, true];
-      } catch {
-        // The refinement's own stability test disagrees with the sweep at the bracket's ends (e.g. a run
-        // that diverges only after more steps than a trial takes): keep the sweep's bracket, unrefined.
-      }
-      return { lambdaMax, predicted, observed: { lo, hi, refined } };
-    });
-    return { thresholds };
-  });
+  const work = new SweepWork(surface, waves, () => (part ? {} : { thresholds: sweepThresholds(spec, surface, outcomes) }));
   const run = work.run.bind(work);
   work.run = (deadline, now) => {
     const cells = run(deadline, now);
@@ -253,10 +278,38 @@ function learningRateWork(spec: LearningRateSweepSpec, surface: Surface): StudyW
   return work;
 }
 
-/** One RunCursor per start (multi-start), keeping each run's loss curve for the quantile bands. */
+/**
+ * Per optimizer, the observed divergence threshold (between the last rate before the first diverged
+ * run and that run's rate, narrowed by refineDivergenceThreshold to 1e-6 relative where its stability
+ * test agrees) and the prediction from the largest Hessian eigenvalue at the start. `outcomes` by cell
+ * (optimizer q, rate k at q count + k).
+ */
+function sweepThresholds(spec: LearningRateSweepSpec, surface: Surface, outcomes: readonly (RunOutcome | undefined)[]): StudyThreshold[] {
+  const rates = logSpaced(spec.range[0], spec.range[1], spec.count);
+  const lambdaMax = sharpnessAlong(surface, Float64Array.from(spec.start), 1)[0];
+  return spec.optimizers.map((o, q) => {
+    const predicted = predictedStabilityLimit(o.spec, lambdaMax);
+    const first = rates.findIndex((_, k) => outcomes[q * spec.count + k]?.kind === 'diverged');
+    if (first <= 0) return { lambdaMax, predicted, observed: null };
+    let lo = rates[first - 1];
+    let hi = rates[first];
+    let refined = false;
+    try {
+      const r = refineDivergenceThreshold({ surface, optimizer: o.spec, start: spec.start, seed: spec.seed, steps: Math.min(spec.stop.maxSteps, 2000) }, lo, hi, { relativeTolerance: 1e-6 });
+      [lo, hi, refined] = [r.lo, r.hi, true];
+    } catch {
+      // The refinement's own stability test disagrees with the sweep at the bracket's ends (e.g. a run
+      // that diverges only after more steps than a trial takes): keep the sweep's bracket, unrefined.
+    }
+    return { lambdaMax, predicted, observed: { lo, hi, refined } };
+  });
+}
+
+/** One RunCursor per start (multi-start; of a part, its band of the starts), keeping each run's loss curve for the quantile bands. */
 class CursorWork implements StudyWork {
   readonly total: number;
-  private next = 0;
+  private next: number;
+  private readonly end: number;
   private current: { index: number; cursor: RunCursor; loss: number[] } | null = null;
   private readonly curves: Float64Array[];
   private readonly starts: Float64Array;
@@ -265,16 +318,19 @@ class CursorWork implements StudyWork {
   constructor(
     private readonly spec: MultiStartSpec,
     private readonly surface: Surface,
+    private readonly part?: StudyPart,
   ) {
     validateMultiStart(spec);
-    this.total = spec.count;
+    const { lo, hi } = bandOf(spec.count, part ?? WHOLE);
+    [this.next, this.end] = [lo, hi];
+    this.total = hi - lo;
     this.curves = new Array(spec.count);
     this.starts = drawStarts(spec.distribution, surface.dimension, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined);
     this.optimizer = buildOptimizer(spec.optimizer);
   }
 
   get finished(): boolean {
-    return this.next >= this.total && !this.current;
+    return this.next >= this.end && !this.current;
   }
 
   run(deadline: number, now: () => number): CellResult[] {
@@ -299,7 +355,9 @@ class CursorWork implements StudyWork {
     return out;
   }
 
-  finish() {
-    return { bands: lossBands(this.curves, [0.25, 0.5, 0.75]).bands };
+  finish(): StudyEnd {
+    if (!this.part) return finishStudy(this.spec, this.surface, [], this.curves);
+    const lo = this.end - this.total;
+    return { curveIndices: Int32Array.from({ length: this.total }, (_, k) => lo + k), curves: this.curves.slice(lo, this.end) };
   }
 }

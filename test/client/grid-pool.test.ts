@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { axisPlane, randomPlane, sampleGrid, type GridRequest } from '../../src/engine';
 import { buildSurface, type SurfaceSpec } from '../../src/problems';
 import { createGridPool, defaultPoolSize, GridRequestCancelled, type GridPoolResult } from '../../src/client/grid-pool';
-import { fakeWorld, flush } from '../worker/fake-workers';
+import { fakeWorld, flush } from './fake-workers';
 
 /** A 12-parameter surface sliced on a random plane: every band does real, distinct work. */
 const SPEC: SurfaceSpec = { kind: 'formula', text: 'a^2 + 2*b^2 + 3*c^2 + d*m + sin(f) + g^2*h + exp(-i^2) + j^2 + k*l' };
