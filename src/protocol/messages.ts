@@ -57,7 +57,9 @@ export type ToWorker =
   /** Critical points of the surface found from `count` starts (count x n). */
   | { type: 'critical/find'; requestId: string; surface: SurfaceSpec; starts: Float64Array; count: number }
   /** A data-fit model's outputs at `params` for `count` input rows (count x d, original units), for the data view. */
-  | { type: 'fit/predict'; requestId: string; surface: SurfaceSpec; params: Float64Array; rows: Float64Array; count: number };
+  | { type: 'fit/predict'; requestId: string; surface: SurfaceSpec; params: Float64Array; rows: Float64Array; count: number }
+  /** Loss and exact gradient at `count` points (count x n): the hover readout, the gradient arrows. */
+  | { type: 'probe/sample'; requestId: string; surface: SurfaceSpec; points: Float64Array; count: number };
 
 /**
  * Learning-rate sweeps, per optimizer: the largest Hessian eigenvalue at the start, the predicted
@@ -131,7 +133,10 @@ export type FromWorker =
   | { type: 'analysis/error'; requestId: string; message: string }
   /** count x width outputs, row-major: width 1 for a number or P(y = 1), K class probabilities for softmax. */
   | { type: 'fit/predictions'; requestId: string; outputs: Float64Array; width: number }
-  | { type: 'fit/error'; requestId: string; message: string };
+  | { type: 'fit/error'; requestId: string; message: string }
+  /** `values[k]` and `gradients` (count x n) at the points asked for. */
+  | { type: 'probe/result'; requestId: string; values: Float64Array; gradients: Float64Array }
+  | { type: 'probe/error'; requestId: string; message: string };
 
 /**
  * Pooled grid sampling (src/client/grid-pool.ts): the page's pool sends each member worker bands of one grid

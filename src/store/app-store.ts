@@ -64,6 +64,8 @@ export interface AppActions {
    * computed in the worker (for the data view); rejects with the worker's message.
    */
   predictFit(params: Float64Array, rows: Float64Array, count: number): Promise<{ outputs: Float64Array; width: number }>;
+  /** Loss and exact gradient at `count` points (count x n) of the current surface, computed in the worker. */
+  probeSurface(points: Float64Array, count: number): Promise<{ values: Float64Array; gradients: Float64Array }>;
   /** Changes the slice; a new plane or new axes also reset the view (to `view` if given). */
   setSlice(slice: Partial<SliceSettings> & { view?: ViewBox }): void;
   setView(view: ViewBox): void;
@@ -301,6 +303,14 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       );
       if (reply.type === 'fit/error') throw new Error(reply.message);
       return { outputs: reply.outputs, width: reply.width };
+    },
+    async probeSurface(points, count) {
+      const reply = await ask(
+        { type: 'probe/sample', requestId: freshId('q'), surface: get().surface, points, count },
+        (m): m is Extract<FromWorker, { type: 'probe/result' | 'probe/error' }> => m.type === 'probe/result' || m.type === 'probe/error',
+      );
+      if (reply.type === 'probe/error') throw new Error(reply.message);
+      return { values: reply.values, gradients: reply.gradients };
     },
     setSlice({ view: requestedView, ...patch }) {
       const s = get();

@@ -6,6 +6,7 @@ import { finishStudyParts, StudyRunner } from './studies';
 import { sampleSharpness, searchCriticalPoints } from './analysis';
 import { parseCsvInWorker } from './tables';
 import { FitPredictor } from './predictions';
+import { SurfaceProbe } from './probes';
 import type { Timing } from './scheduler';
 
 /** The worker's message switch, free of worker globals so tests can drive it directly. */
@@ -14,6 +15,7 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
   const grids = new GridSampler(post, timing);
   const studies = new StudyRunner(post, timing);
   const predictions = new FitPredictor(post);
+  const probes = new SurfaceProbe(post);
   return function handle(msg: ToWorker): void {
     switch (msg.type) {
       case 'run/start':
@@ -42,6 +44,8 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
         return searchCriticalPoints(post, msg.requestId, msg.surface, msg.starts, msg.count);
       case 'fit/predict':
         return predictions.predict(msg.requestId, msg.surface, msg.params, msg.rows, msg.count);
+      case 'probe/sample':
+        return probes.probe(msg.requestId, msg.surface, msg.points, msg.count);
     }
   };
 }

@@ -11,6 +11,7 @@ import { knownPointsOnSlice, trajectoryItems } from './scene-input';
 import { prepareCanvas, useElementSize } from './use-canvas-size';
 import { useMainThreadSurface } from './use-surface';
 import { HoverReadout } from './HoverReadout';
+import { specKey, useProbe } from './use-probe';
 
 export interface SurfaceViewProps {
   /** Which runs to draw: all visible ones, or only these ids (one panel of the panel grid). */
@@ -57,23 +58,35 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const titles = axisTitles(slice, info.variables, reportedUnits(surface));
   const knownPoints = useMemo(() => knownPointsOnSlice({ slice, surfaceInfo: info, display, runs, selectedRunId: selected }), [slice, info, display, runs, selected]);
 
-  const arrows: Arrow[] = useMemo(() => {
-    if (!display.showArrows || !surface || !layout || surface.dimension !== n) return [];
+  // Gradient arrows: the lattice centres are laid out here, their gradients computed in the worker.
+  const arrowLattice = useMemo(() => {
+    if (!display.showArrows || !layout || info.variables.length !== n) return null;
     const t = frameTransform(view, layout);
+    const spacing = compact ? 28 : 36;
+    const centres: { a: number; b: number }[] = [];
+    gradientArrows((p) => (centres.push(p), null), t, spacing);
+    const points = new Float64Array(centres.length * n);
+    centres.forEach((p, k) => points.set(slicePoint(slice, n, p.a, p.b), k * n));
+    return { t, spacing, points, count: centres.length, key: `${specKey(surfaceSpec)}|${view.a}|${view.b}|${layout.frame.width}x${layout.frame.height}|${JSON.stringify(slice)}|${spacing}` };
+  }, [display.showArrows, layout, view, slice, n, compact, info.variables.length, surfaceSpec]);
+  const probed = useProbe(arrowLattice?.key ?? null, () => arrowLattice!.points, arrowLattice?.count ?? 0);
+  const arrows: Arrow[] = useMemo(() => {
+    if (!arrowLattice || probed?.key !== arrowLattice.key) return [];
     const plane = slicePlane(slice, n);
-    const g = new Float64Array(n);
-    // The gradient restricted to the plane: (u . grad, v . grad).
-    return gradientArrows((p) => {
-      surface.valueGradient(slicePoint(slice, n, p.a, p.b), g);
+    let k = 0;
+    // The same lattice in the same order: the k-th centre's gradient restricted to the plane, (u . grad, v . grad).
+    return gradientArrows(() => {
+      const g = probed.gradients.subarray(k * n, (k + 1) * n);
+      k++;
       let da = 0;
       let db = 0;
-      for (let k = 0; k < n; k++) {
-        da += plane.u[k] * g[k];
-        db += plane.v[k] * g[k];
+      for (let q = 0; q < n; q++) {
+        da += plane.u[q] * g[q];
+        db += plane.v[q] * g[q];
       }
       return { da, db };
-    }, t, compact ? 28 : 36);
-  }, [display.showArrows, surface, layout, view, slice, n, compact]);
+    }, arrowLattice.t, arrowLattice.spacing);
+  }, [arrowLattice, probed, slice, n]);
 
   // Base layer.
   useEffect(() => {
