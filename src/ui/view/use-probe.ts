@@ -46,7 +46,7 @@ export function useProbe(key: string | null, points: () => Float64Array, count: 
         });
     };
     ask();
-    // `points` is read when the request is sent; `key` stands for it.
-  }, [key, count, actions]); // eslint-disable-line react-hooks/exhaustive-deps
+    // `points` is read when the request is sent; `key` stands for it (so it is not a dependency).
+  }, [key, count, actions]);
   return answer;
 }
