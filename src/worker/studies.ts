@@ -43,8 +43,12 @@ function validatePart(part: StudyPart): void {
     throw new Error(`study part: index must be a whole number in [0, count), got ${part.index} of ${part.count}`);
 }
 
-/** Most cells in one message to the page. */
-const CELLS_PER_MESSAGE = 1024;
+/**
+ * Most cells in one message to the page. Reading a message (its outcomes are objects) is a task on the
+ * page; with several pool workers sending at once, 1024-cell messages made tasks near 100 ms on a busy
+ * machine and held a click on Cancel behind them (e2e/study-performance.spec.ts).
+ */
+const CELLS_PER_MESSAGE = 256;
 
 interface StudyJob {
   requestId: string;
