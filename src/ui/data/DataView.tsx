@@ -50,15 +50,23 @@ export function DataView({ spec }: { spec: DataFitSpec }) {
       setCaption(drawDataScene(ctx, size, { ...scene, predictions }));
       canvas.dataset.drawnFor = runId;
     };
+    let shownFor: [number, unknown] = [-1, null];
     const tick = () => {
       frame = requestAnimationFrame(tick);
       const { size, run, surface } = input.current;
-      if (!canvasRef.current || !size || !surface || inFlight || (asked[0] === live.version && asked[1] === input.current)) return;
-      if (performance.now() - lastAsk < PREDICT_INTERVAL_MS) return;
-      asked = [live.version, input.current];
+      if (!canvasRef.current || !size || !surface) return;
+      const changed = shownFor[0] !== live.version || shownFor[1] !== input.current;
+      if (!changed && asked[0] === live.version && asked[1] === input.current) return;
       const buffer = run ? live.trajectory(run.id) : undefined;
       const x = buffer && buffer.count > 0 && buffer.dimension === surface.dimension ? Float64Array.from(buffer.point(buffer.count - 1)) : null;
-      setShown(x && run && buffer ? { params: Array.from(x), step: buffer.count - 1, label: run.label } : null);
+      // The parameter table follows every update at once (it renders only the rows in view); the
+      // picture waits for the worker's predictions.
+      if (changed) {
+        shownFor = [live.version, input.current];
+        setShown(x && run && buffer ? { params: Array.from(x), step: buffer.count - 1, label: run.label } : null);
+      }
+      if (inFlight || performance.now() - lastAsk < PREDICT_INTERVAL_MS) return;
+      asked = [live.version, input.current];
       if (!x || !x.every(Number.isFinite) || count === 0) return draw(null, run?.id ?? '');
       inFlight = true;
       lastAsk = performance.now();
