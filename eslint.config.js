@@ -10,8 +10,7 @@
  *   io       -> engine, problems
  *   protocol -> engine, problems                 (message types between page and workers)
  *   worker   -> protocol, problems, engine, io
- *   client   -> protocol, problems, engine, worker (the page-side grid pool: src/client, and for now
- *               src/worker/pool.ts and pool-web.ts, which read the coarse-grid side from worker/grids.ts)
+ *   client   -> protocol, problems, engine           (page-side worker clients: grid pool, study pool)
  *   store    -> protocol, client, io, problems, engine
  *   ui       -> store, io, problems, engine, protocol
  *   cli      -> io, problems, engine
@@ -43,16 +42,13 @@ const layers = [
   { type: 'cli', pattern: 'src/cli' },
 ];
 
-/** The page-side grid pool, page code still filed under src/worker/ (it moves to src/client). */
-const pagePool = [{ category: 'page-pool', pattern: 'src/worker/pool{,-web}.ts' }];
-
 const mayImport = {
   engine: [],
   problems: ['engine'],
   io: ['engine', 'problems'],
   protocol: ['engine', 'problems'],
   worker: ['protocol', 'problems', 'engine', 'io'],
-  client: ['protocol', 'problems', 'engine', 'worker'],
+  client: ['protocol', 'problems', 'engine'],
   store: ['protocol', 'client', 'io', 'problems', 'engine'],
   ui: ['store', 'io', 'problems', 'engine', 'protocol'],
   cli: ['io', 'problems', 'engine'],
@@ -88,7 +84,6 @@ export default tseslint.config(
     plugins: { boundaries, local },
     settings: {
       'boundaries/elements': layers,
-      'boundaries/files': pagePool,
       'boundaries/include': ['src/**/*'],
       'import/resolver': { node: { extensions: ['.ts', '.tsx'] } },
     },
@@ -102,14 +97,6 @@ export default tseslint.config(
               from: { element: { type: from } },
               allow: { to: { element: { types: { anyOf: [from, ...to] } } } },
             })),
-            // Until it moves, the page pool in src/worker/ counts as client code.
-            ...Object.entries(mayImport)
-              .filter(([, to]) => to.includes('client'))
-              .map(([from]) => ({ from: { element: { type: from } }, allow: { to: { file: { categories: 'page-pool' } } } })),
-            {
-              from: { file: { categories: 'page-pool' } },
-              allow: { to: { element: { types: { anyOf: ['worker', ...mayImport.client] } } } },
-            },
           ],
         },
       ],

@@ -1,7 +1,7 @@
 import { resolve } from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { build } from 'vite';
-import type { WorkerLike } from '../src/worker/pool';
+import type { WorkerLike } from '../src/client/grid-pool';
 
 const CACHE = resolve(process.cwd(), 'bench/.cache');
 const ENTRY = 'pool-thread.mjs';

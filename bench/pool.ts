@@ -1,6 +1,6 @@
 import { sampleGrid, type GridRequest } from '../src/engine';
 import { buildSurface, type SurfaceSpec } from '../src/problems';
-import { createGridPool, type GridPool } from '../src/worker/pool';
+import { createGridPool, type GridPool } from '../src/client/grid-pool';
 import { buildPoolThread, nodeWorkerLike } from './node-worker';
 
 /**

@@ -1,9 +1,10 @@
 import { createRoot } from 'react-dom/client';
 import { createAppStore, workspaceChanged, workspaceOf } from './store/app-store';
-import { lazyLink, workerLink } from './store/engine-link';
+import { workerLink } from './store/engine-link';
 import { loadSavedWorkspace, openStorage, saveWorkspace } from './store/persistence';
 import { App } from './ui/App';
-import { createPageGridPool } from './worker/pool-web';
+import { createPageGridPool, createPageWorkers } from './client/pool-web';
+import { StudyPool } from './client/study-pool';
 import { AppContext } from './ui/app-context';
 import { createStudyStore } from './store/study-store';
 import { StudyContext } from './ui/study/study-context';
@@ -11,9 +12,11 @@ import './ui/styles.css';
 
 const opened = openStorage(() => window.localStorage);
 const saved = opened.storage ? loadSavedWorkspace(opened.storage) : { workspace: null, problem: opened.problem, saving: false };
+// One set of pool workers for grids and studies; runs stream in the engine worker beside them.
+const workers = createPageWorkers();
 const app = createAppStore({
   link: workerLink({ name: 'engine', watchSilence: true }),
-  grids: createPageGridPool(),
+  grids: createPageGridPool(workers),
   requestFrame: (fn) => requestAnimationFrame(() => fn()),
   initial: saved.workspace ?? undefined,
 });
@@ -36,8 +39,8 @@ app.store.subscribe((state, previous) => {
 });
 if (saved.problem) app.store.setState({ notice: saved.problem });
 
-// Studies run in a worker of their own, started with the first study, so runs keep streaming beside them.
-const study = createStudyStore(lazyLink(() => workerLink({ name: 'studies' })));
+// Studies are split across the pool workers (src/client/study-pool.ts).
+const study = createStudyStore(new StudyPool(workers));
 
 createRoot(document.getElementById('root')!).render(
   <AppContext.Provider value={app}>

@@ -3,7 +3,8 @@ import { optimizerLabel, validateOptimizerSpec, type GridRequest, type Optimizer
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
-import { GridRequestCancelled, type GridPoolResult } from '../worker/pool';
+import { GridRequestCancelled } from '../protocol';
+import type { GridPoolResult } from '../client/grid-pool';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
 import { LiveRuns, type RunStatus } from './live-runs';
@@ -60,6 +61,13 @@ export interface AppActions {
   importCsv(text: string, options: CsvParseOptions, onProgress?: (fraction: number, rowsRead: number) => void): Promise<CsvImport>;
   /** The loss along the segment from -> to, computed in the worker. */
   sampleProfile(from: number[], to: number[], alphas?: { from: number; to: number; count: number }): Promise<{ alphas: Float64Array; values: Float64Array }>;
+  /**
+   * The current data-fit model's outputs at `params` for `count` input rows (count x d, original units),
+   * computed in the worker (for the data view); rejects with the worker's message.
+   */
+  predictFit(params: Float64Array, rows: Float64Array, count: number): Promise<{ outputs: Float64Array; width: number }>;
+  /** Loss and exact gradient at `count` points (count x n) of the current surface, computed in the worker. */
+  probeSurface(points: Float64Array, count: number): Promise<{ values: Float64Array; gradients: Float64Array }>;
   /** Changes the slice; a new plane or new axes also reset the view (to `view` if given). */
   setSlice(slice: Partial<SliceSettings> & { view?: ViewBox }): void;
   setView(view: ViewBox): void;
@@ -318,6 +326,22 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       );
       if (reply.type === 'profile/error') throw new Error(reply.message);
       return { alphas: reply.alphas, values: reply.values };
+    },
+    async predictFit(params, rows, count) {
+      const reply = await ask(
+        { type: 'fit/predict', requestId: freshId('f'), surface: get().surface, params, rows, count },
+        (m): m is Extract<FromWorker, { type: 'fit/predictions' | 'fit/error' }> => m.type === 'fit/predictions' || m.type === 'fit/error',
+      );
+      if (reply.type === 'fit/error') throw new Error(reply.message);
+      return { outputs: reply.outputs, width: reply.width };
+    },
+    async probeSurface(points, count) {
+      const reply = await ask(
+        { type: 'probe/sample', requestId: freshId('q'), surface: get().surface, points, count },
+        (m): m is Extract<FromWorker, { type: 'probe/result' | 'probe/error' }> => m.type === 'probe/result' || m.type === 'probe/error',
+      );
+      if (reply.type === 'probe/error') throw new Error(reply.message);
+      return { values: reply.values, gradients: reply.gradients };
     },
     setSlice({ view: requestedView, ...patch }) {
       const s = get();

@@ -1,15 +1,6 @@
-import type { FromWorker, LinkPing, LinkPong, ToWorker } from '../protocol';
+import type { EngineLink, FromWorker, LinkPing, LinkPong } from '../protocol';
 
-/** The page's line to the engine worker. Tests substitute an in-process link running the same handler. */
-export interface EngineLink {
-  send(msg: ToWorker): void;
-  listen(handler: (msg: FromWorker) => void): void;
-  /**
-   * Optional: `handler(reason)` is called after the worker failed and a fresh one replaced it (work in
-   * flight is gone); the reason completes "The engine worker ..." ("threw an error: ...").
-   */
-  onRestart?(handler: (reason: string) => void): void;
-}
+export type { EngineLink } from '../protocol';
 
 /** A worker that sends nothing for this long, pings included, is taken for dead and replaced. */
 export const WORKER_SILENCE_LIMIT_MS = 15_000;
@@ -90,30 +81,5 @@ export function workerLink({ name, watchSilence = false }: WorkerLinkOptions): E
     send: (msg) => worker.postMessage(msg),
     listen: (handler) => listeners.push(handler),
     onRestart: (handler) => restartListeners.push(handler),
-  };
-}
-
-/** A link whose worker is created on the first message (listeners are attached then). */
-export function lazyLink(create: () => EngineLink): EngineLink {
-  let link: EngineLink | null = null;
-  const listeners: ((msg: FromWorker) => void)[] = [];
-  const restartListeners: ((reason: string) => void)[] = [];
-  return {
-    send(msg) {
-      if (!link) {
-        link = create();
-        for (const l of listeners) link.listen(l);
-        for (const h of restartListeners) link.onRestart?.(h);
-      }
-      link.send(msg);
-    },
-    listen(handler) {
-      listeners.push(handler);
-      link?.listen(handler);
-    },
-    onRestart(handler) {
-      restartListeners.push(handler);
-      link?.onRestart?.(handler);
-    },
   };
 }

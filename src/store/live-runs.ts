@@ -3,7 +3,7 @@ import type { FromWorker, RunControl, RunSpec } from '../protocol';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
 import { emptySummary, stepsToTolerance, updateSummary, type ReferenceMinimum, type RunSummary } from './run-summary';
-import { TrajectoryBuffer } from './trajectory-buffer';
+import { TrajectoryBuffer, upfrontCapacity } from './trajectory-buffer';
 
 export type RunPhase = 'running' | 'paused' | 'ended' | 'error';
 
@@ -48,7 +48,7 @@ export class LiveRuns {
     const runId = freshId('r');
     const live: Live = {
       runId,
-      buffer: new TrajectoryBuffer(spec.settings.start.length),
+      buffer: new TrajectoryBuffer(spec.settings.start.length, upfrontCapacity(spec.settings.start.length, spec.settings.stop.maxSteps)),
       status: { phase: paused ? 'paused' : 'running', summary: emptySummary(), evaluations: 0, error: null },
     };
     this.byConfig.set(configId, live);

@@ -1,9 +1,10 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { BasinTracker, OUTCOME_KINDS, type CriticalPoint, type KnownPoint, type OutcomeKind, type RunOutcome, type StudySpec } from '../engine';
+import { assignBasins, BasinTracker, OUTCOME_KINDS, type CriticalPoint, type KnownPoint, type OutcomeKind, type RunOutcome, type StudySpec } from '../engine';
 import type { SurfaceSpec } from '../problems';
 import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
+import { studyCellCount } from '../client/study-pool';
 
 /** The cells of a start-point map as they arrive (typed arrays indexed by cell). */
 export interface StudyCellsState {
@@ -62,8 +63,9 @@ export interface StudyStore {
 }
 
 /**
- * Studies on the page: one study (a start-point map or a multi-start study) at a time, run in its own
- * worker so ordinary runs keep streaming. Cells arrive as they finish (a map's in coarse-to-fine
+ * Studies on the page: one study (a start-point map, a multi-start study, a learning-rate sweep) at a
+ * time, run through `link`: on the page the study pool (src/client/study-pool.ts), which splits it
+ * across the pool workers, so ordinary runs keep streaming in the engine worker. Cells arrive as they finish (a map's in coarse-to-fine
  * order); each is assigned its basin as it arrives (BasinTracker: the nearest known minimum within
  * `basinRadius`, else a cluster of end points within that distance; the page uses 1% of the view's
  * diagonal).
@@ -78,6 +80,7 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
     done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], bands: null, thresholds: null, version: 0,
   }));
   let tracker: BasinTracker | null = null;
+  let basinRadius = 1;
 
   const receive = (cells: StudyCells) => {
     const s = store.getState();
@@ -95,6 +98,23 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
       c.endPoints.set(end, index * n);
       c.outcomes[index] = outcome;
     });
+  };
+
+  /**
+   * Clusters of end points (basins away from the known minima) take their labels in the order cells
+   * arrive, which depends on how the work was split between workers and on timing; once every cell is
+   * in they are assigned again in cell order, so a finished study's basins are the same however it ran.
+   * (With known minima only, each cell's basin does not depend on the others and nothing changes.)
+   */
+  const settleBasins = (): string[] => {
+    const s = store.getState();
+    const c = s.cells;
+    if (!c || !tracker) return [];
+    if (tracker.centres.length === 0) return [...tracker.labels];
+    const kinds = Array.from(c.kind, (k) => OUTCOME_KINDS[k]);
+    const again = assignBasins(c.endPoints, s.variables.length, kinds, s.known, basinRadius);
+    c.basin.set(again.basin);
+    return again.labels;
   };
 
   // Answers to one-off analysis requests, by request id.
@@ -126,9 +146,11 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
         store.setState((s) => ({ done: msg.done, total: msg.total, elapsedMs: msg.elapsedMs, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
         return;
       }
-      case 'study/done':
-        store.setState((s) => ({ status: 'done', elapsedMs: msg.elapsedMs, done: s.total, bands: msg.bands ?? null, thresholds: msg.thresholds ?? null, basinLabels: [...(tracker?.labels ?? [])], version: s.version + 1 }));
+      case 'study/done': {
+        const basinLabels = settleBasins();
+        store.setState((s) => ({ status: 'done', elapsedMs: msg.elapsedMs, done: s.total, bands: msg.bands ?? null, thresholds: msg.thresholds ?? null, basinLabels, version: s.version + 1 }));
         return;
+      }
       case 'study/error':
         store.setState({ status: 'error', message: msg.message });
         return;
@@ -145,12 +167,13 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
 
   return {
     store,
-    start({ surface, variables, spec, configLabel, known, basinRadius }) {
+    start({ surface, variables, spec, configLabel, known, basinRadius: radius }) {
       const previous = store.getState().requestId;
       if (previous) link.send({ type: 'study/cancel', requestId: previous });
-      const count = spec.kind === 'start-map' ? spec.resolution * spec.resolution : spec.kind === 'lr-sweep' ? spec.count * spec.optimizers.length : spec.count;
+      const count = studyCellCount(spec);
       const n = variables.length;
-      tracker = new BasinTracker(known, basinRadius);
+      tracker = new BasinTracker(known, radius);
+      basinRadius = radius;
       const requestId = freshId('study');
       store.setState({
         status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels], known, bands: null, thresholds: null,

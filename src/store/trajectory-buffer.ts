@@ -1,5 +1,19 @@
 import type { TrajectoryBatch } from '../engine';
 
+/** Most bytes reserved up front for one run, points and per-step numbers (beyond, the buffer doubles). */
+export const UPFRONT_BYTES = 32 * 2 ** 20;
+
+/**
+ * Rows to reserve for a run of at most `maxSteps` steps in `dimension` coordinates: all of them (step 0
+ * included) while they fit in UPFRONT_BYTES, so a network's run never copies its
+ * trajectory (doubling a buffer of a thousand-parameter run copied tens of megabytes on the page at
+ * once, and the garbage set off long collections); at least 16 rows.
+ */
+export function upfrontCapacity(dimension: number, maxSteps: number): number {
+  const fits = Math.floor(UPFRONT_BYTES / (8 * (Math.max(1, dimension) + 3)));
+  return Math.max(16, Math.min(Number.isFinite(maxSteps) ? Math.floor(maxSteps) + 1 : fits, fits));
+}
+
 /**
  * A run's recorded steps on the page, grown by appending streamed batches. Lives outside React state:
  * canvas layers read it directly when they redraw, so streaming never re-renders components.

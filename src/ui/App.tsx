@@ -40,11 +40,13 @@ export function App() {
           </PanelBoundary>
         </aside>
         <main className="main-column">
-          {surface.kind === 'datafit' ? (
-            <div className="view-with-data">
-              <PanelBoundary name="The surface view">
-                <ViewArea />
-              </PanelBoundary>
+          {/* One tree for both layouts, so switching to a data fit keeps the surface view (its canvases
+              and controls) instead of building it again in the same task as the data column. */}
+          <div className={surface.kind === 'datafit' ? 'view-with-data' : 'view-alone'}>
+            <PanelBoundary name="The surface view">
+              <ViewArea />
+            </PanelBoundary>
+            {surface.kind === 'datafit' && (
               <div className="data-column">
                 <PanelBoundary name="The data view">
                   <DataView spec={surface} />
@@ -53,12 +55,8 @@ export function App() {
                   <ProfileChart />
                 </PanelBoundary>
               </div>
-            </div>
-          ) : (
-            <PanelBoundary name="The surface view">
-              <ViewArea />
-            </PanelBoundary>
-          )}
+            )}
+          </div>
           <div className="lower">
             <PanelBoundary name="The loss chart">
               <LossChart />

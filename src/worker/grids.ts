@@ -1,6 +1,6 @@
 import { finiteRange, sampleGrid, validateGridRequest, type GridRequest, type Surface } from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
-import type { FromWorker } from '../protocol';
+import { previewSidesFor, type FromWorker } from '../protocol';
 import { errorText } from './runs';
 import { SLICE_MS, type Timing } from './scheduler';
 
@@ -11,9 +11,6 @@ interface GridJob {
   values: Float64Array;
   rowsDone: number;
 }
-
-/** Side of the quick preview grid sent before a large grid is finished. */
-export const COARSE_SIDE = 48;
 
 /**
  * Samples surface grids in bands of rows, reporting progress, yielding between bands so a newer request
@@ -38,10 +35,12 @@ export class GridSampler {
       this.post({ type: 'grid/error', requestId, message: errorText(e) });
       return;
     }
-    if (coarseFirst && grid.nx * grid.ny > 4 * COARSE_SIDE * COARSE_SIDE) {
-      const coarse = { ...grid, nx: COARSE_SIDE, ny: COARSE_SIDE };
-      this.finish(requestId, coarse, sampleGrid(surface, coarse), 'coarse');
-    }
+    // Previews (protocol/grid-previews.ts) are sampled at once: each is a small fraction of the grid.
+    if (coarseFirst)
+      for (const side of previewSidesFor(grid.nx, grid.ny)) {
+        const coarse = { ...grid, nx: side, ny: side };
+        this.finish(requestId, coarse, sampleGrid(surface, coarse), 'coarse');
+      }
     const started = !this.job;
     this.job = { requestId, surface, grid, values: new Float64Array(grid.nx * grid.ny), rowsDone: 0 };
     if (started) this.timing.later(() => this.work(), 0);

@@ -2,9 +2,11 @@ import type { FromWorker, ToWorker } from '../protocol';
 import { GridSampler } from './grids';
 import { sampleProfile } from './profiles';
 import { RunPool } from './runs';
-import { StudyRunner } from './studies';
+import { finishStudyParts, StudyRunner } from './studies';
 import { sampleSharpness, searchCriticalPoints } from './analysis';
 import { parseCsvInWorker } from './tables';
+import { FitPredictor } from './predictions';
+import { SurfaceProbe } from './probes';
 import type { Timing } from './scheduler';
 
 /** The worker's message switch, free of worker globals so tests can drive it directly. */
@@ -12,6 +14,8 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
   const runs = new RunPool(post, timing);
   const grids = new GridSampler(post, timing);
   const studies = new StudyRunner(post, timing);
+  const predictions = new FitPredictor(post);
+  const probes = new SurfaceProbe(post);
   return function handle(msg: ToWorker): void {
     switch (msg.type) {
       case 'run/start':
@@ -29,13 +33,19 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
       case 'profile/sample':
         return sampleProfile(post, msg.requestId, msg.surface, msg.from, msg.to, msg.alphas);
       case 'study/start':
-        return studies.start(msg.requestId, msg.surface, msg.study);
+        return studies.start(msg.requestId, msg.surface, msg.study, msg.part);
+      case 'study/finish':
+        return finishStudyParts(post, msg.requestId, msg.surface, msg.study, msg.outcomes, msg.curves);
       case 'study/cancel':
         return studies.cancel(msg.requestId);
       case 'sharpness/sample':
         return sampleSharpness(post, msg.requestId, msg.surface, msg.points, msg.count);
       case 'critical/find':
         return searchCriticalPoints(post, msg.requestId, msg.surface, msg.starts, msg.count);
+      case 'fit/predict':
+        return predictions.predict(msg.requestId, msg.surface, msg.params, msg.rows, msg.count);
+      case 'probe/sample':
+        return probes.probe(msg.requestId, msg.surface, msg.points, msg.count);
     }
   };
 }

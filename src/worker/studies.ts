@@ -1,9 +1,9 @@
 import {
-  buildOptimizer, cellPlans, coarseToFineOrder, drawStarts, hasParameterGroups, lossBands, RunCursor, Sweep, sweepThresholds, validateMultiStart,
+  buildOptimizer, cellPlans, coarseToFineOrder, drawStarts, hasParameterGroups, lossBands, RunCursor, splitBands, Sweep, sweepThresholds, validateMultiStart,
   type LearningRateSweepSpec, type MultiStartSpec, type RunOutcome, type StartMapSpec, type StudySpec, type Surface, type SweepPlan,
 } from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
-import type { FromWorker, StudyCells } from '../protocol';
+import type { FromWorker, StudyCells, StudyPart } from '../protocol';
 import { errorText } from './runs';
 import { SLICE_MS, type Timing } from './scheduler';
 
@@ -20,12 +20,34 @@ interface StudyWork {
   readonly total: number;
   readonly finished: boolean;
   run(deadline: number, now: () => number): CellResult[];
-  /** What goes out with the last message (bands, thresholds). */
-  finish(): Pick<Extract<FromWorker, { type: 'study/done' }>, 'bands' | 'thresholds'>;
+  /**
+   * What goes out with the last message: for a whole study its bands or thresholds (finishStudy); for
+   * a part, a multi-start's loss curves (the page merges the parts and asks for 'study/finish').
+   */
+  finish(): StudyEnd;
 }
 
-/** Most cells in one message to the page. */
-const CELLS_PER_MESSAGE = 1024;
+type StudyEnd = Pick<Extract<FromWorker, { type: 'study/done' }>, 'bands' | 'thresholds' | 'curveIndices' | 'curves'>;
+
+/** The whole study, as one part. */
+const WHOLE: StudyPart = { index: 0, count: 1 };
+
+/** Part `part.index` of the `length` runs of one wave: its band of splitBands (empty past the last band). */
+function bandOf(length: number, part: StudyPart): { lo: number; hi: number } {
+  return splitBands(length, part.count)[part.index] ?? { lo: length, hi: length };
+}
+
+function validatePart(part: StudyPart): void {
+  if (!(Number.isInteger(part.count) && part.count >= 1 && Number.isInteger(part.index) && part.index >= 0 && part.index < part.count))
+    throw new Error(`study part: index must be a whole number in [0, count), got ${part.index} of ${part.count}`);
+}
+
+/**
+ * Most cells in one message to the page. Reading a message (its outcomes are objects) is a task on the
+ * page; with several pool workers sending at once, 1024-cell messages made tasks near 100 ms on a busy
+ * machine and held a click on Cancel behind them (e2e/study-performance.spec.ts).
+ */
+const CELLS_PER_MESSAGE = 256;
 
 interface StudyJob {
   requestId: string;
@@ -36,7 +58,8 @@ interface StudyJob {
 
 /**
  * Runs studies in the worker, one at a time (a new one supersedes the one in progress; cancel drops it
- * between slices). Start-point maps and learning-rate sweeps run on the lockstep sweep engine
+ * between slices), whole or one part of one (StudyPart: the page's study pool gives each worker the
+ * same share of every wave, and ends the study with 'study/finish' once every part is in). Start-point maps and learning-rate sweeps run on the lockstep sweep engine
  * (engine/sweep, each run bit-identical to the same RunCursor run); a map runs in waves, the coarse
  * grid of its coarse-to-fine order first, so a full blocky picture shows early. Multi-start studies
  * run one RunCursor per start, which also records each run's loss curve for the quantile bands.
@@ -49,11 +72,12 @@ export class StudyRunner {
     private readonly timing: Timing,
   ) {}
 
-  start(requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec): void {
+  start(requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec, part?: StudyPart): void {
     try {
+      if (part) validatePart(part);
       const surface = buildSurface(surfaceSpec);
       const started = !this.job;
-      this.job = { requestId, work: planWork(spec, surface), done: 0, startedAt: this.timing.now() };
+      this.job = { requestId, work: planWork(spec, surface, part), done: 0, startedAt: this.timing.now() };
       if (started) this.timing.later(() => this.slice(), 0);
     } catch (e) {
       this.job = null;
@@ -116,18 +140,38 @@ function pack(cells: CellResult[]): StudyCells {
   };
 }
 
-function planWork(spec: StudySpec, surface: Surface): StudyWork {
+function planWork(spec: StudySpec, surface: Surface, part?: StudyPart): StudyWork {
   switch (spec.kind) {
     case 'start-map':
-      return startMapWork(spec, surface);
+      return startMapWork(spec, surface, part ?? WHOLE);
     case 'multi-start':
-      return new CursorWork(spec, surface);
+      return new CursorWork(spec, surface, part);
     case 'lr-sweep':
-      return learningRateWork(spec, surface);
+      return learningRateWork(spec, surface, part);
   }
 }
 
-/** One wave: a sweep of one optimizer over some cells (engine/study/cells.ts cellPlans). */
+/**
+ * The end of a study from all its cells: a multi-start's quartile bands of the loss from every run's
+ * curve (cell order), a learning-rate sweep's thresholds from every outcome (cell order); nothing for a
+ * map. The same function ends a whole study and one merged from parts, so the two agree exactly.
+ */
+export function finishStudy(spec: StudySpec, surface: Surface, outcomes: readonly (RunOutcome | undefined)[], curves: Float64Array[]): StudyEnd {
+  if (spec.kind === 'multi-start') return { bands: lossBands(curves, [0.25, 0.5, 0.75]).bands };
+  if (spec.kind === 'lr-sweep') return { thresholds: sweepThresholds(spec, surface, outcomes) };
+  return {};
+}
+
+/** 'study/finish': ends a study run in parts (the page's study pool) from the merged cells; the pool times the study. */
+export function finishStudyParts(post: (msg: FromWorker) => void, requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec, outcomes: RunOutcome[], curves: Float64Array[]): void {
+  try {
+    post({ type: 'study/done', requestId, elapsedMs: 0, ...finishStudy(spec, buildSurface(surfaceSpec), outcomes, curves) });
+  } catch (e) {
+    post({ type: 'study/error', requestId, message: errorText(e) });
+  }
+}
+
+/** One wave: a sweep of one optimizer over some cells. */
 interface Wave {
   indices: Int32Array;
   plan: SweepPlan;
@@ -142,7 +186,7 @@ class SweepWork implements StudyWork {
 
   constructor(
     private readonly waves: Wave[],
-    private readonly onFinish: () => ReturnType<StudyWork['finish']> = () => ({}),
+    private readonly onFinish: () => StudyEnd = () => ({}),
   ) {
     this.total = waves.reduce((s, w) => s + w.indices.length, 0);
   }
@@ -180,8 +224,8 @@ class SweepWork implements StudyWork {
   }
 }
 
-/** A map's cells in coarse-to-fine order, cut into waves at the full grids of stride 8, 4, 2 and 1. */
-function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
+/** A map's cells in coarse-to-fine order, cut into waves at the full grids of stride 8, 4, 2 and 1 (of each, the part's band). */
+function startMapWork(spec: StartMapSpec, surface: Surface, part: StudyPart): StudyWork {
   const r = spec.resolution;
   const order = coarseToFineOrder(r, r);
   const cuts = [8, 4, 2, 1].map((s) => Math.ceil(r / s) ** 2);
@@ -189,20 +233,26 @@ function startMapWork(spec: StartMapSpec, surface: Surface): StudyWork {
   let from = 0;
   for (const to of cuts) {
     if (to <= from) continue;
-    waves.push(...cellPlans(spec, surface, order.slice(from, to)));
+    const band = bandOf(to - from, part);
+    const indices = order.slice(from + band.lo, from + band.hi);
     from = to;
+    if (indices.length === 0) continue;
+    waves.push(...cellPlans(spec, surface, indices));
   }
   return new SweepWork(waves);
 }
 
 /**
- * Each optimizer at every rate, one wave per optimizer; at the end, per optimizer, the observed and
- * predicted divergence thresholds (engine/study/thresholds.ts).
+ * Each optimizer at every rate (of a part: its band of the rates), one wave per optimizer. A whole
+ * sweep ends with the thresholds (sweepThresholds); a part leaves them to 'study/finish'.
  */
-function learningRateWork(spec: LearningRateSweepSpec, surface: Surface): StudyWork {
-  const waves: Wave[] = cellPlans(spec, surface, Int32Array.from({ length: spec.optimizers.length * spec.count }, (_, c) => c));
+function learningRateWork(spec: LearningRateSweepSpec, surface: Surface, part?: StudyPart): StudyWork {
+  const { lo, hi } = bandOf(spec.count, part ?? WHOLE);
+  // Of every optimizer, the part's band of the rates (cell q count + k), one wave per optimizer (cellPlans).
+  const cells = Int32Array.from({ length: spec.optimizers.length * (hi - lo) }, (_, j) => Math.floor(j / (hi - lo)) * spec.count + lo + (j % (hi - lo)));
+  const waves: Wave[] = cells.length ? cellPlans(spec, surface, cells) : (cellPlans(spec, surface, []), []);
   const outcomes: (RunOutcome | undefined)[] = [];
-  const work = new SweepWork(waves, () => ({ thresholds: sweepThresholds(spec, surface, outcomes) }));
+  const work = new SweepWork(waves, () => (part ? {} : { thresholds: sweepThresholds(spec, surface, outcomes) }));
   const run = work.run.bind(work);
   work.run = (deadline, now) => {
     const cells = run(deadline, now);
@@ -212,10 +262,11 @@ function learningRateWork(spec: LearningRateSweepSpec, surface: Surface): StudyW
   return work;
 }
 
-/** One RunCursor per start (multi-start), keeping each run's loss curve for the quantile bands. */
+/** One RunCursor per start (multi-start; of a part, its band of the starts), keeping each run's loss curve for the quantile bands. */
 class CursorWork implements StudyWork {
   readonly total: number;
-  private next = 0;
+  private next: number;
+  private readonly end: number;
   private current: { index: number; cursor: RunCursor; loss: number[] } | null = null;
   private readonly curves: Float64Array[];
   private readonly starts: Float64Array;
@@ -224,16 +275,19 @@ class CursorWork implements StudyWork {
   constructor(
     private readonly spec: MultiStartSpec,
     private readonly surface: Surface,
+    private readonly part?: StudyPart,
   ) {
     validateMultiStart(spec);
-    this.total = spec.count;
+    const { lo, hi } = bandOf(spec.count, part ?? WHOLE);
+    [this.next, this.end] = [lo, hi];
+    this.total = hi - lo;
     this.curves = new Array(spec.count);
     this.starts = drawStarts(spec.distribution, surface.dimension, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined);
     this.optimizer = buildOptimizer(spec.optimizer);
   }
 
   get finished(): boolean {
-    return this.next >= this.total && !this.current;
+    return this.next >= this.end && !this.current;
   }
 
   run(deadline: number, now: () => number): CellResult[] {
@@ -258,7 +312,9 @@ class CursorWork implements StudyWork {
     return out;
   }
 
-  finish() {
-    return { bands: lossBands(this.curves, [0.25, 0.5, 0.75]).bands };
+  finish(): StudyEnd {
+    if (!this.part) return finishStudy(this.spec, this.surface, [], this.curves);
+    const lo = this.end - this.total;
+    return { curveIndices: Int32Array.from({ length: this.total }, (_, k) => lo + k), curves: this.curves.slice(lo, this.end) };
   }
 }

@@ -125,8 +125,8 @@ describe('app store with the real worker handler', () => {
 
 describe('app store with a grid pool', () => {
   it('samples the grid through the pool: the same values as the engine worker gives', async () => {
-    const { fakeWorld, flush } = await import('../worker/fake-workers');
-    const { createGridPool } = await import('../../src/worker/pool');
+    const { fakeWorld, flush } = await import('../client/fake-workers');
+    const { createGridPool } = await import('../../src/client/grid-pool');
     const { sampleGrid } = await import('../../src/engine');
     const { buildSurface } = await import('../../src/problems');
     const world = fakeWorld(1);

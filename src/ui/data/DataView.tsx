@@ -2,17 +2,24 @@ import { useEffect, useRef, useState } from 'react';
 import { focusRun } from '../../store/app-store';
 import { datasetTable, type DataFitSpec, type DataFitSurface } from '../../problems';
 import { formatValue } from '../plot';
-import { useApp, useLiveRuns } from '../app-context';
+import { useActions, useApp, useLiveRuns } from '../app-context';
 import { prepareCanvas, useElementSize } from '../view/use-canvas-size';
 import { useMainThreadSurface } from '../view/use-surface';
-import { drawDataScene, taskOf } from './data-plot';
+import { drawDataScene, predictionRows, taskOf } from './data-plot';
+import { ParamTable } from './ParamTable';
+
+/** Least time between two prediction requests while a run streams (the worker is also stepping runs). */
+const PREDICT_INTERVAL_MS = 100;
 
 /**
  * The data beside the landscape, redrawn as the selected run streams: the fit at the run's current
- * parameters, and those parameters (in the data's original units) next to the known answer.
+ * parameters, and those parameters (in the data's original units) next to the known answer. The
+ * model's predictions are computed in the worker (actions.predictFit), one request in flight at a
+ * time, at most every PREDICT_INTERVAL_MS; the page only draws them.
  */
 export function DataView({ spec }: { spec: DataFitSpec }) {
   const live = useLiveRuns();
+  const actions = useActions();
   const surface = useMainThreadSurface(spec) as DataFitSurface | null;
   const info = useApp((s) => s.surfaceInfo);
   const boxRef = useRef<HTMLDivElement>(null);
@@ -26,26 +33,55 @@ export function DataView({ spec }: { spec: DataFitSpec }) {
 
   useEffect(() => {
     let frame = 0;
-    let drawn: [number, unknown] = [-1, null];
+    let stopped = false;
+    let asked: [number, unknown] = [-1, null];
+    let inFlight = false;
+    let lastAsk = -Infinity;
     const table = datasetTable(spec.dataset);
+    const task = taskOf(spec.model);
+    const { rows, count } = predictionRows(table, spec.model.inputs, task);
+    const scene = { table, inputs: spec.model.inputs, target: spec.model.target, task };
+    const draw = (predictions: { outputs: Float64Array; width: number } | null, runId: string) => {
+      const { size } = input.current;
+      const canvas = canvasRef.current;
+      if (stopped || !canvas || !size) return;
+      const ctx = prepareCanvas(canvas, size);
+      if (!ctx) return;
+      setCaption(drawDataScene(ctx, size, { ...scene, predictions }));
+      canvas.dataset.drawnFor = runId;
+    };
+    let shownFor: [number, unknown] = [-1, null];
     const tick = () => {
       frame = requestAnimationFrame(tick);
       const { size, run, surface } = input.current;
-      const canvas = canvasRef.current;
-      if (!canvas || !size || !surface || (drawn[0] === live.version && drawn[1] === input.current)) return;
-      drawn = [live.version, input.current];
+      if (!canvasRef.current || !size || !surface) return;
+      const changed = shownFor[0] !== live.version || shownFor[1] !== input.current;
+      if (!changed && asked[0] === live.version && asked[1] === input.current) return;
       const buffer = run ? live.trajectory(run.id) : undefined;
-      const x = buffer && buffer.count > 0 && buffer.dimension === surface.dimension ? Array.from(buffer.point(buffer.count - 1)) : null;
-      const ctx = prepareCanvas(canvas, size);
-      if (!ctx) return;
-      const predict = x && x.every(Number.isFinite) ? (row: ArrayLike<number>) => surface.predict(x, row) : null;
-      setCaption(drawDataScene(ctx, size, { table, inputs: spec.model.inputs, target: spec.model.target, task: taskOf(spec.model), predict }));
-      setShown(x && run && buffer ? { params: x, step: buffer.count - 1, label: run.label } : null);
-      canvas.dataset.drawnFor = run?.id ?? '';
+      const x = buffer && buffer.count > 0 && buffer.dimension === surface.dimension ? Float64Array.from(buffer.point(buffer.count - 1)) : null;
+      // The parameter table follows every update at once (it renders only the rows in view); the
+      // picture waits for the worker's predictions.
+      if (changed) {
+        shownFor = [live.version, input.current];
+        setShown(x && run && buffer ? { params: Array.from(x), step: buffer.count - 1, label: run.label } : null);
+      }
+      if (inFlight || performance.now() - lastAsk < PREDICT_INTERVAL_MS) return;
+      asked = [live.version, input.current];
+      if (!x || !x.every(Number.isFinite) || count === 0) return draw(null, run?.id ?? '');
+      inFlight = true;
+      lastAsk = performance.now();
+      actions
+        .predictFit(x, rows, count)
+        .then((predictions) => draw(predictions, run?.id ?? ''))
+        .catch(() => draw(null, run?.id ?? '')) // the worker's message: the parameters do not fit this model (a run of another surface)
+        .finally(() => (inFlight = false));
     };
     frame = requestAnimationFrame(tick);
-    return () => cancelAnimationFrame(frame);
-  }, [live, spec]);
+    return () => {
+      stopped = true;
+      cancelAnimationFrame(frame);
+    };
+  }, [live, spec, actions]);
 
   const known = info.knownPoints.find((p) => p.kind === 'global-min');
   const original = surface && shown ? surface.toOriginalUnits(shown.params) : null;
@@ -58,35 +94,12 @@ export function DataView({ spec }: { spec: DataFitSpec }) {
       </div>
       <p className="field-help">{caption}</p>
       {surface && (
-        <table className="param-table" data-testid="param-table">
-          <caption>
-            Parameters{surface.standardised ? ' (converted back to the original units of the data)' : ''}: {shown ? `${shown.label} at step ${shown.step}` : 'no run yet'}
-          </caption>
-          <thead>
-            <tr>
-              <th scope="col">parameter</th>
-              <th scope="col">this run</th>
-              {knownOriginal && <th scope="col">{known!.source.startsWith('normal equations') ? 'least-squares answer' : 'known minimum'}</th>}
-            </tr>
-          </thead>
-          <tbody>
-            {surface.variables.map((name, k) => (
-              <tr key={name}>
-                <th scope="row" className="mono">
-                  {name}
-                </th>
-                <td className="mono" data-col="run">
-                  {original ? formatValue(original[k]) : '—'}
-                </td>
-                {knownOriginal && (
-                  <td className="mono" data-col="known">
-                    {formatValue(knownOriginal[k])}
-                  </td>
-                )}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <ParamTable
+          caption={`Parameters${surface.standardised ? ' (converted back to the original units of the data)' : ''}: ${shown ? `${shown.label} at step ${shown.step}` : 'no run yet'}`}
+          names={surface.variables}
+          values={original}
+          known={knownOriginal ? { title: known!.source.startsWith('normal equations') ? 'least-squares answer' : 'known minimum', values: knownOriginal } : null}
+        />
       )}
       {known && <p className="field-help">Known minimum: {known.source}; loss there {formatValue(known.value)}.</p>}
     </section>

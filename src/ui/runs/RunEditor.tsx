@@ -19,6 +19,7 @@ import {
 import type { RunConfig } from '../../store/workspace';
 import { useActions, useApp } from '../app-context';
 import { NumberField } from '../fields/NumberField';
+import { VectorFields } from '../fields/VectorFields';
 import { RuleEditor } from './RuleEditor';
 import { useMainThreadSurface } from '../view/use-surface';
 import { RateHint } from './RateHint';
@@ -147,15 +148,13 @@ export function RunEditor({ run }: { run: RunConfig }) {
       </fieldset>
       <fieldset>
         <legend>Start point{reportedUnits(surface).standardised ? ' (standardised coordinates)' : ''}</legend>
-        {variables.map((name, i) => (
-          <NumberField
-            key={name}
-            compact
-            label={name}
-            value={run.settings.start[i]}
-            onCommit={(v) => trySettings({ ...run.settings, start: run.settings.start.map((x, k) => (k === i ? v! : x)) })}
-          />
-        ))}
+        <VectorFields
+          names={variables}
+          values={run.settings.start}
+          label={(name) => name}
+          noun="coordinate"
+          onCommit={(i, v) => trySettings({ ...run.settings, start: run.settings.start.map((x, k) => (k === i ? v : x)) })}
+        />
       </fieldset>
       <fieldset>
         <legend>Stopping and noise</legend>

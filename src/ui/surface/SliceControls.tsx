@@ -2,6 +2,7 @@ import { useId, useState } from 'react';
 import { focusRun } from '../../store/app-store';
 import { useActions, useApp, useLiveRuns } from '../app-context';
 import { NumberField } from '../fields/NumberField';
+import { LIST_ALL_UP_TO, VectorFields } from '../fields/VectorFields';
 import { useMainThreadSurface } from '../view/use-surface';
 import { pcaPlaneSlice, randomPlaneSlice } from './plane-choices';
 
@@ -69,26 +70,34 @@ export function SliceControls() {
     }
   }
 
-  const axisSelect = (which: 0 | 1) => (
-    <div className="field field-compact">
-      <label htmlFor={`${id}-axis-${which}`}>{which === 0 ? 'Horizontal axis' : 'Vertical axis'}</label>
-      <select
-        id={`${id}-axis-${which}`}
-        value={slice.axes[which]}
-        onChange={(e) => {
-          const k = Number(e.target.value);
-          const other = slice.axes[1 - which];
-          actions.setSlice({ plane: null, axes: which === 0 ? [k, k === other ? i : other] : [k === other ? j : other, k] });
-        }}
-      >
-        {variables.map((v, k) => (
-          <option key={v} value={k}>
-            {v}
-          </option>
-        ))}
-      </select>
-    </div>
-  );
+  const chooseAxis = (which: 0 | 1, k: number) => {
+    const other = slice.axes[1 - which];
+    actions.setSlice({ plane: null, axes: which === 0 ? [k, k === other ? i : other] : [k === other ? j : other, k] });
+  };
+  const axisName = (which: 0 | 1) => (which === 0 ? 'Horizontal axis' : 'Vertical axis');
+  // A menu of a thousand names is a thousand elements to restyle on every update of this panel (it
+  // follows the focus run): past LIST_ALL_UP_TO variables the axis is chosen by number.
+  const axisSelect = (which: 0 | 1) =>
+    variables.length > LIST_ALL_UP_TO ? (
+      <NumberField
+        compact
+        label={`${axisName(which)}: variable number (1 to ${variables.length})`}
+        help={variables[slice.axes[which]]}
+        value={slice.axes[which] + 1}
+        onCommit={(v) => (Number.isInteger(v) && v! >= 1 && v! <= variables.length ? (chooseAxis(which, v! - 1), null) : `${axisName(which)}: a whole number from 1 to ${variables.length}`)}
+      />
+    ) : (
+      <div className="field field-compact">
+        <label htmlFor={`${id}-axis-${which}`}>{axisName(which)}</label>
+        <select id={`${id}-axis-${which}`} value={slice.axes[which]} onChange={(e) => chooseAxis(which, Number(e.target.value))}>
+          {variables.map((v, k) => (
+            <option key={v} value={k}>
+              {v}
+            </option>
+          ))}
+        </select>
+      </div>
+    );
 
   return (
     <fieldset className="slice">
@@ -122,11 +131,14 @@ export function SliceControls() {
             )}
           </div>
           <div className="held-values" role="group" aria-label={`Held values of the other ${variables.length - 2} variables`} data-testid="held-values">
-            {variables.map((v, k) =>
-              k === i || k === j ? null : (
-                <NumberField key={v} compact label={`${v} held at`} value={slice.at[k]} onCommit={(x) => (actions.setSlice({ at: slice.at.map((old, m) => (m === k ? x! : old)) }), null)} />
-              ),
-            )}
+            <VectorFields
+              names={variables}
+              values={slice.at}
+              skip={new Set([i, j])}
+              label={(v) => `${v} held at`}
+              noun="held value"
+              onCommit={(k, x) => (actions.setSlice({ at: slice.at.map((old, m) => (m === k ? x : old)) }), null)}
+            />
           </div>
         </>
       )}

@@ -24,6 +24,9 @@ export function RunTable() {
   const columns = all.filter((c) => chosen.includes(c.id));
   const rows = sortRows(resultRows({ runs, status, surfaceInfo: info }, units), all, table.sort);
   const [copied, setCopied] = useState<string | null>(null);
+  // The chooser's boxes are rendered only while it is open: a network has a column per parameter, and
+  // a thousand hidden checkboxes re-rendered with every streamed update of the table.
+  const [choosing, setChoosing] = useState(false);
 
   const toggle = (id: string) => actions.setTableColumns(chosen.includes(id) ? chosen.filter((c) => c !== id) : all.filter((c) => c.id === id || chosen.includes(c.id)).map((c) => c.id));
   const sortOf = (c: ResultColumn) => (table.sort?.column === c.id ? table.sort.direction : 'none');
@@ -53,8 +56,9 @@ export function RunTable() {
             }}
           />
         )}
-        <details className="column-chooser">
+        <details className="column-chooser" onToggle={(e) => setChoosing(e.currentTarget.open)}>
           <summary>Columns ({columns.length} of {all.length})</summary>
+          {choosing && (
           <fieldset>
             <legend>Show columns</legend>
             {all.map((c) => (
@@ -66,6 +70,7 @@ export function RunTable() {
               Default columns
             </button>
           </fieldset>
+          )}
         </details>
         <button type="button" onClick={copy} title="Copy the shown columns as tab-separated text with every digit">
           Copy table

@@ -1,10 +1,10 @@
 import { useEffect, useMemo, useRef, type KeyboardEvent, type PointerEvent } from 'react';
 import { equalScaleOn, shownView } from '../../store/equal-scale';
-import { slicePoint } from '../../store/slice-plane';
+import { slicePlane, slicePoint } from '../../store/slice-plane';
 import { reportedUnits } from '../../store/units';
 import { axisTitles } from './axis-titles';
-import { panBy, zoomAt, type Arrow } from '../plot';
-import { ARROW_SPACING, COMPACT_ARROW_SPACING, planeArrows } from './plane-arrows';
+import { gradientArrows, panBy, zoomAt, type Arrow } from '../plot';
+import { ARROW_SPACING, COMPACT_ARROW_SPACING } from './plane-arrows';
 import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
 import { canvasToFrame, frameLayout, frameTransform, insideFrame, roundToView } from './frame';
 import { useSurfacePicture } from './picture';
@@ -13,6 +13,7 @@ import { knownPointsOnSlice, trajectoryItems } from './scene-input';
 import { prepareCanvas, useElementSize } from './use-canvas-size';
 import { useMainThreadSurface } from './use-surface';
 import { HoverReadout } from './HoverReadout';
+import { specKey, useProbe } from './use-probe';
 
 export interface SurfaceViewProps {
   /** Which runs to draw: all visible ones, or only these ids (one panel of the panel grid). */
@@ -65,10 +66,35 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const titles = axisTitles(slice, info.variables, reportedUnits(surface));
   const knownPoints = useMemo(() => knownPointsOnSlice({ slice, surfaceInfo: info, display, runs, selectedRunId: selected }), [slice, info, display, runs, selected]);
 
+  // Gradient arrows: the lattice centres are laid out here, their gradients computed in the worker.
+  const arrowLattice = useMemo(() => {
+    if (!display.showArrows || !layout || info.variables.length !== n) return null;
+    const t = frameTransform(view, layout);
+    const spacing = compact ? COMPACT_ARROW_SPACING : ARROW_SPACING;
+    const centres: { a: number; b: number }[] = [];
+    gradientArrows((p) => (centres.push(p), null), t, spacing);
+    const points = new Float64Array(centres.length * n);
+    centres.forEach((p, k) => points.set(slicePoint(slice, n, p.a, p.b), k * n));
+    return { t, spacing, points, count: centres.length, key: `${specKey(surfaceSpec)}|${view.a}|${view.b}|${layout.frame.width}x${layout.frame.height}|${JSON.stringify(slice)}|${spacing}` };
+  }, [display.showArrows, layout, view, slice, n, compact, info.variables.length, surfaceSpec]);
+  const probed = useProbe(arrowLattice?.key ?? null, () => arrowLattice!.points, arrowLattice?.count ?? 0);
   const arrows: Arrow[] = useMemo(() => {
-    if (!display.showArrows || !surface || !layout || surface.dimension !== n) return [];
-    return planeArrows(surface, slice, frameTransform(view, layout), compact ? COMPACT_ARROW_SPACING : ARROW_SPACING);
-  }, [display.showArrows, surface, layout, view, slice, n, compact]);
+    if (!arrowLattice || probed?.key !== arrowLattice.key) return [];
+    const plane = slicePlane(slice, n);
+    let k = 0;
+    // The same lattice in the same order: the k-th centre's gradient restricted to the plane, (u . grad, v . grad).
+    return gradientArrows(() => {
+      const g = probed.gradients.subarray(k * n, (k + 1) * n);
+      k++;
+      let da = 0;
+      let db = 0;
+      for (let q = 0; q < n; q++) {
+        da += plane.u[q] * g[q];
+        db += plane.v[q] * g[q];
+      }
+      return { da, db };
+    }, arrowLattice.t, arrowLattice.spacing);
+  }, [arrowLattice, probed, slice, n]);
 
   // Base layer.
   useEffect(() => {
@@ -84,6 +110,9 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
       a: axes.aTicks.map((t) => [t.value, layout.left + t.px]),
       b: axes.bTicks.map((t) => [t.value, layout.top + t.py]),
     });
+    // Which grid is on screen (read by the browser tests: time to the first picture of a new surface).
+    canvas.dataset.gridRequest = picture?.requestId ?? '';
+    canvas.dataset.gridSide = picture ? String(picture.grid.nx) : '';
     if (picture && performance.getEntriesByName(FIRST_CONTOUR_MARK).length === 0) performance.mark(FIRST_CONTOUR_MARK);
   }, [layout, picture, view, titles.a, titles.b, knownPoints, arrows, title]);
 
@@ -205,12 +234,16 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
       >
         <canvas ref={baseRef} className="surface-base" data-testid="surface-base" />
         <canvas ref={overlayRef} className="surface-overlay" data-testid="surface-overlay" />
-        {grid.phase === 'computing' && (
-          <div className="grid-progress" role="progressbar" aria-label="Sampling the surface" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(grid.progress * 100)}>
-            sampling {Math.round(grid.progress * 100)}%
-          </div>
-        )}
         {grid.phase === 'error' && <div className="grid-error" role="alert">{grid.error}</div>}
+      </div>
+      {/* Below the canvas, in a line of its own that is always there: drawn over the map, the badge
+          covered the plot, the colour bar or a neighbouring panel. */}
+      <div className="grid-status">
+        {grid.phase === 'computing' && (
+          <span className="grid-progress" role="progressbar" aria-label="Sampling the surface" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(grid.progress * 100)}>
+            sampling {Math.round(grid.progress * 100)}%{grid.stage === 'coarse' && grid.request ? ` (showing a ${grid.request.nx} x ${grid.request.ny} preview)` : ''}
+          </span>
+        )}
       </div>
       {!compact && <HoverReadout surface={surface} />}
     </div>

@@ -6,6 +6,8 @@ import type { GridBox } from '../../engine';
 
 /** The contoured surface: computed once per grid and display setting, drawn by every panel. */
 export interface SurfacePicture {
+  /** The grid request the values came from (a preview shares its request's id). */
+  requestId: string | null;
   grid: GridBox;
   bands: ContourBand[];
   colours: string[];
@@ -62,7 +64,7 @@ export function buildPicture(grid: GridState, display: DisplaySettings, knownMin
         return;
       }
       const colours = bandColours(thresholds, scale, display.colourMap);
-      const picture = { grid: spec, bands, colours, legend: legendModel(scale, thresholds, colours) };
+      const picture = { requestId: grid.requestId, grid: spec, bands, colours, legend: legendModel(scale, thresholds, colours) };
       if (!done.has(values)) done.set(values, new Map());
       done.get(values)!.set(key, picture);
       pending.get(values)?.delete(key);

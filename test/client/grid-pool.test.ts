@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { axisPlane, randomPlane, sampleGrid, type GridRequest } from '../../src/engine';
 import { buildSurface, type SurfaceSpec } from '../../src/problems';
-import { createGridPool, defaultPoolSize, GridRequestCancelled, type GridPoolResult } from '../../src/worker/pool';
+import { createGridPool, defaultPoolSize, GridRequestCancelled, type GridPoolResult } from '../../src/client/grid-pool';
 import { fakeWorld, flush } from './fake-workers';
 
 /** A 12-parameter surface sliced on a random plane: every band does real, distinct work. */
@@ -88,31 +88,52 @@ describe('GridPool: reassembly', () => {
     expect(seen.length).toBeGreaterThan(8);
   });
 
-  it('sends a coarse preview first when asked, equal to sampling the coarse grid', async () => {
+  it('sends the previews first when asked, coarse to fine, each equal to sampling its grid', async () => {
     const world = fakeWorld();
     const pool = createGridPool(world.factory, 2);
     const g = grid(120, 120);
     const order: string[] = [];
-    let preview: GridPoolResult | undefined;
+    const previews: GridPoolResult[] = [];
     const r = track(
       pool.request('c', SPEC, g, undefined, {
         onCoarse: (p) => {
-          preview = p;
-          order.push('coarse');
+          previews.push(p);
+          order.push(`preview ${p.grid.nx}`);
         },
       }).then((v) => (order.push('final'), v)),
     );
     world.run();
     await flush();
-    expect(order).toEqual(['coarse', 'final']);
-    expect(preview!.grid).toEqual({ ...g, nx: 48, ny: 48 });
-    expect(Array.from(preview!.values)).toEqual(Array.from(direct(SPEC, { ...g, nx: 48, ny: 48 })));
+    expect(order).toEqual(['preview 16', 'preview 48', 'final']);
+    for (const p of previews) expect(Array.from(p.values)).toEqual(Array.from(direct(SPEC, { ...g, nx: p.grid.nx, ny: p.grid.nx })));
+    expect(previews[1].grid).toEqual({ ...g, nx: 48, ny: 48 });
     expect(Array.from((r.value as GridPoolResult).values)).toEqual(Array.from(direct(SPEC, g)));
-    // A small grid gets no preview.
+    // A 40 x 40 grid gets only the 16 x 16 preview (48 x 48 would not be a quarter of it), a small grid none.
+    const sides: number[] = [];
+    track(pool.request('m', SPEC, grid(40, 40), undefined, { onCoarse: (p) => sides.push(p.grid.nx) }));
+    world.run();
+    await flush();
+    expect(sides).toEqual([16]);
     let small = 0;
     track(pool.request('s', SPEC, grid(20, 20), undefined, { onCoarse: () => small++ }));
     world.run();
     expect(small).toBe(0);
+  });
+
+  it('drops a coarse preview that arrives after a finer one', async () => {
+    // Member 0 crashes on its first band, the 16 x 16 preview: it is handed to member 1 again, which has
+    // the 48 x 48 one queued first, so the coarse preview comes back second and must not replace it.
+    const world = fakeWorld();
+    world.failing.add(0);
+    const pool = createGridPool(world.factory, 2);
+    const sides: number[] = [];
+    const g = grid(120, 120);
+    const r = track(pool.request('late', SPEC, g, undefined, { onCoarse: (p) => sides.push(p.grid.nx) }));
+    world.run();
+    await flush();
+    expect(world.log.filter((e) => e.msg.type === 'band/result' && e.msg.requestId === 'late#preview16')).toHaveLength(1);
+    expect(sides).toEqual([48]);
+    expect(Array.from((r.value as GridPoolResult).values)).toEqual(Array.from(direct(SPEC, g)));
   });
 });
 

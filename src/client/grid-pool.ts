@@ -1,15 +1,19 @@
 import { validateGridRequest, type GridRequest } from '../engine';
 import type { SurfaceSpec } from '../problems';
-import type { FromPoolMember, FromWorker, RowRange, ToPoolMember } from '../protocol';
-import { COARSE_SIDE } from './grids';
+import { GridRequestCancelled, previewSidesFor, type FromPoolMember, type FromWorker, type RowRange, type ToPoolMember, type ToWorker } from '../protocol';
+
+// The page's side of pooled grid sampling: cuts one grid into bands for several workers and puts the
+// answers back together. Runs on the page (src/client); the members run src/worker/bands.ts.
+export { GridRequestCancelled };
 
 /**
  * The least a pool needs of a worker, so the same pool code drives Web Workers in the page
  * (`webWorkerLike`) and Node worker_threads in the benchmark. Members run the normal worker handler
- * (src/worker/handler.ts), which answers 'band/sample' and 'band/cancel'.
+ * (src/worker/bands.ts answers 'band/sample' and 'band/cancel'; src/worker/handler.ts the rest, such as
+ * the parts of a study sent by src/client/study-pool.ts).
  */
 export interface WorkerLike {
-  postMessage(msg: ToPoolMember): void;
+  postMessage(msg: ToPoolMember | ToWorker): void;
   /**
    * Registers the two listeners: messages from the worker (the pool reads only band replies, so a
    * member may also be running trajectories), and failures of the worker itself.
@@ -30,21 +34,11 @@ export interface GridPoolResult {
 
 export interface GridPoolRequestOptions {
   /**
-   * Receives a quick COARSE_SIDE x COARSE_SIDE preview of a large grid (over 4 COARSE_SIDE^2 cells)
-   * before the full result, as the single-worker 'grid/sample' with coarseFirst does.
+   * Receives quick previews of a large grid before the full result (the sides of previewSidesFor,
+   * each a band of its own; a coarser one arriving after a finer one is dropped), as the
+   * single-worker 'grid/sample' with coarseFirst does.
    */
   onCoarse?: (preview: GridPoolResult) => void;
-}
-
-/** Why a request's promise was rejected without an error of its own; callers normally ignore it. */
-export class GridRequestCancelled extends Error {
-  constructor(
-    readonly requestId: string,
-    readonly reason: 'superseded' | 'cancelled' | 'disposed',
-  ) {
-    super(`grid request ${requestId} was ${reason}`);
-    this.name = 'GridRequestCancelled';
-  }
 }
 
 /** Default size cap: beyond this, message and start-up costs outweigh more parallel rows for our grids. */
@@ -75,7 +69,8 @@ export function defaultPoolSize(hardwareConcurrency = typeof navigator !== 'unde
 
 interface Band {
   rows: RowRange;
-  coarse: boolean;
+  /** The side of the preview grid this band samples whole, or 0 for rows of the requested grid. */
+  preview: number;
 }
 
 interface Member {
@@ -89,16 +84,17 @@ interface Member {
 
 interface Job {
   requestId: string;
-  coarseId: string;
   spec: SurfaceSpec;
   grid: GridRequest;
-  coarseGrid: GridRequest | null;
   values: Float64Array;
   /** The first row not yet handed out; rows below it are done, in flight or in `returned`. */
   nextRow: number;
   /** Bands handed back by failed members, handed out again first. */
   returned: Band[];
-  coarsePending: boolean;
+  /** Preview sides not yet handed out, coarsest first. */
+  previewsPending: number[];
+  /** The finest preview delivered so far (0: none). */
+  previewShown: number;
   rowsDone: number;
   min: number;
   max: number;
@@ -165,18 +161,16 @@ export class GridPool {
       return Promise.reject(e);
     }
     if (this.aliveCount === 0) return Promise.reject(new Error('grid pool: every worker has failed'));
-    const wantsCoarse = options.onCoarse !== undefined && grid.nx * grid.ny > 4 * COARSE_SIDE * COARSE_SIDE;
     return new Promise<GridPoolResult>((resolve, reject) => {
       this.job = {
         requestId,
-        coarseId: `${requestId}#coarse`,
         spec,
         grid,
-        coarseGrid: wantsCoarse ? { ...grid, nx: COARSE_SIDE, ny: COARSE_SIDE } : null,
         values: new Float64Array(grid.nx * grid.ny),
         nextRow: 0,
         returned: [],
-        coarsePending: wantsCoarse,
+        previewsPending: options.onCoarse ? previewSidesFor(grid.nx, grid.ny) : [],
+        previewShown: 0,
         rowsDone: 0,
         min: Infinity,
         max: -Infinity,
@@ -217,28 +211,26 @@ export class GridPool {
           type: 'band/sample',
           requestId: this.idOf(job, band),
           surface: job.spec,
-          grid: band.coarse ? job.coarseGrid! : job.grid,
+          grid: band.preview ? previewGrid(job.grid, band.preview) : job.grid,
           rows: band.rows,
         });
       }
   }
 
   private idOf(job: Job, band: Band): string {
-    return band.coarse ? job.coarseId : job.requestId;
+    return band.preview ? `${job.requestId}#preview${band.preview}` : job.requestId;
   }
 
-  /** The next band to hand out: the preview first, then returned bands, then a guided share of the rest. */
+  /** The next band to hand out: the previews first (coarsest first), then returned bands, then a guided share of the rest. */
   private nextBand(job: Job): Band | null {
-    if (job.coarsePending) {
-      job.coarsePending = false;
-      return { rows: [0, COARSE_SIDE], coarse: true };
-    }
+    const side = job.previewsPending.shift();
+    if (side) return { rows: [0, side], preview: side };
     const back = job.returned.shift();
     if (back) return back;
     const left = job.grid.ny - job.nextRow;
     if (left <= 0) return null;
     const rows = Math.max(1, Math.ceil((GUIDED_SHARE * left) / this.aliveCount));
-    const band: Band = { rows: [job.nextRow, job.nextRow + rows], coarse: false };
+    const band: Band = { rows: [job.nextRow, job.nextRow + rows], preview: 0 };
     job.nextRow += rows;
     return band;
   }
@@ -252,7 +244,7 @@ export class GridPool {
     const band = member.bands[k];
     switch (msg.type) {
       case 'band/progress':
-        if (k === 0 && !band.coarse) {
+        if (k === 0 && !band.preview) {
           member.rowsDone = msg.rowsDone;
           this.report(job);
         }
@@ -262,8 +254,11 @@ export class GridPool {
       case 'band/result':
         member.bands.splice(k, 1);
         member.rowsDone = 0;
-        if (band.coarse) job.onCoarse?.({ requestId: job.requestId, grid: job.coarseGrid!, values: msg.values, min: msg.min, max: msg.max });
-        else this.store(job, msg.rows, msg.values, msg.min, msg.max);
+        if (!band.preview) this.store(job, msg.rows, msg.values, msg.min, msg.max);
+        else if (band.preview > job.previewShown) {
+          job.previewShown = band.preview;
+          job.onCoarse?.({ requestId: job.requestId, grid: previewGrid(job.grid, band.preview), values: msg.values, min: msg.min, max: msg.max });
+        }
         if (this.job !== job) return; // the preview callback may have started a new request
         if (job.rowsDone === job.grid.ny) this.finish(job);
         else {
@@ -282,7 +277,7 @@ export class GridPool {
 
   private report(job: Job): void {
     let rows = job.rowsDone;
-    for (const m of this.members) if (m.bands.length > 0 && !m.bands[0].coarse) rows += m.rowsDone;
+    for (const m of this.members) if (m.bands.length > 0 && !m.bands[0].preview) rows += m.rowsDone;
     const fraction = Math.min(1, rows / job.grid.ny);
     if (fraction > job.reported) {
       job.reported = fraction;
@@ -325,14 +320,19 @@ export class GridPool {
     const job = this.job;
     if (!job) return;
     for (const band of member.bands) {
-      if (band.coarse) job.coarsePending = true;
-      else job.returned.push(band);
+      if (!band.preview) job.returned.push(band);
+      else if (band.preview > job.previewShown) job.previewsPending.push(band.preview);
     }
+    job.previewsPending.sort((a, b) => a - b);
     member.bands = [];
     member.rowsDone = 0;
     if (this.aliveCount === 0) this.fail(job, `grid pool: every worker has failed (last: ${message})`);
     else this.dispatch(job);
   }
+}
+
+function previewGrid(grid: GridRequest, side: number): GridRequest {
+  return { ...grid, nx: side, ny: side };
 }
 
 /** A pool of `size` workers made by `factory` (default size: defaultPoolSize()). */
