@@ -49,7 +49,7 @@ function pngSize(bytes: Buffer) {
 /** Pixels of the PNG decoded in the page, counted in a rectangle (fractions of the image) near a colour. */
 async function colourInRegion(page: Page, bytes: Buffer, region: { x0: number; x1: number; y0: number; y1: number }, rgb: number[], tolerance = 30): Promise<number> {
   return page.evaluate(async ({ b64, region, rgb, tolerance }) => {
-    const blob = await (await fetch(`data:image/png;base64,${b64}`)).blob();
+    const blob = new Blob([Uint8Array.from(atob(b64), (ch) => ch.charCodeAt(0))], { type: 'image/png' });
     const image = await createImageBitmap(blob);
     const c = new OffscreenCanvas(image.width, image.height);
     const ctx = c.getContext('2d')!;
@@ -119,7 +119,7 @@ test.describe('figure exports', () => {
         URL.revokeObjectURL(url);
         return ctx.getImageData(0, 0, 800, 520).data;
       };
-      const a = await draw(await (await fetch(`data:image/png;base64,${png64}`)).blob());
+      const a = await draw(new Blob([Uint8Array.from(atob(png64), (ch) => ch.charCodeAt(0))], { type: 'image/png' }));
       const b = await draw(new Blob([svgText], { type: 'image/svg+xml' }));
       let n = 0;
       for (let k = 0; k < a.length; k += 4) if (Math.max(Math.abs(a[k] - b[k]), Math.abs(a[k + 1] - b[k + 1]), Math.abs(a[k + 2] - b[k + 2])) > 64) n++;
@@ -145,6 +145,8 @@ test.describe('figure exports', () => {
     await page.getByRole('tab', { name: 'Optimizer × learning rate' }).click();
     await page.getByRole('button', { name: /^Build table runs/ }).click();
     await expect(page.getByTestId('panel-grid').getByTestId('surface-base').first()).toHaveAttribute('data-drawn', 'contours', { timeout: 15_000 });
+    // The table's panels have their own frame size, so the grid is sampled again: wait until it is in.
+    await expect(page.getByRole('progressbar', { name: 'Sampling the surface' })).toHaveCount(0, { timeout: 30_000 });
     const table = await readSvg(page, await downloadOf(page, 'View SVG'));
     expect(table.error).toBeNull();
     const t = texts(table);
@@ -242,7 +244,7 @@ test.describe('figure exports', () => {
     const png = await downloadOf(page, 'Start-point map PNG');
     // The four basin swatches of the key: at least four distinct saturated hues right of the map.
     const hues = await page.evaluate(async (b64) => {
-      const image = await createImageBitmap(await (await fetch(`data:image/png;base64,${b64}`)).blob());
+      const image = await createImageBitmap(new Blob([Uint8Array.from(atob(b64), (ch) => ch.charCodeAt(0))], { type: 'image/png' }));
       const c = new OffscreenCanvas(image.width, image.height);
       const ctx = c.getContext('2d')!;
       ctx.drawImage(image, 0, 0);
