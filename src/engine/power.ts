@@ -64,3 +64,40 @@ export function biasCorrection(beta: number): (t: number) => number {
     return 1 - result;
   };
 }
+
+/** The squares a^(2^k), k < 32, of the last few bases `cachedPower` saw (rules alternate beta1 and beta2). */
+const SQUARE_SLOTS = 4;
+const slotBases: number[] = [];
+const slotSquares: Float64Array[] = [];
+let nextSlot = 0;
+
+function squaresOf(a: number): Float64Array {
+  for (let i = 0; i < slotBases.length; i++) if (Object.is(slotBases[i], a)) return slotSquares[i];
+  const squares = new Float64Array(32);
+  let base = a;
+  for (let k = 0; k < 32; k++) {
+    squares[k] = base;
+    base *= base;
+  }
+  slotBases[nextSlot] = a;
+  slotSquares[nextSlot] = squares;
+  nextSlot = (nextSlot + 1) % SQUARE_SLOTS;
+  return squares;
+}
+
+/**
+ * `power(a, b)`, the same double for every a and b, faster when the same few bases are raised to many
+ * whole exponents (an update rule's beta^t each step): the repeated squares of a are kept, so a call
+ * only multiplies those for b's set bits, lowest first, as `power` does. Other exponents go to `power`.
+ */
+export function cachedPower(a: number, b: number): number {
+  if (!(Number.isInteger(b) && b >= 1 && b <= MAX_INTEGER_EXPONENT)) return power(a, b);
+  const squares = squaresOf(a);
+  let n = b >>> 0;
+  let result = 1;
+  while (n !== 0) {
+    result *= squares[31 - Math.clz32(n & -n)];
+    n &= n - 1;
+  }
+  return result;
+}

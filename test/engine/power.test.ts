@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { biasCorrection, power } from '../../src/engine/power';
+import { biasCorrection, cachedPower, power } from '../../src/engine/power';
 
 describe('power: whole exponents by products only (the same double in every engine)', () => {
   it.each([
@@ -49,5 +49,18 @@ describe('biasCorrection: 1 - power(beta, t) with the squares made once', () => 
     expect(1 - power(0.9, 511)).toBe(1); // already 1 before the saturation point: the shortcut only skips work
     expect(power(0.9, 512)).toBeLessThanOrEqual(2 ** -54);
     for (const t of [2 ** 20, 2 ** 31, 2 ** 31 + 1, 2.5, 0, -3]) expect(Object.is(correction(t), 1 - power(0.9, t))).toBe(true);
+  });
+});
+
+describe('cachedPower: power with the squares of recent bases kept', () => {
+  it('gives the same double as power for every base and exponent, several bases interleaved', () => {
+    const bases = [0.9, 0.999, -0.5, -0, 0, 1, -1, 2, 1e-3, 1.0001, Number.NaN, Infinity, -Infinity, 1e200, 0.5, 0.25, 3];
+    const exponents = [0, 1, 2, 3, 7, 64, 1000, 65_535, 65_536, 200_001, 2 ** 31, 2 ** 31 + 1, -1, -3, 0.5, 2.5, -0, Number.NaN, Infinity];
+    for (const b of exponents) for (const a of bases) expect(Object.is(cachedPower(a, b), power(a, b))).toBe(true);
+    // Step by step, two bases alternating as a rule's bias corrections do.
+    for (let t = 1; t <= 5000; t++) {
+      expect(Object.is(cachedPower(0.9, t), power(0.9, t))).toBe(true);
+      expect(Object.is(cachedPower(0.999, t), power(0.999, t))).toBe(true);
+    }
   });
 });
