@@ -4,7 +4,7 @@ import { slicePlane, slicePoint } from '../../store/slice-plane';
 import { reportedUnits } from '../../store/units';
 import { axisTitles } from './axis-titles';
 import { gradientArrows, panBy, zoomAt, type Arrow } from '../plot';
-import { ARROW_SPACING, COMPACT_ARROW_SPACING } from './plane-arrows';
+import { ARROW_SPACING, COMPACT_ARROW_SPACING, gradientInPlane } from './plane-arrows';
 import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
 import { canvasToFrame, frameLayout, frameTransform, insideFrame, roundToView } from './frame';
 import { useSurfacePicture } from './picture';
@@ -86,13 +86,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     return gradientArrows(() => {
       const g = probed.gradients.subarray(k * n, (k + 1) * n);
       k++;
-      let da = 0;
-      let db = 0;
-      for (let q = 0; q < n; q++) {
-        da += plane.u[q] * g[q];
-        db += plane.v[q] * g[q];
-      }
-      return { da, db };
+      return gradientInPlane(plane, g);
     }, arrowLattice.t, arrowLattice.spacing);
   }, [arrowLattice, probed, slice, n]);
 

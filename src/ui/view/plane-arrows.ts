@@ -17,12 +17,17 @@ export function planeArrows(surface: Surface, slice: SliceSettings, transform: V
   const g = new Float64Array(n);
   return gradientArrows((p) => {
     surface.valueGradient(slicePoint(slice, n, p.a, p.b), g);
-    let da = 0;
-    let db = 0;
-    for (let k = 0; k < n; k++) {
-      da += plane.u[k] * g[k];
-      db += plane.v[k] * g[k];
-    }
-    return { da, db };
+    return gradientInPlane(plane, g);
   }, transform, spacingPx);
+}
+
+/** A gradient restricted to the slice plane: (u . g, v . g). */
+export function gradientInPlane(plane: { u: ArrayLike<number>; v: ArrayLike<number> }, g: ArrayLike<number>): { da: number; db: number } {
+  let da = 0;
+  let db = 0;
+  for (let k = 0; k < g.length; k++) {
+    da += plane.u[k] * g[k];
+    db += plane.v[k] * g[k];
+  }
+  return { da, db };
 }
