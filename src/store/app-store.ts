@@ -14,6 +14,7 @@ import { curvatureAt, rateFamily, switchedOptimizer } from './suggest-rate';
 import { mainThreadSurface } from './surface-cache';
 import { slicePlane } from './slice-plane';
 import { equalScaleOn, shownView, type FrameSize } from './equal-scale';
+import { createHoverStore, type HoverState } from './hover-store';
 import type { DisplaySettings, PanelSettings, RunConfig, SliceSettings, Workspace } from './workspace';
 
 /** The surface grid as last received from the worker. */
@@ -44,8 +45,6 @@ export interface AppState extends Workspace {
   selectedRunId: string | null;
   /** Whether a click on the surface sets the start of every run or only of the selected one. */
   startTarget: 'all' | 'selected';
-  /** The slice point under the pointer, shared by every panel (linked hover). */
-  hover: { a: number; b: number } | null;
   /** The map's plot frame in CSS pixels, once measured (the grid covers the box shown on it); not saved. */
   frame: FrameSize | null;
   /** The results table's chosen columns (null: the defaults for the surface) and sort; not saved. */
@@ -114,6 +113,8 @@ export interface AppActions {
 
 export interface AppStore {
   store: StoreApi<AppState>;
+  /** The point under the pointer (hover-store.ts), apart from the rest so pointer moves re-render no panel. */
+  hover: StoreApi<HoverState>;
   live: LiveRuns;
   workspaceOf(state: AppState): Workspace;
 }
@@ -150,6 +151,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     start = demoWorkspace();
   }
   let store!: StoreApi<AppState>;
+  const hover = createHoverStore();
   const live = new LiveRuns(link, requestFrame, (changed) => {
     store.setState((s) => {
       const status = { ...s.status };
@@ -358,8 +360,8 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       clearTimeout(gridTimer);
       gridTimer = setTimeout(requestGrid, GRID_SETTLE_MS);
     },
-    setHover(hover) {
-      set({ hover });
+    setHover(point) {
+      hover.setState({ hover: point });
     },
     resetView() {
       const s = get();
@@ -525,14 +527,13 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     status: {},
     selectedRunId: null,
     startTarget: 'all',
-    hover: null,
     frame: null,
     table: { columns: null, sort: null },
     actions,
   }));
   actions.loadWorkspace(start);
 
-  return { store, live, workspaceOf };
+  return { store, hover, live, workspaceOf };
 }
 
 const WORKSPACE_KEYS = ['version', 'title', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace', 'studies'] as const;

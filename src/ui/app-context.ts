@@ -24,6 +24,15 @@ export function useLiveRuns() {
   return useAppStore().live;
 }
 
+/** The point under the pointer (store/hover-store.ts): for the hover readout; canvas loops use useHoverApi. */
+export function useHover(): { a: number; b: number } | null {
+  return useStore(useAppStore().hover, (s) => s.hover);
+}
+
+export function useHoverApi() {
+  return useAppStore().hover;
+}
+
 export function useStoreApi() {
   return useAppStore().store;
 }

@@ -1,13 +1,13 @@
 import type { Surface } from '../../engine';
 import { formatValue } from '../plot';
-import { useApp } from '../app-context';
+import { useApp, useHover } from '../app-context';
 import { slicePoint } from '../../store/slice-plane';
 import { reportedUnits } from '../../store/units';
 import { specKey, useProbe } from './use-probe';
 
 /** Point, loss and gradient norm under the pointer (computed exactly at that point, in the worker). */
 export function HoverReadout({ surface }: { surface: Surface | null }) {
-  const hover = useApp((s) => s.hover);
+  const hover = useHover();
   const slice = useApp((s) => s.slice);
   const variables = useApp((s) => s.surfaceInfo.variables);
   const spec = useApp((s) => s.surface);

@@ -5,7 +5,7 @@ import { reportedUnits } from '../../store/units';
 import { axisTitles } from './axis-titles';
 import { gradientArrows, panBy, zoomAt, type Arrow } from '../plot';
 import { ARROW_SPACING, COMPACT_ARROW_SPACING, gradientInPlane } from './plane-arrows';
-import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
+import { useActions, useApp, useHoverApi, useLiveRuns, useStoreApi } from '../app-context';
 import { canvasToFrame, frameLayout, frameTransform, insideFrame, roundToView } from './frame';
 import { useSurfacePicture } from './picture';
 import { drawBase, drawOverlay } from './scene';
@@ -40,8 +40,15 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const actions = useActions();
   const live = useLiveRuns();
   const storeApi = useStoreApi();
+  const hoverApi = useHoverApi();
   const boxRef = useRef<HTMLDivElement>(null);
   const baseRef = useRef<HTMLCanvasElement>(null);
+  // Renders of this view, on the base canvas for the browser tests (a pointer move must add none).
+  const renders = useRef(0);
+  useEffect(() => {
+    renders.current += 1;
+    if (baseRef.current) baseRef.current.dataset.renders = String(renders.current);
+  });
   const overlayRef = useRef<HTMLCanvasElement>(null);
   const size = useElementSize(boxRef);
   const askedView = useApp((s) => s.view);
@@ -51,7 +58,6 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const slice = useApp((s) => s.slice);
   const runs = useApp((s) => s.runs);
   const selected = useApp((s) => s.selectedRunId);
-  const hover = useApp((s) => s.hover);
   const surfaceSpec = useApp((s) => s.surface);
   const surface = useMainThreadSurface(surfaceSpec);
   const layout = useMemo(() => (size ? frameLayout(size, !compact) : null), [size, compact]);
@@ -111,30 +117,35 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   }, [layout, picture, view, titles.a, titles.b, knownPoints, arrows, title]);
 
   // Overlay layer: once per animation frame, only when something changed.
-  const overlayInput = useRef({ view, runs, selected, hover, slice, runIds, layout });
-  overlayInput.current = { view, runs, selected, hover, slice, runIds, layout };
+  // The pointer's point comes from the hover store, read here in the loop: a pointer move redraws this
+  // canvas on the next frame without re-rendering the component.
+  const overlayInput = useRef({ view, runs, selected, slice, runIds, layout });
+  overlayInput.current = { view, runs, selected, slice, runIds, layout };
   useEffect(() => {
     let frame = 0;
     let drawnVersion = -1;
     let drawnInput: unknown = null;
+    let drawnHover: unknown = null;
     const tick = () => {
       frame = requestAnimationFrame(tick);
       const input = overlayInput.current;
+      const hover = hoverApi.getState().hover;
       const canvas = overlayRef.current;
       if (!canvas || !input.layout) return;
-      if (drawnVersion === live.version && drawnInput === input) return;
+      if (drawnVersion === live.version && drawnInput === input && drawnHover === hover) return;
       drawnVersion = live.version;
       drawnInput = input;
+      drawnHover = hover;
       const ctx = prepareCanvas(canvas, input.layout.canvas);
       if (!ctx) return;
       ctx.clearRect(0, 0, input.layout.canvas.width, input.layout.canvas.height);
       const trajectories = trajectoryItems(storeApi.getState(), live, input.runIds);
-      drawOverlay(ctx, { layout: input.layout, view: input.view, trajectories, hover: input.hover });
+      drawOverlay(ctx, { layout: input.layout, view: input.view, trajectories, hover });
       canvas.dataset.trajectories = String(trajectories.length);
     };
     frame = requestAnimationFrame(tick);
     return () => cancelAnimationFrame(frame);
-  }, [live, storeApi]);
+  }, [live, storeApi, hoverApi]);
 
   // Interaction.
   const drag = useRef<{ x: number; y: number; moved: boolean } | null>(null);
