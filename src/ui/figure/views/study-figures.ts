@@ -9,7 +9,8 @@ import type { StudyCellsState } from '../../../store/study-store';
 import type { LossAxis } from '../../chart/loss-chart';
 import { AXES_MARGIN, drawAxes, viewTransform, type AxisLabels, type PixelSize } from '../../plot';
 import type { ViewBox } from '../../../engine';
-import { drawBandChart, BAND_CHART_STYLE } from '../../study/band-chart';
+import { drawBandChart } from '../../study/band-chart';
+import { BAND_STYLE } from '../../chart/loss-chart';
 import { CRITICAL_GLYPHS, drawCriticalPoints, glyphOf } from '../../study/critical-chart';
 import { paintStartMap, type LegendRow } from '../../study/paint-map';
 import { drawRateChart, type RateCurve } from '../../study/rate-chart';
@@ -83,8 +84,8 @@ export function multiStartFigure(m: MultiStartFigureInput): Figure {
   return {
     title: `Multi-start of “${m.configLabel}” on ${m.surfaceLabel}: loss across ${m.count} starts`,
     key: [
-      { kind: 'line', colour: BAND_CHART_STYLE.median, label: 'median across starts' },
-      { kind: 'band', colour: BAND_CHART_STYLE.fill, label: '25–75% of the starts' },
+      { kind: 'line', colour: BAND_STYLE.median, dash: [...BAND_STYLE.medianDash], label: 'median across starts' },
+      { kind: 'band', colour: BAND_STYLE.fill, label: '25–75% of the starts' },
       ...m.summary.map((label) => ({ kind: 'note' as const, label })),
     ],
     drawBody: (ctx, size) => drawBandChart(ctx, size, m.bands, m.axis),
