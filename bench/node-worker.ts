@@ -1,10 +1,6 @@
-import { resolve } from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { build } from 'vite';
+import { bundleForNode } from './bundle';
 import type { WorkerLike } from '../src/client/grid-pool';
-
-const CACHE = resolve(process.cwd(), 'bench/.cache');
-const ENTRY = 'pool-thread.mjs';
 
 /**
  * Bundles bench/pool-thread.ts and everything it imports (our TypeScript sources and any package) into
@@ -12,21 +8,7 @@ const ENTRY = 'pool-thread.mjs';
  * load it. Returns the bundle's path.
  */
 export async function buildPoolThread(): Promise<string> {
-  await build({
-    configFile: false,
-    root: process.cwd(),
-    logLevel: 'warn',
-    ssr: { noExternal: true },
-    build: {
-      ssr: resolve(process.cwd(), 'bench/pool-thread.ts'),
-      outDir: CACHE,
-      emptyOutDir: true,
-      minify: false,
-      target: 'node20',
-      rolldownOptions: { output: { format: 'es', entryFileNames: ENTRY } },
-    },
-  });
-  return resolve(CACHE, ENTRY);
+  return bundleForNode('bench/pool-thread.ts', 'bench/.cache', 'pool-thread.mjs');
 }
 
 /** A Node worker thread as the pool's WorkerLike. */

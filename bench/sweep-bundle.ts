@@ -1,10 +1,6 @@
-import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { build } from 'vite';
+import { bundleForNode } from './bundle';
 import type { sweepBench } from './sweep';
-
-const OUT = resolve(process.cwd(), 'bench/.cache/sweep');
-const ENTRY = 'sweep-bench.mjs';
 
 /**
  * Runs bench/sweep.ts bundled into one ES module (Vite's build API in SSR mode, as the pool's thread
@@ -13,20 +9,7 @@ const ENTRY = 'sweep-bench.mjs';
  * its own work. The hand-written loop is in the same bundle, so both sides are measured alike.
  */
 export async function bundledSweepBench(): Promise<ReturnType<typeof sweepBench>> {
-  await build({
-    configFile: false,
-    root: process.cwd(),
-    logLevel: 'warn',
-    ssr: { noExternal: true },
-    build: {
-      ssr: resolve(process.cwd(), 'bench/sweep.ts'),
-      outDir: OUT,
-      emptyOutDir: true,
-      minify: false,
-      target: 'node20',
-      rolldownOptions: { output: { format: 'es', entryFileNames: ENTRY } },
-    },
-  });
-  const mod = (await import(/* @vite-ignore */ pathToFileURL(resolve(OUT, ENTRY)).href)) as { sweepBench: typeof sweepBench };
+  const path = await bundleForNode('bench/sweep.ts', 'bench/.cache/sweep', 'sweep-bench.mjs');
+  const mod = (await import(/* @vite-ignore */ pathToFileURL(path).href)) as { sweepBench: typeof sweepBench };
   return mod.sweepBench();
 }
