@@ -146,6 +146,9 @@ test.describe('figure exports', () => {
     await page.getByRole('button', { name: /^Build table runs/ }).click();
     await expect(page.getByTestId('panel-grid').getByTestId('surface-base').first()).toHaveAttribute('data-drawn', 'contours', { timeout: 15_000 });
     // The table's panels have their own frame size, so the grid is sampled again: wait until it is in.
+    // (The progress bar may not be up yet when this first looks, so the page's own colour bar is awaited too.)
+    await expect(page.getByRole('progressbar', { name: 'Sampling the surface' })).toHaveCount(0, { timeout: 30_000 });
+    await expect(page.getByTestId('panel-colour-bar')).toHaveAttribute('data-drawn', 'legend', { timeout: 30_000 });
     await expect(page.getByRole('progressbar', { name: 'Sampling the surface' })).toHaveCount(0, { timeout: 30_000 });
     const table = await readSvg(page, await downloadOf(page, 'View SVG'));
     expect(table.error).toBeNull();

@@ -12,7 +12,7 @@
  * a run label) is written '-1.5. Header cells are text and follow the same rule. Neutralising happens
  * before quoting, so "=1,2" becomes "'=1,2" (quoted for its comma).
  */
-import { outcomeDetail, type RunOutcome, type TrajectoryBatch } from '../engine';
+import { outcomeDetail, stepOfRow, type RunOutcome, type TrajectoryBatch } from '../engine';
 
 export type CsvCell = string | number | null | undefined;
 
@@ -47,7 +47,7 @@ export interface TrajectoryExportRun {
   learningRate: number;
   /** Names of the coordinates, one per dimension of the batch. */
   variables: readonly string[];
-  batch: Pick<TrajectoryBatch, 'count' | 'dimension' | 'points' | 'loss' | 'gradNorm' | 'learningRate' | 'firstStep'>;
+  batch: Pick<TrajectoryBatch, 'count' | 'dimension' | 'points' | 'loss' | 'gradNorm' | 'learningRate' | 'firstStep' | 'steps'>;
 }
 
 export const TRAJECTORY_FIXED_COLUMNS = ['run_id', 'run_label', 'optimizer', 'learning_rate', 'step'] as const;
@@ -59,7 +59,8 @@ export const TRAJECTORY_VALUE_COLUMNS = ['loss', 'grad_norm', 'step_learning_rat
  *   run_label           the run's label as the user typed it
  *   optimizer           optimizer name
  *   learning_rate       the run's base learning rate
- *   step                step number (0 = the start point)
+ *   step                step number (0 = the start point); a page run of more steps than its buffer
+ *                       keeps (store/trajectory-buffer.ts) has rows only at every k-th step, and its last
  *   <variable> ...      one column per coordinate, named by the variable; when runs have different
  *                       variables, the union in first-seen order, empty where a run has no such
  *                       variable (a variable named like a fixed column gets the prefix "coord_")
@@ -77,7 +78,7 @@ export function trajectoryCsv(runs: readonly TrajectoryExportRun[]): string {
       throw new Error(`csv: run "${run.id}" names ${run.variables.length} variables but its points have ${b.dimension} coordinates`);
     const column = variables.map((v) => run.variables.indexOf(v));
     for (let k = 0; k < b.count; k++) {
-      const step = b.firstStep + k;
+      const step = stepOfRow(b, k);
       const coords = column.map((c) => (c < 0 ? null : b.points[k * b.dimension + c]));
       rows.push([run.id, run.label, run.optimizer, run.learningRate, step, ...coords, b.loss[k], b.gradNorm[k], step === 0 ? null : b.learningRate[k]]);
     }

@@ -77,7 +77,8 @@ export function resultsCsvOf(
       // In reported units the distance is measured again there (a standardised surface's own distance differs).
       distanceToNearestMinimum: !near || !minimum ? null : units.standardised && finalPoint.length ? Math.hypot(...finalPoint.map((v, k) => v - minimum[k])) : near.distance,
       nearestMinimum: minimum ? `(${minimum.map(formatValue).join(', ')})` : null,
-      stepsToTolerance: sum?.stepsToTolerance ?? null,
+      // A bound (see RunSummary) is not the first step, so the column is left empty.
+      stepsToTolerance: sum?.stepsToToleranceIsBound ? null : sum?.stepsToTolerance ?? null,
     };
   });
   return runTableCsv(rows);

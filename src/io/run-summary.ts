@@ -1,4 +1,4 @@
-import type { RunOutcome, TrajectoryBatch } from '../engine';
+import { stepOfRow, type RunOutcome, type TrajectoryBatch } from '../engine';
 
 /** A known stationary point the summary can measure distance to (minima of the catalogue surfaces). */
 export interface ReferenceMinimum {
@@ -20,6 +20,11 @@ export interface RunSummary {
    * (loss - f_min <= tolerance); null while not reached or without reference minima.
    */
   stepsToTolerance: number | null;
+  /**
+   * Set when stepsToTolerance is only an upper bound: the tolerance changed after the run, and the
+   * page had kept only every k-th step of it (store/trajectory-buffer.ts).
+   */
+  stepsToToleranceIsBound?: true;
 }
 
 export function emptySummary(): RunSummary {
@@ -42,11 +47,11 @@ export function updateSummary(
   for (let k = 0; k < batch.count; k++) {
     const f = batch.loss[k];
     if (Number.isFinite(f) && !(f >= best)) best = f; // also replaces the initial NaN
-    if (reached === null && target !== null && f - target <= tolerance) reached = batch.firstStep + k;
+    if (reached === null && target !== null && f - target <= tolerance) reached = stepOfRow(batch, k);
   }
   const finalPoint = Array.from(batch.points.subarray(last * n, (last + 1) * n));
   return {
-    steps: batch.firstStep + last,
+    steps: stepOfRow(batch, last),
     finalLoss: batch.loss[last],
     finalPoint,
     bestLoss: best,
@@ -62,6 +67,26 @@ export function stepsToTolerance(loss: ArrayLike<number>, count: number, minima:
   if (target === null) return null;
   for (let k = 0; k < count; k++) if (loss[k] - target <= tolerance) return k;
   return null;
+}
+
+/**
+ * A summary for new reference minima or a new tolerance, from the summary folded over the full stream
+ * and the trajectory's kept rows. Where the rows skip steps, the first kept row within tolerance only
+ * bounds the first such step from above, and so does the last step when only the (exact) best loss
+ * says the tolerance was met: the result is then marked as a bound.
+ */
+export function resummarise(previous: RunSummary, kept: TrajectoryBatch, minima: readonly ReferenceMinimum[], tolerance: number): RunSummary {
+  const nearestMinimum = previous.finalPoint.length ? nearest(previous.finalPoint, minima) : null;
+  const { stepsToToleranceIsBound: _, ...rest } = previous;
+  const target = lowestValue(minima);
+  if (target === null || !(previous.bestLoss - target <= tolerance)) return { ...rest, nearestMinimum, stepsToTolerance: null };
+  const row = stepsToTolerance(kept.loss, kept.count, minima, tolerance);
+  if (row !== null) {
+    const step = stepOfRow(kept, row);
+    const exact = row === 0 || stepOfRow(kept, row - 1) === step - 1;
+    return { ...rest, nearestMinimum, stepsToTolerance: step, ...(exact ? {} : { stepsToToleranceIsBound: true as const }) };
+  }
+  return { ...rest, nearestMinimum, stepsToTolerance: previous.steps, stepsToToleranceIsBound: true };
 }
 
 function lowestValue(minima: readonly ReferenceMinimum[]): number | null {

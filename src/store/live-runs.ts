@@ -2,7 +2,7 @@ import type { TrajectoryBatch } from '../engine';
 import type { FromWorker, RunControl, RunSpec } from '../protocol';
 import type { EngineLink } from './engine-link';
 import { freshId } from './ids';
-import { emptySummary, stepsToTolerance, updateSummary, type ReferenceMinimum, type RunSummary } from './run-summary';
+import { emptySummary, resummarise, updateSummary, type ReferenceMinimum, type RunSummary } from './run-summary';
 import { TrajectoryBuffer, upfrontCapacity } from './trajectory-buffer';
 
 export type RunPhase = 'running' | 'paused' | 'ended' | 'error';
@@ -98,10 +98,7 @@ export class LiveRuns {
     this.minima = minima;
     this.tolerance = tolerance;
     for (const [configId, live] of this.byConfig) {
-      const batch = live.buffer.asBatch();
-      const summary = updateSummary(emptySummary(), { ...batch, outcome: live.status.summary.outcome }, minima, tolerance);
-      summary.stepsToTolerance = stepsToTolerance(batch.loss, batch.count, minima, tolerance);
-      live.status = { ...live.status, summary };
+      live.status = { ...live.status, summary: resummarise(live.status.summary, live.buffer.asBatch(), minima, tolerance) };
       this.touch(configId);
     }
   }

@@ -12,7 +12,7 @@ export {
   type RunSettings,
   type StopRules,
 } from './settings';
-export { allocateBatch, concatBatches, trimBatch, type TrajectoryBatch } from './trajectory';
+export { allocateBatch, concatBatches, stepOfRow, trimBatch, type TrajectoryBatch } from './trajectory';
 export { movingAway, nextCalmSteps, pointFinding, pointFindingAt, pointOutcome, progressTrigger, startOutcome, type PointFinding } from './checks';
 export { addNoise, countingSurface, noisyOracle } from './oracle';
 export { createRecentPath, recordRecent, recordRecentAt, MILESTONES, RECENT_POINTS, type RecentPath } from './recent';

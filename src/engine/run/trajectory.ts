@@ -16,6 +16,16 @@ export interface TrajectoryBatch {
   learningRate: Float64Array;
   /** Set on the batch in which the run ended. */
   outcome: RunOutcome | null;
+  /**
+   * Step number of each row, where rows are not consecutive steps (the page keeps every k-th step of
+   * a very long run, see store/trajectory-buffer.ts); absent, row k is step firstStep + k.
+   */
+  steps?: Float64Array;
+}
+
+/** The step number row `k` of a batch describes. */
+export function stepOfRow(b: Pick<TrajectoryBatch, 'firstStep' | 'steps'>, k: number): number {
+  return b.steps ? b.steps[k] : b.firstStep + k;
 }
 
 export function allocateBatch(firstStep: number, capacity: number, dimension: number): TrajectoryBatch {

@@ -33,7 +33,7 @@ export function ProfileChart() {
     setError(null);
     try {
       const p = await actions.sampleProfile(Array.from(buffer.point(0)), Array.from(buffer.point(buffer.count - 1)));
-      setProfile({ ...p, label: `${run.label}, start to step ${buffer.count - 1}` });
+      setProfile({ ...p, label: `${run.label}, start to step ${buffer.stepOf(buffer.count - 1)}` });
     } catch (e) {
       setError(e instanceof Error ? e.message : String(e));
     }

@@ -10,6 +10,8 @@ import { beginChart, canvasFont, drawMarker, drawVerticalTitle, formatValue, nic
 export interface LossSeries {
   loss: Float64Array;
   count: number;
+  /** Step number of each row, where rows skip steps (a thinned page buffer); absent, row k is step k. */
+  steps?: Float64Array;
   style: RunStyle;
   label: string;
 }
@@ -71,7 +73,10 @@ export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: read
     lo = Math.min(lo, a);
     hi = Math.max(hi, b);
   };
-  for (const s of series) include(s.loss, s.count);
+  for (const s of series) {
+    include(s.loss, s.count);
+    if (s.steps && s.count) maxStep = Math.max(maxStep, s.steps[s.count - 1]);
+  }
   for (const q of band?.quantiles ?? []) include(q, q.length);
   if (!Number.isFinite(lo)) [lo, hi] = axis.kind === 'linear' ? [0, 1] : [1e-3, 1];
   if (hi <= lo) hi = axis.kind === 'linear' ? lo + 1 : lo * 10;
@@ -115,6 +120,7 @@ export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: read
   ctx.clip();
   if (band) drawBand(ctx, band, axis, x, y, w);
   for (const s of series) {
+    const stepAt = (k: number) => (s.steps ? s.steps[k] : k);
     const stride = Math.max(1, Math.floor(s.count / (2 * w)));
     ctx.beginPath();
     let pen = false;
@@ -124,7 +130,7 @@ export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: read
         pen = false;
         continue;
       }
-      const px = x(k);
+      const px = x(stepAt(k));
       const py = Math.max(-1e4, Math.min(1e4, y(v)));
       if (pen) ctx.lineTo(px, py);
       else ctx.moveTo(px, py);
@@ -138,7 +144,7 @@ export function drawLossChart(ctx: DrawingContext, size: PixelSize, series: read
     const every = Math.max(1, Math.ceil(s.count / 8));
     for (let k = 0; k < s.count; k += every) {
       const v = axisValue(axis, s.loss[k]);
-      if (Number.isFinite(v) && (axis.kind === 'linear' || v > 0)) drawMarker(ctx, s.style.marker, { px: x(k), py: y(v) }, 7, { fill: s.style.colour, outline: s.style.halo, outlineWidth: 1 });
+      if (Number.isFinite(v) && (axis.kind === 'linear' || v > 0)) drawMarker(ctx, s.style.marker, { px: x(stepAt(k)), py: y(v) }, 7, { fill: s.style.colour, outline: s.style.halo, outlineWidth: 1 });
     }
   }
   ctx.restore();
@@ -188,7 +194,7 @@ export function lossSeriesOf(runs: readonly { id: string; hidden?: boolean; styl
   const series: LossSeries[] = [];
   for (const r of runs) {
     const b = live.trajectory(r.id);
-    if (!r.hidden && b && b.count) series.push({ loss: b.loss, count: b.count, style: runStyle(r.style), label: r.label });
+    if (!r.hidden && b && b.count) series.push({ loss: b.loss, count: b.count, ...(b.keepEvery > 1 ? { steps: b.steps } : {}), style: runStyle(r.style), label: r.label });
   }
   return series;
 }

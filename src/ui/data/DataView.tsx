@@ -63,7 +63,7 @@ export function DataView({ spec }: { spec: DataFitSpec }) {
       // picture waits for the worker's predictions.
       if (changed) {
         shownFor = [live.version, input.current];
-        setShown(x && run && buffer ? { params: Array.from(x), step: buffer.count - 1, label: run.label } : null);
+        setShown(x && run && buffer ? { params: Array.from(x), step: buffer.stepOf(buffer.count - 1), label: run.label } : null);
       }
       if (inFlight || performance.now() - lastAsk < PREDICT_INTERVAL_MS) return;
       asked = [live.version, input.current];

@@ -11,8 +11,8 @@ export interface FigureExportProps {
   fileName: string;
   /** The on-screen size of the view (the default figure size). */
   screenSize: () => PixelSize | null;
-  /** The figure as the view shows it now, or null when there is nothing to export yet. */
-  figure: () => Figure | null;
+  /** The figure as the view shows it now (once what it draws is ready), or null when there is nothing to export yet. */
+  figure: () => Figure | null | Promise<Figure | null>;
   disabled?: boolean;
 }
 
@@ -41,7 +41,7 @@ export function FigureExport({ name, fileName, screenSize, figure, disabled }: F
     setProblem(null);
     if (widthValue === null || heightValue === null) return;
     try {
-      const f = figure();
+      const f = await figure();
       if (!f) return setProblem(`${name}: nothing to export yet`);
       const size = { width: widthValue, height: heightValue };
       if (kind === 'png') download(`${fileName}.png`, await figurePng(f, size, ratio));

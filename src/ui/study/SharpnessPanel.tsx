@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import type { OptimizerKind } from '../../engine';
+import { stepOfRow, type OptimizerKind } from '../../engine';
 import { useApp, useLiveRuns } from '../app-context';
 import { drawSharpnessChart } from './sharpness-chart';
 import { useStudyStore } from './study-context';
@@ -53,9 +53,9 @@ export function SharpnessPanel() {
       // 2/lr is the stability line for plain gradient steps (GD and its momentum forms); an adaptive
       // method's learning rate is scaled per coordinate, so the raw Hessian's 2/lr does not apply.
       const stepSize = GRADIENT_STEP_KINDS.has(run.optimizer.kind);
-      const stepsOf = Int32Array.from(rows, (row) => batch.firstStep + row);
+      const stepsOf = Int32Array.from(rows, (row) => stepOfRow(batch, row));
       const limitRows = Array.from(rows).filter((row) => row > 0);
-      const limit = stepSize ? { steps: Int32Array.from(limitRows, (row) => batch.firstStep + row), values: Float64Array.from(limitRows, (row) => 2 / batch.learningRate[row]) } : null;
+      const limit = stepSize ? { steps: Int32Array.from(limitRows, (row) => stepOfRow(batch, row)), values: Float64Array.from(limitRows, (row) => 2 / batch.learningRate[row]) } : null;
       setSample({ runLabel: run.label, steps: stepsOf, values, limit });
     });
   };

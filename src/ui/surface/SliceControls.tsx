@@ -37,7 +37,7 @@ export function SliceControls() {
     if (which === 'known') return known ? { point: known.point, label: 'the known minimum' } : null;
     if (!run || !buffer || buffer.count === 0) return null;
     const k = which === 'start' ? 0 : buffer.count - 1;
-    return { point: Array.from(buffer.point(k)), label: `${run.label} at step ${k}` };
+    return { point: Array.from(buffer.point(k)), label: `${run.label} at step ${buffer.stepOf(k)}` };
   }
 
   function hold(which: Centre) {

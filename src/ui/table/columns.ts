@@ -22,6 +22,8 @@ export interface ResultRow {
   nearestDistance: number | null;
   nearestPoint: number[] | null;
   stepsToTolerance: number | null | 'none';
+  /** stepsToTolerance is an upper bound (see RunSummary). */
+  stepsToToleranceIsBound?: boolean;
   evaluations: number | null;
 }
 
@@ -91,7 +93,7 @@ export function resultColumns(variables: readonly string[]): ResultColumn[] {
       label: 'Reached at',
       title: 'First step whose loss came within the tolerance of the lowest known minimum',
       value: (r) => (typeof r.stepsToTolerance === 'number' ? r.stepsToTolerance : null),
-      text: (r) => (r.stepsToTolerance === 'none' ? 'no known min.' : r.stepsToTolerance === null ? 'not yet' : String(r.stepsToTolerance)),
+      text: (r) => (r.stepsToTolerance === 'none' ? 'no known min.' : r.stepsToTolerance === null ? 'not yet' : `${r.stepsToToleranceIsBound ? '≤ ' : ''}${r.stepsToTolerance}`),
       numeric: true,
     },
     { id: 'evaluations', label: 'Evals', title: 'Surface evaluations, line searches included', value: (r) => r.evaluations, text: (r) => (r.evaluations === null ? '—' : String(r.evaluations)), numeric: true },

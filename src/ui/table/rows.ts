@@ -34,6 +34,7 @@ export function resultRows(s: Pick<AppState, 'runs' | 'status' | 'surfaceInfo'>,
       nearestDistance,
       nearestPoint,
       stepsToTolerance: !hasGlobal ? 'none' : sum?.stepsToTolerance ?? null,
+      stepsToToleranceIsBound: sum?.stepsToToleranceIsBound ?? false,
       evaluations: st?.evaluations ?? null,
     };
   });

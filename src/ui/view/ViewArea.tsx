@@ -3,7 +3,7 @@ import { OPTIMIZERS, type OptimizerKind } from '../../engine';
 import type { PanelMode } from '../../store/workspace';
 import { useActions, useApp, useLiveRuns, useStoreApi } from '../app-context';
 import { FigureExport } from '../figure/FigureExport';
-import { mapFigure } from '../figure/views/map-figures';
+import { mapFigureWhenDrawn } from '../figure/views/map-figures';
 import { DisplayControls } from './DisplayControls';
 import { PanelGrid } from './PanelGrid';
 import { SurfaceView } from './SurfaceView';
@@ -35,7 +35,7 @@ export function ViewArea() {
           ))}
         </div>
         <DisplayControls />
-        <FigureExport name="View" fileName={`fall-line-${panels.mode === 'single' ? 'view' : panels.mode === 'per-run' ? 'panels' : 'table'}`} screenSize={() => size} figure={() => mapFigure(store.getState(), live)} />
+        <FigureExport name="View" fileName={`fall-line-${panels.mode === 'single' ? 'view' : panels.mode === 'per-run' ? 'panels' : 'table'}`} screenSize={() => size} figure={() => mapFigureWhenDrawn(store.getState, live)} />
       </div>
       {panels.mode === 'table' && <TableSettings id={id} />}
       <div ref={drawing}>{panels.mode === 'single' ? <SurfaceView /> : <PanelGrid />}</div>

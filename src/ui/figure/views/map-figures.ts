@@ -11,7 +11,7 @@ import { reportedUnits } from '../../../store/units';
 import { canvasFont, drawLegend, ellipsize, PLOT_STYLE, type KnownPointKind, type PixelSize } from '../../plot';
 import { axisTitles } from '../../view/axis-titles';
 import { frameLayout, frameTransform } from '../../view/frame';
-import { cachedPicture } from '../../view/picture';
+import { buildPicture, cachedPicture } from '../../view/picture';
 import { ARROW_SPACING, COMPACT_ARROW_SPACING, planeArrows } from '../../view/plane-arrows';
 import { drawBase, drawOverlay } from '../../view/scene';
 import { knownPointsOnSlice, trajectoryItems } from '../../view/scene-input';
@@ -27,6 +27,17 @@ const ROW_HEAD_COLUMN = 120;
 const PANEL_GAP = 8;
 
 const KNOWN_NAMES: Record<KnownPointKind, string> = { minimum: 'minimum', saddle: 'saddle point', maximum: 'maximum' };
+
+/**
+ * mapFigure once the contours of the grid the view has now are built: the page keeps showing the
+ * previous picture while a new one is contoured, so an export made in that moment would otherwise
+ * lose its contours and colour bar.
+ */
+export async function mapFigureWhenDrawn(state: () => AppState, live: LiveRuns): Promise<Figure> {
+  const s = state();
+  await buildPicture(s.grid, s.display, s.surfaceInfo.logScaleOffset);
+  return mapFigure(state(), live);
+}
 
 export function mapFigure(s: AppState, live: LiveRuns): Figure {
   if (s.panels.mode === 'per-run') return perRunFigure(s, live);
