@@ -5,7 +5,7 @@
  * gradient-descent path on the circular bowl x^2 + y^2 crosses the drawn contours at right angles.
  */
 import { expect, test, type Page } from '@playwright/test';
-import { applyFormula, openFresh, waitForContours } from './helpers';
+import { applyFormula, openFresh, waitForContours, waitForRunsToEnd } from './helpers';
 
 interface Axes {
   frame: { left: number; top: number; width: number; height: number };
@@ -99,6 +99,21 @@ for (const size of SIZES) {
       await fitProbeData(page);
       await expect(page.getByTestId('param-table')).toBeVisible();
       for (const panel of ['.sidebar', '.data-panel', '.profile-panel', '.view-area']) expect(await overflowing(page, panel)).toEqual([]);
+    });
+
+    test('run names are shown whole on the run cards, with every control button on screen', async ({ page }) => {
+      await openFresh(page);
+      await waitForRunsToEnd(page, 3);
+      const labels = page.locator('.run-item .run-label');
+      await expect(labels).toHaveText(['Gradient descent', 'Momentum', 'Adam']);
+      // Not cut short: each name's text fits its box (it was "Gradient…" beside the six buttons).
+      const cut = await labels.evaluateAll((els) => els.filter((e) => e.scrollWidth > e.clientWidth + 1 || e.scrollHeight > e.clientHeight + 1).map((e) => e.textContent));
+      expect(cut).toEqual([]);
+      for (const group of await page.locator('.run-item .run-buttons').all()) {
+        const box = (await group.boundingBox())!;
+        const card = (await group.locator('xpath=ancestor::li[1]').boundingBox())!;
+        expect(box.x + box.width).toBeLessThanOrEqual(card.x + card.width + 0.5);
+      }
     });
 
     test('the data-fit form does not show the test function\'s constants', async ({ page }) => {

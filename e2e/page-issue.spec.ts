@@ -219,7 +219,7 @@ test.describe('issue 10: run cards', () => {
     await page.getByRole('button', { name: 'Resume Gradient descent' }).click();
     await page.getByLabel('Pace').selectOption('max');
     await expect(card.getByTestId('run-progress')).toContainText('step 3000 of 3000', { timeout: 30_000 });
-    // Every control of a run fits on the card's first line, beside its name.
+    // Every control of a run sits on one line (beside the name where both fit), and the card stays compact.
     for (const k of [0, 1, 2]) {
       const item = page.locator('.run-item').nth(k);
       const buttons = item.locator('.run-buttons button');

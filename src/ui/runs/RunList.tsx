@@ -82,7 +82,7 @@ export function RunList() {
               <div className="run-head">
                 <button type="button" className="run-select" aria-pressed={isSelected} onClick={() => actions.selectRun(isSelected ? null : r.id)}>
                   <RunGlyph style={r.style} />
-                  <span className="run-label">{r.label}</span>
+                  <span className="run-label" title={r.label}>{r.label}</span>
                 </button>
                 <div className="run-buttons" role="group" aria-label={`Controls of ${r.label}`}>
                   <IconButton label={`${running ? 'Pause' : 'Resume'} ${r.label}`} symbol={running ? '❚❚' : '▶'} onClick={() => actions.control(r.id, running ? 'pause' : 'resume')} />

@@ -96,8 +96,14 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     }, arrowLattice.t, arrowLattice.spacing);
   }, [arrowLattice, probed, slice, n]);
 
-  // Base layer.
+  // Base layer, drawn in the next animation frame: a commit that mounts a new page (the data-fit
+  // layout) runs its effects in the click's own task, and the canvas's font setter would force the new
+  // page's style and layout there too; in the frame the browser lays the page out once anyway.
   useEffect(() => {
+    const frame = requestAnimationFrame(paintBase);
+    return () => cancelAnimationFrame(frame);
+  }, [layout, picture, view, titles.a, titles.b, knownPoints, arrows, title]);
+  function paintBase() {
     const canvas = baseRef.current;
     if (!canvas || !layout) return;
     const ctx = prepareCanvas(canvas, layout.canvas);
@@ -114,7 +120,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
     canvas.dataset.gridRequest = picture?.requestId ?? '';
     canvas.dataset.gridSide = picture ? String(picture.grid.nx) : '';
     if (picture && performance.getEntriesByName(FIRST_CONTOUR_MARK).length === 0) performance.mark(FIRST_CONTOUR_MARK);
-  }, [layout, picture, view, titles.a, titles.b, knownPoints, arrows, title]);
+  }
 
   // Overlay layer: once per animation frame, only when something changed.
   // The pointer's point comes from the hover store, read here in the loop: a pointer move redraws this
