@@ -1,6 +1,6 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind, type StudySpec, type ViewBox } from '../engine';
-import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
+import { describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import { referenceMinima } from '../io/run-exports';
 import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
 import { GridRequestCancelled } from '../protocol';
@@ -11,7 +11,7 @@ import { LiveRuns, type RunStatus } from './live-runs';
 import { demoWorkspace } from './demo';
 import { newRunConfig, nextStyle, pageDefaultSpec } from './run-configs';
 import { curvatureAt, rateFamily, switchedOptimizer } from './suggest-rate';
-import { mainThreadSurface } from './surface-cache';
+import { buildCheckedSurface, mainThreadSurface } from './surface-cache';
 import { slicePlane } from './slice-plane';
 import { equalScaleOn, shownView, type FrameSize } from './equal-scale';
 import { createHoverStore, type HoverState } from './hover-store';
@@ -579,7 +579,7 @@ function viewFor(view: [number, number][], [i, j]: [number, number]): ViewBox {
  * show, one of fewer than two variables.
  */
 function drawableSurface(spec: SurfaceSpec): SurfaceInfo {
-  buildSurface(spec);
+  buildCheckedSurface(spec);
   const info = describeSurface(spec);
   const n = info.variables.length;
   if (n < 2) {

@@ -21,3 +21,14 @@ export function mainThreadSurface(spec: SurfaceSpec): Surface | null {
   }
   return built.get(spec)!;
 }
+
+/**
+ * Builds a spec's surface, throwing its specific error when it does not build, and keeps it for
+ * mainThreadSurface: the store checks a new spec this way, and the views then reuse the surface instead
+ * of building it a second time (a data-fit network took 10-20 ms each time, in the click's task).
+ */
+export function buildCheckedSurface(spec: SurfaceSpec): Surface {
+  const surface = buildSurface(spec);
+  built.set(spec, surface);
+  return surface;
+}

@@ -8,6 +8,9 @@ import { defaultColumnIds, fullNumber, nextSort, resultColumns, sortRows, tableT
 import { resultRows } from './rows';
 
 /** One row per run: how it ended, how far it got, and how close to a known minimum (original units). */
+/** Final points with at most this many coordinates have every digit in their cell's tooltip. */
+const FULL_POINT_IN_TOOLTIP = 16;
+
 export function RunTable() {
   const actions = useActions();
   const runs = useApp((s) => s.runs);
@@ -114,9 +117,12 @@ export function RunTable() {
                   <RunGlyph style={r.style} /> {r.label}
                 </th>
                 {columns.map((c) => {
-                  const v = c.value(r);
+                  // A network's final point has a thousand coordinates: its every digit is in Copy table
+                  // and the CSV, not in a tooltip rebuilt on every streamed update.
+                  const long = c.id === 'final-point' && r.point.length > FULL_POINT_IN_TOOLTIP;
+                  const v = long ? null : c.value(r);
                   const full = v === null ? undefined : typeof v === 'number' ? fullNumber(v) : v;
-                  const title = c.id === 'outcome' ? r.outcomeTitle : full;
+                  const title = c.id === 'outcome' ? r.outcomeTitle : long ? `${r.point.length} values; Copy table and Results CSV give every digit` : full;
                   return (
                     <td
                       key={c.id}
