@@ -1,3 +1,4 @@
+import type { DataFitSpec } from '../problems';
 import { LossChart } from './chart/LossChart';
 import { ProfileChart } from './chart/ProfileChart';
 import { DataView } from './data/DataView';
@@ -9,6 +10,7 @@ import { StudyArea } from './study/StudyArea';
 import { useActions, useApp } from './app-context';
 import { PanelBoundary } from './PanelBoundary';
 import { noticeMessage } from './messages';
+import { useAfterPaint } from './use-after-paint';
 import { ViewArea } from './view/ViewArea';
 
 export function App() {
@@ -46,16 +48,7 @@ export function App() {
             <PanelBoundary name="The surface view">
               <ViewArea />
             </PanelBoundary>
-            {surface.kind === 'datafit' && (
-              <div className="data-column">
-                <PanelBoundary name="The data view">
-                  <DataView spec={surface} />
-                </PanelBoundary>
-                <PanelBoundary name="The line profile">
-                  <ProfileChart />
-                </PanelBoundary>
-              </div>
-            )}
+            {surface.kind === 'datafit' && <DataColumn spec={surface} />}
           </div>
           <div className="lower">
             <PanelBoundary name="The loss chart">
@@ -75,6 +68,25 @@ export function App() {
           </PanelBoundary>
         </aside>
       </div>
+    </div>
+  );
+}
+
+/** The data view and the line profile beside the map, mounted a task after the column itself (useAfterPaint). */
+function DataColumn({ spec }: { spec: DataFitSpec }) {
+  const ready = useAfterPaint();
+  return (
+    <div className="data-column" aria-busy={!ready}>
+      {ready && (
+        <>
+          <PanelBoundary name="The data view">
+            <DataView spec={spec} />
+          </PanelBoundary>
+          <PanelBoundary name="The line profile">
+            <ProfileChart />
+          </PanelBoundary>
+        </>
+      )}
     </div>
   );
 }
