@@ -2,10 +2,9 @@ import { createStore, type StoreApi } from 'zustand/vanilla';
 import { optimizerLabel, validateOptimizerSpec, type GridRequest, type OptimizerKind, type StudySpec, type ViewBox } from '../engine';
 import { buildSurface, describeSurface, type CsvImport, type SurfaceDescription, type SurfaceSpec } from '../problems';
 import { referenceMinima } from '../io/run-exports';
-import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec, ToWorker } from '../protocol';
-import { GridRequestCancelled } from '../protocol';
-import type { GridPoolResult } from '../client/grid-pool';
+import type { CsvParseOptions, FromWorker, Pace, RunControl, RunSpec } from '../protocol';
 import type { EngineLink } from './engine-link';
+import { createEngineClient, type GridJob, type GridSource } from './engine-client';
 import { freshId } from './ids';
 import { LiveRuns, type RunStatus } from './live-runs';
 import { demoWorkspace } from './demo';
@@ -119,19 +118,7 @@ export interface AppStore {
   workspaceOf(state: AppState): Workspace;
 }
 
-/** Quiet time after a zoom or pan before the grid is sampled again. */
-export const GRID_SETTLE_MS = 80;
-
-/** Where grids are sampled when not by the engine worker itself: the page's worker pool. */
-export interface GridSource {
-  request(
-    requestId: string,
-    spec: SurfaceSpec,
-    grid: GridRequest,
-    onProgress?: (fraction: number) => void,
-    options?: { onCoarse?: (preview: GridPoolResult) => void },
-  ): Promise<GridPoolResult>;
-}
+export { GRID_SETTLE_MS, type GridSource } from './engine-client';
 
 export interface StoreOptions {
   link: EngineLink;
@@ -164,8 +151,28 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   });
 
   const get = () => store.getState();
-  let gridTimer: ReturnType<typeof setTimeout> | undefined;
   const set = (patch: Partial<AppState>) => store.setState(patch);
+
+  const engine = createEngineClient({
+    link,
+    grids,
+    onRun: (msg) => live.handle(msg),
+    onGridStart: (requestId) => set({ grid: { ...get().grid, requestId, phase: 'computing', progress: 0, error: null } }),
+    onGrid: (msg) => {
+      const g = get().grid;
+      if (msg.type === 'grid/progress') return set({ grid: { ...g, progress: msg.rowsDone / msg.rows } });
+      if (msg.type === 'grid/error') return set({ grid: { ...g, phase: 'error', error: msg.message } });
+      const final = msg.stage === 'final';
+      set({ grid: { ...g, phase: final ? 'ready' : 'computing', request: msg.grid, values: msg.values, min: msg.min, max: msg.max, stage: msg.stage, progress: final ? 1 : g.progress } });
+    },
+    // A replaced worker took its runs and pace with it: end them with the reason, resend the pace.
+    onRestart: (reason, message) => {
+      live.workerLost(`${message}: press Restart to run again`);
+      link.send({ type: 'run/pace', pace: get().pace });
+      set({ notice: `The engine worker ${reason}. It was restarted; runs that were in progress were stopped (Restart runs them again).` });
+    },
+  });
+  const ask = engine.ask;
 
   function runSpec(s: AppState, run: RunConfig): RunSpec {
     return { surface: s.surface, optimizer: run.optimizer, settings: run.settings };
@@ -181,87 +188,15 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     for (const run of get().runs) launch(run);
   }
 
-  function requestGrid(): void {
+  /** The grid over the box shown, at the display's resolution, for the current state. */
+  function gridJob(): GridJob {
     const s = get();
-    const n = s.surfaceInfo.variables.length;
-    const requestId = freshId('g');
     const side = s.display.resolution;
     const view = viewShownBy(s);
-    const grid: GridRequest = { plane: slicePlane(s.slice, n), a: view.a, b: view.b, nx: side, ny: side };
-    set({ grid: { ...s.grid, requestId, phase: 'computing', progress: 0, error: null } });
-    if (!grids) return link.send({ type: 'grid/sample', requestId, surface: s.surface, grid, coarseFirst: true });
-    const result = (r: GridPoolResult, stage: 'coarse' | 'final') => handleGrid({ type: 'grid/result', requestId, grid: r.grid, values: r.values, min: r.min, max: r.max, stage });
-    grids
-      .request(requestId, s.surface, grid, (f) => handleGrid({ type: 'grid/progress', requestId, rowsDone: Math.round(f * side), rows: side }), { onCoarse: (r) => result(r, 'coarse') })
-      .then((r) => result(r, 'final'))
-      .catch((e) => {
-        if (!(e instanceof GridRequestCancelled)) handleGrid({ type: 'grid/error', requestId, message: e instanceof Error ? e.message : String(e) });
-      });
+    return { surface: s.surface, grid: { plane: slicePlane(s.slice, s.surfaceInfo.variables.length), a: view.a, b: view.b, nx: side, ny: side } };
   }
-
-  /** Replies to one-off requests (CSV parsing, profiles), by request id; `lost` when the worker is replaced. */
-  const replies = new Map<string, (msg: FromWorker) => void>();
-  const lostReplies = new Map<string, (e: Error) => void>();
-
-  function handle(msg: FromWorker): void {
-    switch (msg.type) {
-      case 'run/batch':
-      case 'run/error':
-        return live.handle(msg);
-      case 'grid/progress':
-      case 'grid/error':
-      case 'grid/result':
-        return handleGrid(msg);
-      default:
-        return replies.get(msg.requestId)?.(msg);
-    }
-  }
-
-  function handleGrid(msg: Extract<FromWorker, { type: 'grid/progress' | 'grid/error' | 'grid/result' }>): void {
-    const g = get().grid;
-    if (msg.requestId !== g.requestId) return; // superseded
-    if (msg.type === 'grid/progress') return set({ grid: { ...g, progress: msg.rowsDone / msg.rows } });
-    if (msg.type === 'grid/error') return set({ grid: { ...g, phase: 'error', error: msg.message } });
-    set({
-      grid: {
-        ...g,
-        phase: msg.stage === 'final' ? 'ready' : 'computing',
-        request: msg.grid,
-        values: msg.values,
-        min: msg.min,
-        max: msg.max,
-        stage: msg.stage,
-        progress: msg.stage === 'final' ? 1 : g.progress,
-      },
-    });
-  }
-
-  /** Sends a one-off request and resolves with its final reply; `onOther` sees the rest (progress). */
-  function ask<T extends FromWorker>(msg: ToWorker & { requestId: string }, isFinal: (m: FromWorker) => m is T, onOther?: (m: FromWorker) => void): Promise<T> {
-    return new Promise((resolve, reject) => {
-      replies.set(msg.requestId, (reply) => {
-        if (!isFinal(reply)) return onOther?.(reply);
-        replies.delete(msg.requestId);
-        lostReplies.delete(msg.requestId);
-        resolve(reply);
-      });
-      lostReplies.set(msg.requestId, reject);
-      link.send(msg);
-    });
-  }
-  link.listen(handle);
-  // A replaced worker took its runs, requests and pace with it: end them with the reason, resend the pace.
-  link.onRestart?.((reason) => {
-    const message = `the engine worker ${reason}; it was restarted`;
-    live.workerLost(`${message}: press Restart to run again`);
-    for (const reject of lostReplies.values()) reject(new Error(message));
-    replies.clear();
-    lostReplies.clear();
-    const g = get().grid;
-    if (!grids && g.phase === 'computing') set({ grid: { ...g, phase: 'error', error: message } });
-    link.send({ type: 'run/pace', pace: get().pace });
-    set({ notice: `The engine worker ${reason}. It was restarted; runs that were in progress were stopped (Restart runs them again).` });
-  });
+  const requestGrid = () => engine.sampleGrid(gridJob);
+  const requestGridWhenQuiet = () => engine.sampleGridWhenQuiet(gridJob);
 
   function updateReference(): void {
     const s = get();
@@ -357,8 +292,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       set({ view });
       // Zooming and panning fire many events; the drawn contours follow at once (they live in parameter
       // space) and the finer grid is asked for when the gesture pauses.
-      clearTimeout(gridTimer);
-      gridTimer = setTimeout(requestGrid, GRID_SETTLE_MS);
+      requestGridWhenQuiet();
     },
     setHover(point) {
       hover.setState({ hover: point });
@@ -379,9 +313,8 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       set({ frame: { width: frame.width, height: frame.height } });
       if (sameView(viewShownBy(get()), viewShownBy(s))) return;
       // The first measurement replaces the grid asked for before it at once; a resize waits for quiet.
-      clearTimeout(gridTimer);
       if (s.frame === null) requestGrid();
-      else gridTimer = setTimeout(requestGrid, GRID_SETTLE_MS);
+      else requestGridWhenQuiet();
     },
     addRun(kind = 'adam') {
       const s = get();
@@ -454,7 +387,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     setPace(pace) {
       set({ pace });
-      link.send({ type: 'run/pace', pace });
+      engine.send({ type: 'run/pace', pace });
     },
     setStudy(spec) {
       const studies = get().studies ?? [];
@@ -511,7 +444,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       // A file's studies are set up in their panels, not run (a study can take minutes; the panel's
       // "Run as set up" starts it). Fields a file may leave out are cleared, not kept from before.
       set({ ...workspace, title: workspace.title, studies: workspace.studies, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null, table: { columns: null, sort: null } });
-      link.send({ type: 'run/pace', pace: workspace.pace });
+      engine.send({ type: 'run/pace', pace: workspace.pace });
       updateReference();
       launchAll();
       requestGrid();
