@@ -33,7 +33,9 @@ export interface GridState {
 /** Label, variables, default box, known points, suggested start of the current surface. */
 export type SurfaceInfo = SurfaceDescription;
 
-export interface AppState extends Workspace {
+export interface AppState {
+  /** The saved part, replaced as a whole object on every change (so one identity check tells a change). */
+  workspace: Workspace;
   surfaceInfo: SurfaceInfo;
   /** Problems with the last surface the user tried to set (it was not applied). */
   surfaceError: string | null;
@@ -152,6 +154,8 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
 
   const get = () => store.getState();
   const set = (patch: Partial<AppState>) => store.setState(patch);
+  /** Changes saved fields (a new workspace object) and, with `rest`, live fields in the same update. */
+  const setWorkspace = (patch: Partial<Workspace>, rest: Partial<AppState> = {}) => store.setState((s) => ({ ...rest, workspace: { ...s.workspace, ...patch } }));
 
   const engine = createEngineClient({
     link,
@@ -168,14 +172,14 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     // A replaced worker took its runs and pace with it: end them with the reason, resend the pace.
     onRestart: (reason, message) => {
       live.workerLost(`${message}: press Restart to run again`);
-      link.send({ type: 'run/pace', pace: get().pace });
+      link.send({ type: 'run/pace', pace: get().workspace.pace });
       set({ notice: `The engine worker ${reason}. It was restarted; runs that were in progress were stopped (Restart runs them again).` });
     },
   });
   const ask = engine.ask;
 
   function runSpec(s: AppState, run: RunConfig): RunSpec {
-    return { surface: s.surface, optimizer: run.optimizer, settings: run.settings };
+    return { surface: s.workspace.surface, optimizer: run.optimizer, settings: run.settings };
   }
 
   function launch(run: RunConfig): void {
@@ -185,22 +189,22 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   }
 
   function launchAll(): void {
-    for (const run of get().runs) launch(run);
+    for (const run of get().workspace.runs) launch(run);
   }
 
   /** The grid over the box shown, at the display's resolution, for the current state. */
   function gridJob(): GridJob {
     const s = get();
-    const side = s.display.resolution;
+    const side = s.workspace.display.resolution;
     const view = viewShownBy(s);
-    return { surface: s.surface, grid: { plane: slicePlane(s.slice, s.surfaceInfo.variables.length), a: view.a, b: view.b, nx: side, ny: side } };
+    return { surface: s.workspace.surface, grid: { plane: slicePlane(s.workspace.slice, s.surfaceInfo.variables.length), a: view.a, b: view.b, nx: side, ny: side } };
   }
   const requestGrid = () => engine.sampleGrid(gridJob);
   const requestGridWhenQuiet = () => engine.sampleGridWhenQuiet(gridJob);
 
   function updateReference(): void {
     const s = get();
-    live.setReference(referenceMinima(s.surfaceInfo.knownPoints), s.tolerance);
+    live.setReference(referenceMinima(s.surfaceInfo.knownPoints), s.workspace.tolerance);
   }
 
   function applySurface(spec: SurfaceSpec, keepView: boolean): void {
@@ -210,14 +214,14 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     const sameShape = n === s.surfaceInfo.variables.length;
     // A start is kept while it lies in the new surface's box; elsewhere the run would start out of view.
     const keepStart = (start: number[]) => sameShape && (keepView || insideBox(start, info.view));
-    const runs = s.runs.map((r) => (keepStart(r.settings.start) ? r : { ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
+    const runs = s.workspace.runs.map((r) => (keepStart(r.settings.start) ? r : { ...r, settings: { ...r.settings, start: suggestedStart(info) } }));
     // The other variables are held at the selected (else the first) run's start, so the slice goes through a run.
     const held = (runs.find((r) => r.id === s.selectedRunId) ?? runs[0])?.settings.start ?? info.view.map(([lo, hi]) => (lo + hi) / 2);
-    const slice: SliceSettings = sameShape && !s.slice.plane ? s.slice : { axes: [0, 1], at: held.slice(), plane: null };
-    const view = keepView && sameShape ? s.view : viewFor(info.view, slice.axes);
+    const slice: SliceSettings = sameShape && !s.workspace.slice.plane ? s.workspace.slice : { axes: [0, 1], at: held.slice(), plane: null };
+    const view = keepView && sameShape ? s.workspace.view : viewFor(info.view, slice.axes);
     // A new surface starts from its own equal-scale default (on for two-variable test functions).
-    const { equalScale: _choice, ...display } = s.display;
-    set({ surface: spec, surfaceInfo: info, surfaceError: null, slice, view, runs, table: sameShape ? s.table : { columns: null, sort: null }, ...(keepView ? {} : { display }) });
+    const { equalScale: _choice, ...display } = s.workspace.display;
+    setWorkspace({ surface: spec, slice, view, runs, ...(keepView ? {} : { display }) }, { surfaceInfo: info, surfaceError: null, table: sameShape ? s.table : { columns: null, sort: null } });
     updateReference();
     launchAll();
     requestGrid();
@@ -225,7 +229,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
 
   function mutateRun(id: string, f: (r: RunConfig) => RunConfig): RunConfig | null {
     let changed: RunConfig | null = null;
-    set({ runs: get().runs.map((r) => (r.id === id ? (changed = f(r)) : r)) });
+    setWorkspace({ runs: get().workspace.runs.map((r) => (r.id === id ? (changed = f(r)) : r)) });
     return changed;
   }
 
@@ -240,7 +244,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
       }
     },
     setConstant(name, value) {
-      const surface = get().surface;
+      const surface = get().workspace.surface;
       if (!Number.isFinite(value) || surface.kind === 'datafit') return;
       applySurface({ ...surface, constants: { ...(surface.constants ?? {}), [name]: value } }, true);
     },
@@ -258,7 +262,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     async sampleProfile(from, to, alphas = { from: -0.5, to: 1.5, count: 101 }) {
       const reply = await ask(
-        { type: 'profile/sample', requestId: freshId('p'), surface: get().surface, from, to, alphas },
+        { type: 'profile/sample', requestId: freshId('p'), surface: get().workspace.surface, from, to, alphas },
         (m): m is Extract<FromWorker, { type: 'profile/result' | 'profile/error' }> => m.type === 'profile/result' || m.type === 'profile/error',
       );
       if (reply.type === 'profile/error') throw new Error(reply.message);
@@ -266,7 +270,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     async predictFit(params, rows, count) {
       const reply = await ask(
-        { type: 'fit/predict', requestId: freshId('f'), surface: get().surface, params, rows, count },
+        { type: 'fit/predict', requestId: freshId('f'), surface: get().workspace.surface, params, rows, count },
         (m): m is Extract<FromWorker, { type: 'fit/predictions' | 'fit/error' }> => m.type === 'fit/predictions' || m.type === 'fit/error',
       );
       if (reply.type === 'fit/error') throw new Error(reply.message);
@@ -274,7 +278,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     async probeSurface(points, count) {
       const reply = await ask(
-        { type: 'probe/sample', requestId: freshId('q'), surface: get().surface, points, count },
+        { type: 'probe/sample', requestId: freshId('q'), surface: get().workspace.surface, points, count },
         (m): m is Extract<FromWorker, { type: 'probe/result' | 'probe/error' }> => m.type === 'probe/result' || m.type === 'probe/error',
       );
       if (reply.type === 'probe/error') throw new Error(reply.message);
@@ -282,14 +286,14 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     setSlice({ view: requestedView, ...patch }) {
       const s = get();
-      const slice = { ...s.slice, ...patch };
-      const axesChanged = patch.axes && (patch.axes[0] !== s.slice.axes[0] || patch.axes[1] !== s.slice.axes[1]);
-      const planeChanged = patch.plane !== undefined && patch.plane !== s.slice.plane;
-      set({ slice, view: planeChanged || axesChanged ? defaultView(s.surfaceInfo, slice, requestedView) : requestedView ?? s.view });
+      const slice = { ...s.workspace.slice, ...patch };
+      const axesChanged = patch.axes && (patch.axes[0] !== s.workspace.slice.axes[0] || patch.axes[1] !== s.workspace.slice.axes[1]);
+      const planeChanged = patch.plane !== undefined && patch.plane !== s.workspace.slice.plane;
+      setWorkspace({ slice, view: planeChanged || axesChanged ? defaultView(s.surfaceInfo, slice, requestedView) : requestedView ?? s.workspace.view });
       requestGrid();
     },
     setView(view) {
-      set({ view });
+      setWorkspace({ view });
       // Zooming and panning fire many events; the drawn contours follow at once (they live in parameter
       // space) and the finer grid is asked for when the gesture pauses.
       requestGridWhenQuiet();
@@ -299,12 +303,12 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     resetView() {
       const s = get();
-      actions.setView(defaultView(s.surfaceInfo, s.slice));
+      actions.setView(defaultView(s.surfaceInfo, s.workspace.slice));
     },
     setDisplay(patch) {
       const s = get();
-      set({ display: { ...s.display, ...patch } });
-      if (patch.resolution !== undefined && patch.resolution !== s.display.resolution) requestGrid();
+      setWorkspace({ display: { ...s.workspace.display, ...patch } });
+      if (patch.resolution !== undefined && patch.resolution !== s.workspace.display.resolution) requestGrid();
       else if (patch.equalScale !== undefined && !sameView(viewShownBy(get()), viewShownBy(s))) requestGrid();
     },
     setFrame(frame) {
@@ -318,10 +322,10 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     addRun(kind = 'adam') {
       const s = get();
-      const run = newRunConfig(kind, s.runs, suggestedStartOf(s));
+      const run = newRunConfig(kind, s.workspace.runs, suggestedStartOf(s));
       const suggested = rateFamily(kind) === 'gradient' ? suggestedRateAt(s, run.settings.start) : null;
       if (suggested !== null) run.optimizer = { ...run.optimizer, learningRate: suggested };
-      set({ runs: [...s.runs, run], selectedRunId: run.id });
+      setWorkspace({ runs: [...s.workspace.runs, run] }, { selectedRunId: run.id });
       launch(run);
       return run.id;
     },
@@ -333,7 +337,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     changeOptimizer(id, kind) {
       const s = get();
-      const run = s.runs.find((r) => r.id === id);
+      const run = s.workspace.runs.find((r) => r.id === id);
       if (!run || run.optimizer.kind === kind) return;
       const optimizer = switchedOptimizer(run.optimizer, kind, pageDefaultSpec(kind), suggestedRateAt(s, run.settings.start));
       const label = run.label === optimizerLabel(run.optimizer) ? optimizerLabel(optimizer) : run.label;
@@ -341,27 +345,27 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     duplicateRun(id) {
       const s = get();
-      const source = s.runs.find((r) => r.id === id);
+      const source = s.workspace.runs.find((r) => r.id === id);
       if (!source) return null;
-      const copy: RunConfig = { ...structuredClone(source), id: freshId('c'), label: `${source.label} (copy)`, style: nextStyle(s.runs), cell: undefined };
-      const at = s.runs.indexOf(source) + 1;
-      set({ runs: [...s.runs.slice(0, at), copy, ...s.runs.slice(at)], selectedRunId: copy.id });
+      const copy: RunConfig = { ...structuredClone(source), id: freshId('c'), label: `${source.label} (copy)`, style: nextStyle(s.workspace.runs), cell: undefined };
+      const at = s.workspace.runs.indexOf(source) + 1;
+      setWorkspace({ runs: [...s.workspace.runs.slice(0, at), copy, ...s.workspace.runs.slice(at)] }, { selectedRunId: copy.id });
       launch(copy);
       return copy.id;
     },
     removeRun(id) {
       live.forget(id);
       const s = get();
-      set({ runs: s.runs.filter((r) => r.id !== id), selectedRunId: s.selectedRunId === id ? null : s.selectedRunId });
+      setWorkspace({ runs: s.workspace.runs.filter((r) => r.id !== id) }, { selectedRunId: s.selectedRunId === id ? null : s.selectedRunId });
     },
     selectRun(id) {
       set({ selectedRunId: id });
       // A slice through two chosen variables holds the others at the selected run's current point.
       const s = get();
-      const run = s.runs.find((r) => r.id === id);
-      if (!run || s.slice.plane || s.surfaceInfo.variables.length <= 2) return;
+      const run = s.workspace.runs.find((r) => r.id === id);
+      if (!run || s.workspace.slice.plane || s.surfaceInfo.variables.length <= 2) return;
       const at = runPoint(run, live);
-      if (at.length === s.slice.at.length && at.every((v, k) => v === s.slice.at[k])) return;
+      if (at.length === s.workspace.slice.at.length && at.every((v, k) => v === s.workspace.slice.at[k])) return;
       actions.setSlice({ at });
     },
     setStartTarget(startTarget) {
@@ -369,49 +373,49 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
     },
     setStart(point) {
       const s = get();
-      const targets = s.startTarget === 'selected' && s.selectedRunId ? [s.selectedRunId] : s.runs.map((r) => r.id);
-      for (const id of targets) actions.updateRun(id, { settings: { ...get().runs.find((r) => r.id === id)!.settings, start: point.slice() } });
+      const targets = s.startTarget === 'selected' && s.selectedRunId ? [s.selectedRunId] : s.workspace.runs.map((r) => r.id);
+      for (const id of targets) actions.updateRun(id, { settings: { ...get().workspace.runs.find((r) => r.id === id)!.settings, start: point.slice() } });
     },
     control(id, action) {
       live.control(id, action);
     },
     controlAll(action) {
-      for (const r of get().runs) live.control(r.id, action);
+      for (const r of get().workspace.runs) live.control(r.id, action);
     },
     restart(id) {
-      const run = get().runs.find((r) => r.id === id);
+      const run = get().workspace.runs.find((r) => r.id === id);
       if (run) launch(run);
     },
     restartAll() {
       launchAll();
     },
     setPace(pace) {
-      set({ pace });
+      setWorkspace({ pace });
       engine.send({ type: 'run/pace', pace });
     },
     setStudy(spec) {
-      const studies = get().studies ?? [];
+      const studies = get().workspace.studies ?? [];
       const at = studies.findIndex((x) => x.kind === spec.kind);
-      set({ studies: at < 0 ? [...studies, spec] : studies.map((x, k) => (k === at ? spec : x)) });
+      setWorkspace({ studies: at < 0 ? [...studies, spec] : studies.map((x, k) => (k === at ? spec : x)) });
     },
     setTolerance(tolerance) {
       if (!(tolerance >= 0) || !Number.isFinite(tolerance)) return;
-      set({ tolerance });
+      setWorkspace({ tolerance });
       updateReference();
     },
     setPanels(patch) {
-      set({ panels: { ...get().panels, ...patch } });
+      setWorkspace({ panels: { ...get().workspace.panels, ...patch } });
     },
     buildTableRuns() {
       const s = get();
-      for (const r of s.runs) if (r.cell) live.forget(r.id);
-      const kept = s.runs.filter((r) => !r.cell);
+      for (const r of s.workspace.runs) if (r.cell) live.forget(r.id);
+      const kept = s.workspace.runs.filter((r) => !r.cell);
       const start = suggestedStartOf(s);
       // The 'rule' row runs the selected run's rule when it is a rule run, else the latest rule run's.
-      const ruleSource = s.runs.find((r) => r.id === s.selectedRunId && r.optimizer.kind === 'rule') ?? [...kept].reverse().find((r) => r.optimizer.kind === 'rule');
+      const ruleSource = s.workspace.runs.find((r) => r.id === s.selectedRunId && r.optimizer.kind === 'rule') ?? [...kept].reverse().find((r) => r.optimizer.kind === 'rule');
       const table: RunConfig[] = [];
-      s.panels.tableOptimizers.forEach((kind, row) =>
-        s.panels.tableLearningRates.forEach((lr, column) => {
+      s.workspace.panels.tableOptimizers.forEach((kind, row) =>
+        s.workspace.panels.tableLearningRates.forEach((lr, column) => {
           const run = newRunConfig(kind, [...kept, ...table], start);
           const base = kind === 'rule' && ruleSource ? structuredClone(ruleSource.optimizer) : run.optimizer;
           run.optimizer = { ...base, learningRate: lr };
@@ -420,7 +424,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
           table.push(run);
         }),
       );
-      set({ runs: [...kept, ...table], panels: { ...s.panels, mode: 'table' } });
+      setWorkspace({ runs: [...kept, ...table], panels: { ...s.workspace.panels, mode: 'table' } });
       table.forEach(launch);
     },
     dismissNotice() {
@@ -440,10 +444,10 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
         set({ notice: `The experiment's surface could not be built (${e instanceof Error ? e.message : String(e)}); nothing was changed.` });
         return;
       }
-      for (const r of get().runs) live.forget(r.id);
+      for (const r of get().workspace.runs) live.forget(r.id);
       // A file's studies are set up in their panels, not run (a study can take minutes; the panel's
-      // "Run as set up" starts it). Fields a file may leave out are cleared, not kept from before.
-      set({ ...workspace, title: workspace.title, studies: workspace.studies, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null, table: { columns: null, sort: null } });
+      // "Run as set up" starts it). The workspace is replaced whole, so fields a file leaves out are cleared.
+      set({ workspace, surfaceInfo: info, surfaceError: null, status: {}, selectedRunId: null, table: { columns: null, sort: null } });
       engine.send({ type: 'run/pace', pace: workspace.pace });
       updateReference();
       launchAll();
@@ -452,7 +456,7 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   };
 
   store = createStore<AppState>(() => ({
-    ...start,
+    workspace: start,
     surfaceInfo: describeSurface(start.surface),
     surfaceError: null,
     notice: startNotice,
@@ -469,12 +473,10 @@ export function createAppStore({ link, requestFrame, initial, grids }: StoreOpti
   return { store, hover, live, workspaceOf };
 }
 
-const WORKSPACE_KEYS = ['version', 'title', 'surface', 'slice', 'view', 'display', 'runs', 'panels', 'tolerance', 'pace', 'studies'] as const;
-
-/** The saved part of the state. */
-export function workspaceOf(s: AppState): Workspace {
-  const { version, title, surface, slice, view, display, runs, panels, tolerance, pace, studies } = s;
-  return { version, ...(title === undefined ? {} : { title }), surface, slice, view, display, runs, panels, tolerance, pace, ...(studies?.length ? { studies } : {}) };
+/** The saved part of the state, as written: no empty title or studies list. */
+export function workspaceOf(s: Pick<AppState, 'workspace'>): Workspace {
+  const { title, studies, ...rest } = s.workspace;
+  return { ...rest, ...(title === undefined ? {} : { title }), ...(studies?.length ? { studies } : {}) };
 }
 
 /** The study a panel shows: the workspace's first of that kind. */
@@ -482,14 +484,14 @@ export function studyOfKind<K extends StudySpec['kind']>(studies: readonly Study
   return (studies?.find((s) => s.kind === kind) as Extract<StudySpec, { kind: K }> | undefined) ?? null;
 }
 
-/** Whether any saved field changed (the store replaces objects on change, so identity suffices). */
-export function workspaceChanged(a: AppState, b: AppState): boolean {
-  return WORKSPACE_KEYS.some((k) => a[k] !== b[k]);
+/** Whether the saved part changed (it is a new object on every change, so identity suffices). */
+export function workspaceChanged(a: Pick<AppState, 'workspace'>, b: Pick<AppState, 'workspace'>): boolean {
+  return a.workspace !== b.workspace;
 }
 
 /** The box the map shows for the state's view on its measured frame (the view itself without equal scale). */
-export function viewShownBy(s: Pick<AppState, 'view' | 'frame' | 'display' | 'surface' | 'surfaceInfo'>): ViewBox {
-  return shownView(s.view, s.frame, equalScaleOn(s.display, s.surface, s.surfaceInfo.variables.length));
+export function viewShownBy(s: { workspace: Pick<Workspace, 'view' | 'display' | 'surface'> } & Pick<AppState, 'frame' | 'surfaceInfo'>): ViewBox {
+  return shownView(s.workspace.view, s.frame, equalScaleOn(s.workspace.display, s.workspace.surface, s.surfaceInfo.variables.length));
 }
 
 function sameView(p: ViewBox, q: ViewBox): boolean {
@@ -533,7 +535,7 @@ function suggestedStart(info: SurfaceInfo): number[] {
 
 /** The rate a new plain-gradient run gets at `start`: SAFE_FRACTION of 2 / lambda_max there, or null. */
 function suggestedRateAt(s: AppState, start: number[]): number | null {
-  const surface = mainThreadSurface(s.surface);
+  const surface = mainThreadSurface(s.workspace.surface);
   return surface ? curvatureAt(surface, start)?.suggestedRate ?? null : null;
 }
 
@@ -548,7 +550,7 @@ function runPoint(run: RunConfig, live: LiveRuns): number[] {
 }
 
 function suggestedStartOf(s: AppState): number[] {
-  return s.runs[0]?.settings.start.slice() ?? suggestedStart(s.surfaceInfo);
+  return s.workspace.runs[0]?.settings.start.slice() ?? suggestedStart(s.surfaceInfo);
 }
 
 
@@ -556,10 +558,11 @@ function suggestedStartOf(s: AppState): number[] {
  * The run a single-run panel (data view, profile, plane choices) follows: the selected run, else the
  * visible run with the lowest loss so far, else the first run.
  */
-export function focusRun(s: Pick<AppState, 'runs' | 'selectedRunId' | 'status'>): RunConfig | null {
-  const selected = s.runs.find((r) => r.id === s.selectedRunId);
+export function focusRun(s: Pick<AppState, 'workspace' | 'selectedRunId' | 'status'>): RunConfig | null {
+  const { runs } = s.workspace;
+  const selected = runs.find((r) => r.id === s.selectedRunId);
   if (selected) return selected;
   const loss = (r: RunConfig) => s.status[r.id]?.summary.finalLoss ?? Number.NaN;
-  const ranked = s.runs.filter((r) => !r.hidden && Number.isFinite(loss(r))).sort((a, b) => loss(a) - loss(b));
-  return ranked[0] ?? s.runs[0] ?? null;
+  const ranked = runs.filter((r) => !r.hidden && Number.isFinite(loss(r))).sort((a, b) => loss(a) - loss(b));
+  return ranked[0] ?? runs[0] ?? null;
 }
