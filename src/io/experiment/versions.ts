@@ -16,8 +16,9 @@ import { z } from 'zod';
 import { display, MAX_STUDIES, studySpec, workspaceFields } from './fields';
 import { renameOptionValues } from './renamed-options';
 import type { Workspace } from './types';
+import { CURRENT_VERSION } from './current-version';
 
-export const CURRENT_VERSION = 3;
+export { CURRENT_VERSION };
 
 const version1 = z.strictObject({ version: z.literal(1), ...workspaceFields });
 
