@@ -1,4 +1,5 @@
 import { defaultOptimizerSpec } from '../engine';
+import { CURRENT_VERSION } from '../io/experiment';
 import { DEFAULT_PACE } from './pace';
 import { DEFAULT_STOP } from './run-configs';
 import { DEFAULT_DISPLAY, type RunConfig, type Workspace } from './workspace';
@@ -18,7 +19,7 @@ export function demoWorkspace(): Workspace {
     settings: { start: start.slice(), seed: 1, stop: { ...DEFAULT_STOP } },
   });
   return {
-    version: 3,
+    version: CURRENT_VERSION,
     surface: { kind: 'catalogue', id: 'rosenbrock' },
     slice: { axes: [0, 1], at: [0, 0] },
     view: { a: [-2, 2], b: [-1, 3] },

@@ -16,7 +16,7 @@ import { ViewArea } from './view/ViewArea';
 export function App() {
   const label = useApp((s) => s.surfaceInfo.label);
   const notice = useApp((s) => s.notice);
-  const surface = useApp((s) => s.surface);
+  const surface = useApp((s) => s.workspace.surface);
   const actions = useActions();
   return (
     <div className="app">

@@ -116,7 +116,7 @@ describe('the store when its worker was replaced', () => {
   it('runs in flight end with the reason, the notice says what happened, the pace is sent again', () => {
     const { env, app, restart } = setup();
     env.drain(20); // a few slices at 50 steps/s: the runs are still going
-    const ids = app.store.getState().runs.map((r) => r.id);
+    const ids = app.store.getState().workspace.runs.map((r) => r.id);
     expect(ids.map((id) => app.store.getState().status[id]?.phase)).toEqual(['running', 'running', 'running']);
     const sentBefore = env.sent.length;
     restart('threw an error: Uncaught Error: simulated fault');

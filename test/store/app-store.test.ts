@@ -16,23 +16,23 @@ describe('app store with the real worker handler', () => {
     t.app.store.getState().actions.setPace('max');
     t.drain();
     const s = t.state();
-    expect(s.runs).toHaveLength(3);
-    for (const r of s.runs) {
+    expect(s.workspace.runs).toHaveLength(3);
+    for (const r of s.workspace.runs) {
       const st = s.status[r.id];
       expect(st.phase).toBe('ended');
       expect(st.summary.outcome).not.toBeNull();
       expect(t.app.live.trajectory(r.id)!.count).toBe(st.summary.steps + 1);
     }
     expect(s.grid.phase).toBe('ready');
-    expect(s.grid.values!.length).toBe(s.display.resolution ** 2);
+    expect(s.grid.values!.length).toBe(s.workspace.display.resolution ** 2);
   });
 
   it('drops batches of a superseded launch: editing a run restarts it from step 0', () => {
     const t = setup();
     t.actions.setPace(1000);
-    const id = t.state().runs[2].id;
+    const id = t.state().workspace.runs[2].id;
     t.drain(3);
-    t.actions.updateRun(id, { optimizer: { ...t.state().runs[2].optimizer, learningRate: 0.01 } });
+    t.actions.updateRun(id, { optimizer: { ...t.state().workspace.runs[2].optimizer, learningRate: 0.01 } });
     t.actions.setPace('max');
     t.drain();
     const buffer = t.app.live.trajectory(id)!;
@@ -43,7 +43,7 @@ describe('app store with the real worker handler', () => {
 
   it('a bad optimizer setting is reported on the run and nothing is launched', () => {
     const t = setup();
-    const run = t.state().runs[2];
+    const run = t.state().workspace.runs[2];
     const before = t.sent.filter((m) => m.type === 'run/start').length;
     t.actions.updateRun(run.id, { optimizer: { ...run.optimizer, hyper: { beta1: 1.2 } } });
     t.drain();
@@ -60,10 +60,10 @@ describe('app store with the real worker handler', () => {
     const parsed = Papa.parse<string[]>(csv.trim(), { skipEmptyLines: true });
     const [header, ...rows] = parsed.data;
     expect(header.slice(0, 5)).toEqual(['run_id', 'run_label', 'optimizer', 'learning_rate', 'step']);
-    const total = t.state().runs.reduce((n, r) => n + t.app.live.trajectory(r.id)!.count, 0);
+    const total = t.state().workspace.runs.reduce((n, r) => n + t.app.live.trajectory(r.id)!.count, 0);
     expect(rows).toHaveLength(total);
     const last = rows[rows.length - 1];
-    const lastRun = t.state().runs[2];
+    const lastRun = t.state().workspace.runs[2];
     expect(Number(last[header.indexOf('loss')])).toBe(t.state().status[lastRun.id].summary.finalLoss);
   });
 
@@ -71,7 +71,7 @@ describe('app store with the real worker handler', () => {
     const t = setup();
     expect(t.actions.setSurface({ kind: 'formula', text: 'x^2 + sinn(y)' })).toBe(false);
     expect(t.state().surfaceError).toMatch(/sinn/);
-    expect(t.state().surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
+    expect(t.state().workspace.surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
   });
 
   it('a surface in three variables is sliced; runs start in three dimensions', () => {
@@ -81,7 +81,7 @@ describe('app store with the real worker handler', () => {
     t.drain();
     const s = t.state();
     expect(s.surfaceInfo.variables).toEqual(['x', 'y', 'z']);
-    for (const r of s.runs) expect(r.settings.start).toHaveLength(3);
+    for (const r of s.workspace.runs) expect(r.settings.start).toHaveLength(3);
     expect(s.grid.request!.plane.origin).toHaveLength(3);
   });
 
@@ -91,7 +91,7 @@ describe('app store with the real worker handler', () => {
     expect(t.state().surfaceError).toBe('the map needs two or more variables, this surface has 1 (x); list them under Variable order, for example "x, y"');
     expect(t.actions.setSurface({ kind: 'formula', text: '3' })).toBe(false);
     expect(t.state().surfaceError).toMatch(/this surface has none/);
-    expect(t.state().surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
+    expect(t.state().workspace.surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
     // A variable named in the order but unused by the text still counts.
     expect(t.actions.setSurface({ kind: 'formula', text: 'x^2', variables: ['x', 'y'] })).toBe(true);
     expect(t.state().surfaceError).toBeNull();
@@ -99,7 +99,7 @@ describe('app store with the real worker handler', () => {
 
   it('a saved workspace with a one-variable surface loads the demo and says why', () => {
     const t = setup({ ...demoWorkspace(), surface: { kind: 'formula', text: 'x^2' } });
-    expect(t.state().surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
+    expect(t.state().workspace.surface).toEqual({ kind: 'catalogue', id: 'rosenbrock' });
     expect(t.state().notice).toMatch(/two or more variables/);
   });
 
@@ -107,16 +107,16 @@ describe('app store with the real worker handler', () => {
     const t = setup();
     // Rosenbrock's demo start (-1.2, 1) lies inside Himmelblau's box [-5, 5]^2 but not Easom's [-1, 7]^2.
     t.actions.setSurface({ kind: 'catalogue', id: 'himmelblau' });
-    for (const r of t.state().runs) expect(r.settings.start).toEqual([-1.2, 1]);
+    for (const r of t.state().workspace.runs) expect(r.settings.start).toEqual([-1.2, 1]);
     t.actions.setSurface({ kind: 'catalogue', id: 'easom' });
-    for (const r of t.state().runs) expect(r.settings.start).toEqual(t.state().surfaceInfo.suggestedStart);
+    for (const r of t.state().workspace.runs) expect(r.settings.start).toEqual(t.state().surfaceInfo.suggestedStart);
   });
 
   it('the table builds one run per optimizer and learning rate', () => {
     const t = setup();
     t.actions.setPanels({ tableOptimizers: ['gd', 'adam'], tableLearningRates: [0.001, 0.01, 0.1] });
     t.actions.buildTableRuns();
-    const cells = t.state().runs.filter((r) => r.cell);
+    const cells = t.state().workspace.runs.filter((r) => r.cell);
     expect(cells).toHaveLength(6);
     expect(cells.map((r) => [r.optimizer.kind, r.optimizer.learningRate])).toContainEqual(['adam', 0.1]);
     expect(new Set(cells.map((r) => r.style)).size).toBe(6);
@@ -140,7 +140,7 @@ describe('app store with a grid pool', () => {
     const g = app.store.getState().grid;
     expect(g.phase).toBe('ready');
     expect(g.stage).toBe('final');
-    const direct = sampleGrid(buildSurface(app.store.getState().surface), g.request!);
+    const direct = sampleGrid(buildSurface(app.store.getState().workspace.surface), g.request!);
     expect(Array.from(g.values!)).toEqual(Array.from(direct));
     // Both members took part.
     expect(new Set(world.log.filter((m) => m.direction === 'out' && m.msg.type === 'band/result').map((m) => m.member)).size).toBe(2);
@@ -159,6 +159,6 @@ describe('small conveniences', () => {
     const t = setup();
     t.actions.setPanels({ tableOptimizers: ['adam'], tableLearningRates: [0.001] });
     t.actions.buildTableRuns();
-    expect(t.state().runs.filter((r) => r.cell).map((r) => r.label)).toEqual(['Adam lr=0.001']);
+    expect(t.state().workspace.runs.filter((r) => r.cell).map((r) => r.label)).toEqual(['Adam lr=0.001']);
   });
 });

@@ -24,7 +24,7 @@ describe('equal scale in the store', () => {
     t.actions.setFrame({ width: 600, height: 400 });
     // 400 px over 4 units of y: 100 px per unit, so x spans 600 / 100 = 6 units about 0.
     expect([t.lastGrid().a, t.lastGrid().b]).toEqual([[-3, 3], [-1, 3]]);
-    expect(t.state().view).toEqual({ a: [-2, 2], b: [-1, 3] }); // the saved view is what was asked for
+    expect(t.state().workspace.view).toEqual({ a: [-2, 2], b: [-1, 3] }); // the saved view is what was asked for
     t.actions.setDisplay({ equalScale: false });
     expect([t.lastGrid().a, t.lastGrid().b]).toEqual([[-2, 2], [-1, 3]]);
     expect(workspaceOf(t.state()).display.equalScale).toBe(false);
@@ -39,6 +39,6 @@ describe('equal scale in the store', () => {
     const g = t.lastGrid();
     expect((g.a[1] - g.a[0]) / 600).toBeCloseTo((g.b[1] - g.b[0]) / 400, 12);
     t.actions.setSurface({ kind: 'formula', text: 'x^2 + y^2' });
-    expect([t.lastGrid().a, t.lastGrid().b]).toEqual([t.state().view.a, t.state().view.b]);
+    expect([t.lastGrid().a, t.lastGrid().b]).toEqual([t.state().workspace.view.a, t.state().workspace.view.b]);
   });
 });

@@ -18,7 +18,7 @@ function lionAgainstAdam() {
   const t = setup();
   t.actions.setPace('max');
   const lion = t.actions.addRun('rule');
-  const run = t.state().runs.find((r) => r.id === lion)!;
+  const run = t.state().workspace.runs.find((r) => r.id === lion)!;
   t.actions.updateRun(lion, { label: 'Lion', optimizer: { ...run.optimizer, learningRate: 0.01, hyper: { beta1: 0.9, beta2: 0.99, decay: 0 }, rule: { name: 'Lion', text: lionRule.text } } });
   const adam = t.actions.addRun('adam');
   t.drain();
@@ -75,7 +75,7 @@ describe('rule runs are first-class runs (real store, real worker handler)', () 
     const t = setup();
     const id = t.actions.addRun('rule');
     t.drain();
-    const run = t.state().runs.find((r) => r.id === id)!;
+    const run = t.state().workspace.runs.find((r) => r.id === id)!;
     const before = t.sent.filter((m) => m.type === 'run/start').length;
     t.actions.updateRun(id, { optimizer: { ...run.optimizer, rule: { name: 'typo', text: 'x = x - lr * gg' } } });
     t.drain();
@@ -89,7 +89,7 @@ describe('rule runs are first-class runs (real store, real worker handler)', () 
     t.actions.setPanels({ tableOptimizers: ['adam', 'rule'], tableLearningRates: [0.001, 0.01] });
     t.actions.buildTableRuns();
     t.drain();
-    const ruleCells = t.state().runs.filter((r) => r.cell?.row === 1);
+    const ruleCells = t.state().workspace.runs.filter((r) => r.cell?.row === 1);
     expect(ruleCells.map((r) => r.label)).toEqual(['Lion lr=0.001', 'Lion lr=0.01']);
     for (const r of ruleCells) {
       expect(r.optimizer.rule).toEqual({ name: 'Lion', text: lionRule.text });

@@ -18,9 +18,9 @@ describe('studies set up on the page', () => {
     t.actions.setStudy(startMapStudy());
     t.actions.setStudy(rateSweepStudy());
     t.actions.setStudy({ ...startMapStudy(), resolution: 32 });
-    expect(t.state().studies!.map((s) => s.kind)).toEqual(['start-map', 'lr-sweep']);
-    expect(studyOfKind(t.state().studies, 'start-map')!.resolution).toBe(32);
-    expect(studyOfKind(t.state().studies, 'multi-start')).toBeNull();
+    expect(t.state().workspace.studies!.map((s) => s.kind)).toEqual(['start-map', 'lr-sweep']);
+    expect(studyOfKind(t.state().workspace.studies, 'start-map')!.resolution).toBe(32);
+    expect(studyOfKind(t.state().workspace.studies, 'multi-start')).toBeNull();
   });
 
   it('"Save experiment" writes them into a file that reads back to the same studies', () => {
@@ -36,9 +36,9 @@ describe('studies set up on the page', () => {
   it('opening a file restores its studies; a file without studies clears them', () => {
     const t = setup();
     t.actions.loadWorkspace({ ...workspaceOf(t.state()), studies: [rateSweepStudy(), startMapStudy()] });
-    expect(t.state().studies).toEqual([rateSweepStudy(), startMapStudy()]);
+    expect(t.state().workspace.studies).toEqual([rateSweepStudy(), startMapStudy()]);
     const { studies: _none, ...plain } = workspaceOf(t.state());
     t.actions.loadWorkspace(plain);
-    expect(t.state().studies).toBeUndefined();
+    expect(t.state().workspace.studies).toBeUndefined();
   });
 });

@@ -56,10 +56,10 @@ describe('page defaults', () => {
     const ids = (['gd', 'nesterov'] as const).map((k) => t.actions.addRun(k));
     t.drain();
     for (const id of ids) {
-      const run = t.state().runs.find((r) => r.id === id)!;
+      const run = t.state().workspace.runs.find((r) => r.id === id)!;
       expect(run.optimizer.learningRate).toBe(0.00066);
       expect(run.settings.stop.maxSteps).toBe(3000);
-      expect(run.settings.stop.maxSteps).toBe(t.state().runs[0].settings.stop.maxSteps);
+      expect(run.settings.stop.maxSteps).toBe(t.state().workspace.runs[0].settings.stop.maxSteps);
       expect(t.state().status[id].summary.outcome?.kind).not.toBe('diverged');
       expect(Number.isFinite(t.state().status[id].summary.finalLoss)).toBe(true);
     }
@@ -67,27 +67,27 @@ describe('page defaults', () => {
   });
   it('changing a run between plain-gradient kinds keeps its rate and renames a default label', () => {
     const t = setup();
-    const id = t.state().runs[0].id; // Gradient descent, 0.001
+    const id = t.state().workspace.runs[0].id; // Gradient descent, 0.001
     t.actions.changeOptimizer(id, 'nesterov');
-    const run = t.state().runs.find((r) => r.id === id)!;
+    const run = t.state().workspace.runs.find((r) => r.id === id)!;
     expect(run.optimizer.kind).toBe('nesterov');
     expect(run.optimizer.learningRate).toBe(0.001);
     expect(run.label).toBe('Nesterov momentum');
     t.actions.changeOptimizer(id, 'adam');
-    expect(t.state().runs.find((r) => r.id === id)!.optimizer.learningRate).toBe(0.001);
+    expect(t.state().workspace.runs.find((r) => r.id === id)!.optimizer.learningRate).toBe(0.001);
   });
   it('a slice through many variables holds the others at a run: at its start, then at the selected run', () => {
     const t = setup();
     t.actions.setPace('max');
     t.actions.setSurface({ kind: 'formula', text: '(x1 - 1)^2 + (x2 - 2)^2 + (x3 - 3)^2', variables: ['x1', 'x2', 'x3'] });
-    const start = t.state().runs[0].settings.start;
-    expect(t.state().slice.at).toEqual(start);
+    const start = t.state().workspace.runs[0].settings.start;
+    expect(t.state().workspace.slice.at).toEqual(start);
     t.drain();
-    const id = t.state().runs[2].id;
+    const id = t.state().workspace.runs[2].id;
     t.actions.selectRun(id);
     const end = t.state().status[id].summary.finalPoint;
-    expect(t.state().slice.at).toEqual(end);
-    expect(t.state().slice.at[2]).toBeCloseTo(3, 3);
+    expect(t.state().workspace.slice.at).toEqual(end);
+    expect(t.state().workspace.slice.at[2]).toBeCloseTo(3, 3);
   });
 });
 

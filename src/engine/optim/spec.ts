@@ -4,6 +4,12 @@ import type { HyperparameterInfo, HyperValue } from './settings';
 /**
  * The optimizer families Fall Line can run. First-order kinds are chains of gradient transforms
  * (transform.ts); 'lbfgs' and 'newton' take line-search or Hessian steps through the oracle.
+ *
+ * Written out rather than read from the registry (`keyof` of methods/index.ts's table): the methods
+ * import this file's `ResolvedSpec` and `OptimizerInfo`, which carry the kind, so a kind read from the
+ * registry would make spec.ts import methods/ and close an import cycle (type-only imports count,
+ * scripts/lint/no-import-cycle.js). The registry's mapped type makes the compiler insist that the two
+ * name the same kinds; test/engine/optim/kinds.test.ts checks it as well.
  */
 export type OptimizerKind =
   | 'gd'

@@ -4,6 +4,7 @@
  */
 import type { OptimizerKind, OptimizerSpec, RunSettings, StudySpec, ViewBox } from '../../engine';
 import type { SurfaceSpec } from '../../problems';
+import type { CURRENT_VERSION } from './current-version';
 
 /** Steps per second per run, or 'max'. */
 export type Pace = number | 'max';
@@ -14,7 +15,7 @@ export type Pace = number | 'max';
  */
 export interface Workspace {
   /** The experiment file's version (src/io/experiment/versions.ts); older files are migrated on reading. */
-  version: 3;
+  version: typeof CURRENT_VERSION;
   /** A name for the experiment, kept in the file (the command line's summary.json repeats it). */
   title?: string;
   surface: SurfaceSpec;

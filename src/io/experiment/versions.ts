@@ -16,8 +16,9 @@ import { z } from 'zod';
 import { display, MAX_STUDIES, studySpec, workspaceFields } from './fields';
 import { renameOptionValues } from './renamed-options';
 import type { Workspace } from './types';
+import { CURRENT_VERSION } from './current-version';
 
-export const CURRENT_VERSION = 3;
+export { CURRENT_VERSION };
 
 const version1 = z.strictObject({ version: z.literal(1), ...workspaceFields });
 
@@ -41,18 +42,22 @@ export const experimentSchema = z.strictObject({
 export type Experiment = Workspace & { $schema?: string };
 
 interface VersionStep {
-  schema: z.ZodType;
-  /** Turns a valid file of this version into one of the next version. */
-  upgrade: (file: never) => unknown;
+  /** Validates a file of this version and turns it into one of the next version (or the schema's issues). */
+  migrate(file: unknown): { success: true; data: unknown } | { success: false; error: z.ZodError };
 }
 
-type Version2 = z.infer<typeof version2>;
+/** A version's schema and its migration, typed together (the migration receives what the schema passed). */
+function versionStep<S extends z.ZodType>(schema: S, upgrade: (file: z.output<S>) => unknown): VersionStep {
+  return {
+    migrate(file) {
+      const parsed = schema.safeParse(file);
+      return parsed.success ? { success: true, data: upgrade(parsed.data) } : { success: false, error: parsed.error };
+    },
+  };
+}
 
 /** Schemas of earlier versions and their one-step migration, keyed by version. */
 export const EARLIER_VERSIONS: Readonly<Record<number, VersionStep>> = {
-  1: { schema: version1, upgrade: (file: z.infer<typeof version1>) => ({ ...file, version: 2 }) },
-  2: {
-    schema: version2,
-    upgrade: (file: Version2) => ({ ...file, version: 3, runs: file.runs.map((run) => ({ ...run, optimizer: renameOptionValues(run.optimizer) })) }),
-  },
+  1: versionStep(version1, (file) => ({ ...file, version: 2 })),
+  2: versionStep(version2, (file) => ({ ...file, version: 3, runs: file.runs.map((run) => ({ ...run, optimizer: renameOptionValues(run.optimizer) })) })),
 };

@@ -18,7 +18,7 @@ export function LossChart() {
   const boxRef = useRef<HTMLDivElement>(null);
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const size = useElementSize(boxRef);
-  const runs = useApp((s) => s.runs);
+  const runs = useApp((s) => s.workspace.runs);
   const knownPoints = useApp((s) => s.surfaceInfo.knownPoints);
   const study = useStudyStore();
   // Only the fields the band needs, so study progress does not redraw the chart.

@@ -12,7 +12,7 @@ export function ProfileChart() {
   const actions = useActions();
   const live = useLiveRuns();
   const focus = useApp(focusRun);
-  const surface = useApp((s) => s.surface);
+  const surface = useApp((s) => s.workspace.surface);
   const run = focus;
   const [profile, setProfile] = useState<{ alphas: Float64Array; values: Float64Array; label: string } | null>(null);
   const [error, setError] = useState<string | null>(null);

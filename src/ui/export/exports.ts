@@ -7,10 +7,10 @@ import { reportedUnits } from '../../store/units';
 
 /** Trajectories of every run, one row per run per step (columns in the README). */
 export function trajectoriesCsv(s: AppState, live: LiveRuns): string {
-  return trajectoriesCsvOf(s.runs, (id) => live.trajectory(id)?.asBatch(), s.surfaceInfo.variables, reportedUnits(mainThreadSurface(s.surface)));
+  return trajectoriesCsvOf(s.workspace.runs, (id) => live.trajectory(id)?.asBatch(), s.surfaceInfo.variables, reportedUnits(mainThreadSurface(s.workspace.surface)));
 }
 
 /** The run table as shown on the page. */
 export function resultsCsv(s: AppState): string {
-  return resultsCsvOf(s.runs, (id) => s.status[id]?.summary, s.surfaceInfo, reportedUnits(mainThreadSurface(s.surface)));
+  return resultsCsvOf(s.workspace.runs, (id) => s.status[id]?.summary, s.surfaceInfo, reportedUnits(mainThreadSurface(s.workspace.surface)));
 }

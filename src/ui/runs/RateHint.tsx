@@ -7,7 +7,7 @@ import { useMainThreadSurface } from '../view/use-surface';
 
 /** The largest curvature at the run's start and the learning rate it allows plain gradient steps. */
 export function RateHint({ run }: { run: RunConfig }) {
-  const spec = useApp((s) => s.surface);
+  const spec = useApp((s) => s.workspace.surface);
   const surface = useMainThreadSurface(spec);
   const start = run.settings.start;
   const c = useMemo(() => (surface ? curvatureAt(surface, start) : null), [surface, start]);

@@ -31,7 +31,7 @@ export function RunEditor({ run }: { run: RunConfig }) {
   const actions = useActions();
   const variables = useApp((s) => s.surfaceInfo.variables);
   const runError = useApp((s) => s.status[run.id]?.error ?? null);
-  const spec = useApp((s) => s.surface);
+  const spec = useApp((s) => s.workspace.surface);
   const surface = useMainThreadSurface(spec);
   const rows = surface && isRowwiseSurface(surface) ? surface.rows : undefined;
   const info = optimizerInfo(run.optimizer.kind);

@@ -10,10 +10,10 @@ import { outcomeDetail } from '../../engine';
 /** The runs: add, select, control, duplicate, remove; the selected run's settings below. */
 export function RunList() {
   const actions = useActions();
-  const runs = useApp((s) => s.runs);
+  const runs = useApp((s) => s.workspace.runs);
   const status = useApp((s) => s.status);
   const selected = useApp((s) => s.selectedRunId);
-  const pace = useApp((s) => s.pace);
+  const pace = useApp((s) => s.workspace.pace);
   const startTarget = useApp((s) => s.startTarget);
   const [kind, setKind] = useState<OptimizerKind>('adam');
   const addId = useId();

@@ -18,10 +18,10 @@ const fmt = (v: number) => String(+v.toPrecision(6));
  */
 export function CriticalPointsPanel() {
   const study = useStudyStore();
-  const surface = useApp((s) => s.surface);
+  const surface = useApp((s) => s.workspace.surface);
   const info = useApp((s) => s.surfaceInfo);
   const view = useShownView();
-  const slice = useApp((s) => s.slice);
+  const slice = useApp((s) => s.workspace.slice);
   const [side, setSide] = useState(12);
   const [found, setFound] = useState<{ points: CriticalPoint[]; converged: number; failed: number; box: typeof view; axes: [number, number] } | null>(null);
   const { busy, problem, run } = useWorkerTask(slice.plane ? 'Critical points are searched in a slice through two parameters, not a random or principal-direction plane.' : null);

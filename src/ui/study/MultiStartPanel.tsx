@@ -24,17 +24,17 @@ type DistributionChoice = 'uniform' | 'gaussian' | 'glorot' | 'he';
 export function MultiStartPanel() {
   const study = useStudyStore();
   const all = useStudy((s) => s);
-  const runs = useApp((s) => s.runs);
+  const runs = useApp((s) => s.workspace.runs);
   const selected = useApp((s) => s.selectedRunId);
-  const surfaceSpec = useApp((s) => s.surface);
+  const surfaceSpec = useApp((s) => s.workspace.surface);
   const info = useApp((s) => s.surfaceInfo);
   const view = useShownView();
-  const tolerance = useApp((s) => s.tolerance);
+  const tolerance = useApp((s) => s.workspace.tolerance);
   const surface = useMainThreadSurface(surfaceSpec);
   // The surface the shown study ran on (the page's may have changed since).
   const studySurface = useMainThreadSurface(all.surface ?? surfaceSpec);
   const actions = useActions();
-  const setUp = useApp((s) => studyOfKind(s.studies, 'multi-start'));
+  const setUp = useApp((s) => studyOfKind(s.workspace.studies, 'multi-start'));
   const [choice, setChoice] = useState<DistributionChoice>(setUp?.distribution.kind ?? 'uniform');
   const [count, setCount] = useState(setUp?.count ?? 100);
   const [sd, setSd] = useState(setUp?.distribution.kind === 'gaussian' && typeof setUp.distribution.sd === 'number' ? setUp.distribution.sd : 0.5);

@@ -24,14 +24,14 @@ const fmt = (v: number) => String(+v.toPrecision(4));
 export function RateSweepPanel() {
   const study = useStudyStore();
   const all = useStudy((s) => s);
-  const runs = useApp((s) => s.runs);
+  const runs = useApp((s) => s.workspace.runs);
   const selected = useApp((s) => s.selectedRunId);
-  const surface = useApp((s) => s.surface);
+  const surface = useApp((s) => s.workspace.surface);
   const info = useApp((s) => s.surfaceInfo);
   const studySurface = useMainThreadSurface(all.surface ?? surface);
   const [chosen, setChosen] = useState<string[]>(() => runs.slice(0, 3).map((r) => r.id));
   const actions = useActions();
-  const setUp = useApp((s) => studyOfKind(s.studies, 'lr-sweep'));
+  const setUp = useApp((s) => studyOfKind(s.workspace.studies, 'lr-sweep'));
   const [range, setRangeState] = useState<[number, number]>(setUp?.range ?? [1e-4, 1]);
   const [count, setCountState] = useState(setUp?.count ?? 64);
   useEffect(() => {

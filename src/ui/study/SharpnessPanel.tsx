@@ -27,9 +27,9 @@ interface Sample {
 export function SharpnessPanel() {
   const study = useStudyStore();
   const live = useLiveRuns();
-  const runs = useApp((s) => s.runs);
+  const runs = useApp((s) => s.workspace.runs);
   const selected = useApp((s) => s.selectedRunId);
-  const surface = useApp((s) => s.surface);
+  const surface = useApp((s) => s.workspace.surface);
   const status = useApp((s) => s.status);
   const run = runs.find((r) => r.id === selected) ?? runs[0];
   const [sample, setSample] = useState<Sample | null>(null);

@@ -32,15 +32,15 @@ export function StartMapPanel() {
   const state = mine
     ? { ...all, spec: all.spec as StartMapSpec }
     : { ...all, spec: null, cells: null, status: 'idle' as const, total: 0, done: 0, message: null, known: [] };
-  const runs = useApp((s) => s.runs);
+  const runs = useApp((s) => s.workspace.runs);
   const selected = useApp((s) => s.selectedRunId);
   const view = useShownView();
-  const slice = useApp((s) => s.slice);
-  const surface = useApp((s) => s.surface);
+  const slice = useApp((s) => s.workspace.slice);
+  const surface = useApp((s) => s.workspace.surface);
   const info = useApp((s) => s.surfaceInfo);
   const actions = useActions();
   const builtSurface = useMainThreadSurface(state.surface ?? surface);
-  const setUp = useApp((s) => studyOfKind(s.studies, 'start-map'));
+  const setUp = useApp((s) => studyOfKind(s.workspace.studies, 'start-map'));
   const [resolution, setResolution] = useState(setUp?.resolution ?? 64);
   useEffect(() => {
     if (setUp) setResolution(setUp.resolution);

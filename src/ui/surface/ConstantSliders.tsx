@@ -12,7 +12,7 @@ interface SliderRange {
 /** One slider per named constant; moving it rebuilds the surface and restarts the runs. */
 export function ConstantSliders() {
   const actions = useActions();
-  const surface = useApp((s) => s.surface);
+  const surface = useApp((s) => s.workspace.surface);
   if (surface.kind === 'datafit') return null;
   const ranges = sliderRanges(surface);
   if (!ranges.length) return null;

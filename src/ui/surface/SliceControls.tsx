@@ -18,9 +18,9 @@ export function SliceControls() {
   const live = useLiveRuns();
   const variables = useApp((s) => s.surfaceInfo.variables);
   const knownPoints = useApp((s) => s.surfaceInfo.knownPoints);
-  const slice = useApp((s) => s.slice);
+  const slice = useApp((s) => s.workspace.slice);
   const focus = useApp(focusRun);
-  const spec = useApp((s) => s.surface);
+  const spec = useApp((s) => s.workspace.surface);
   const surface = useMainThreadSurface(spec);
   const id = useId();
   const [seed, setSeed] = useState(1);

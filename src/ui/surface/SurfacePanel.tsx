@@ -10,7 +10,7 @@ import { SliceControls } from './SliceControls';
 /** Choose the surface: a catalogue test function or a typed formula; its constants; the slice. */
 export function SurfacePanel() {
   const actions = useActions();
-  const surface = useApp((s) => s.surface);
+  const surface = useApp((s) => s.workspace.surface);
   const surfaceError = useApp((s) => s.surfaceError);
   const [mode, setMode] = useState<SurfaceSpec['kind']>(surface.kind);
   const id = useId();

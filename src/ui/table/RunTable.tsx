@@ -13,19 +13,19 @@ const FULL_POINT_IN_TOOLTIP = 16;
 
 export function RunTable() {
   const actions = useActions();
-  const runs = useApp((s) => s.runs);
+  const runs = useApp((s) => s.workspace.runs);
   const status = useApp((s) => s.status);
   const info = useApp((s) => s.surfaceInfo);
-  const tolerance = useApp((s) => s.tolerance);
+  const tolerance = useApp((s) => s.workspace.tolerance);
   const table = useApp((s) => s.table);
-  const spec = useApp((s) => s.surface);
+  const spec = useApp((s) => s.workspace.surface);
   const surface = useMainThreadSurface(spec);
   const units = useMemo(() => reportedUnits(surface), [surface]);
   const hasGlobal = info.knownPoints.some((p) => p.kind === 'global-min');
   const all = useMemo(() => resultColumns(info.variables), [info.variables]);
   const chosen = table.columns ?? defaultColumnIds(info.variables, hasGlobal);
   const columns = all.filter((c) => chosen.includes(c.id));
-  const rows = sortRows(resultRows({ runs, status, surfaceInfo: info }, units), all, table.sort);
+  const rows = sortRows(resultRows({ workspace: { runs }, status, surfaceInfo: info }, units), all, table.sort);
   const [copied, setCopied] = useState<string | null>(null);
   // The chooser's boxes are rendered only while it is open: a network has a column per parameter, and
   // a thousand hidden checkboxes re-rendered with every streamed update of the table.

@@ -5,10 +5,10 @@ import type { ResultRow } from './columns';
 import { runErrorMessage } from '../messages';
 
 /** One row per run from the store, every coordinate in the reported units. */
-export function resultRows(s: Pick<AppState, 'runs' | 'status' | 'surfaceInfo'>, units: ReportedUnits): ResultRow[] {
+export function resultRows(s: Pick<AppState, 'status' | 'surfaceInfo'> & { workspace: Pick<AppState['workspace'], 'runs'> }, units: ReportedUnits): ResultRow[] {
   const minima = s.surfaceInfo.knownPoints.filter((p) => p.kind === 'global-min' || p.kind === 'local-min');
   const hasGlobal = s.surfaceInfo.knownPoints.some((p) => p.kind === 'global-min');
-  return s.runs.map((r) => {
+  return s.workspace.runs.map((r) => {
     const st = s.status[r.id];
     const sum = st?.summary;
     const near = sum?.nearestMinimum ? minima[sum.nearestMinimum.index] : null;

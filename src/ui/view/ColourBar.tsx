@@ -12,7 +12,7 @@ const HEIGHT = 220;
  */
 export function ColourBar() {
   const grid = useApp((s) => s.grid);
-  const display = useApp((s) => s.display);
+  const display = useApp((s) => s.workspace.display);
   const info = useApp((s) => s.surfaceInfo);
   const picture = useSurfacePicture(grid, display, info.logScaleOffset);
   const canvas = useRef<HTMLCanvasElement>(null);

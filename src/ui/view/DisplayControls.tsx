@@ -6,8 +6,8 @@ import { useActions, useApp } from '../app-context';
 /** Colour scale, contour levels, colour map, grid resolution, equal scale and overlays. */
 export function DisplayControls() {
   const actions = useActions();
-  const d = useApp((s) => s.display);
-  const equal = useApp((s) => equalScaleOn(s.display, s.surface, s.surfaceInfo.variables.length));
+  const d = useApp((s) => s.workspace.display);
+  const equal = useApp((s) => equalScaleOn(s.workspace.display, s.workspace.surface, s.surfaceInfo.variables.length));
   const id = useId();
   return (
     <div className="display-controls" role="group" aria-label="Display">

@@ -8,9 +8,9 @@ import { specKey, useProbe } from './use-probe';
 /** Point, loss and gradient norm under the pointer (computed exactly at that point, in the worker). */
 export function HoverReadout({ surface }: { surface: Surface | null }) {
   const hover = useHover();
-  const slice = useApp((s) => s.slice);
+  const slice = useApp((s) => s.workspace.slice);
   const variables = useApp((s) => s.surfaceInfo.variables);
-  const spec = useApp((s) => s.surface);
+  const spec = useApp((s) => s.workspace.surface);
   const at = hover ? slicePoint(slice, variables.length, hover.a, hover.b) : null;
   const key = at ? `${specKey(spec)}|${at.join(',')}` : null;
   const answer = useProbe(key, () => Float64Array.from(at!), 1);

@@ -8,8 +8,8 @@ import { SurfaceView } from './SurfaceView';
  * Every panel shows the shared view, so zoom, pan and the hover crosshair are linked across panels.
  */
 export function PanelGrid() {
-  const runs = useApp((s) => s.runs);
-  const panels = useApp((s) => s.panels);
+  const runs = useApp((s) => s.workspace.runs);
+  const panels = useApp((s) => s.workspace.panels);
   if (panels.mode === 'table') {
     const cells = runs.filter((r) => r.cell);
     if (!cells.length) return <p className="hint">Set the table's optimizers and learning rates, then build its runs.</p>;

@@ -51,14 +51,14 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   });
   const overlayRef = useRef<HTMLCanvasElement>(null);
   const size = useElementSize(boxRef);
-  const askedView = useApp((s) => s.view);
+  const askedView = useApp((s) => s.workspace.view);
   const grid = useApp((s) => s.grid);
-  const display = useApp((s) => s.display);
+  const display = useApp((s) => s.workspace.display);
   const info = useApp((s) => s.surfaceInfo);
-  const slice = useApp((s) => s.slice);
-  const runs = useApp((s) => s.runs);
+  const slice = useApp((s) => s.workspace.slice);
+  const runs = useApp((s) => s.workspace.runs);
   const selected = useApp((s) => s.selectedRunId);
-  const surfaceSpec = useApp((s) => s.surface);
+  const surfaceSpec = useApp((s) => s.workspace.surface);
   const surface = useMainThreadSurface(surfaceSpec);
   const layout = useMemo(() => (size ? frameLayout(size, !compact) : null), [size, compact]);
   // The box drawn: the saved view, widened on one axis when equal scale is on (store/equal-scale.ts).
@@ -70,7 +70,7 @@ export function SurfaceView({ runIds, title, compact }: SurfaceViewProps) {
   const picture = useSurfacePicture(grid, display, info.logScaleOffset);
   const n = info.variables.length;
   const titles = axisTitles(slice, info.variables, reportedUnits(surface));
-  const knownPoints = useMemo(() => knownPointsOnSlice({ slice, surfaceInfo: info, display, runs, selectedRunId: selected }), [slice, info, display, runs, selected]);
+  const knownPoints = useMemo(() => knownPointsOnSlice({ workspace: { slice, display, runs }, surfaceInfo: info, selectedRunId: selected }), [slice, info, display, runs, selected]);
 
   // Gradient arrows: the lattice centres are laid out here, their gradients computed in the worker.
   const arrowLattice = useMemo(() => {

@@ -18,7 +18,7 @@ const MODES: { mode: PanelMode; label: string }[] = [
 /** The drawing area: one overlaid map or the panel grid, with the display controls above. */
 export function ViewArea() {
   const actions = useActions();
-  const panels = useApp((s) => s.panels);
+  const panels = useApp((s) => s.workspace.panels);
   const id = useId();
   const store = useStoreApi();
   const live = useLiveRuns();
@@ -45,7 +45,7 @@ export function ViewArea() {
 
 function TableSettings({ id }: { id: string }) {
   const actions = useActions();
-  const panels = useApp((s) => s.panels);
+  const panels = useApp((s) => s.workspace.panels);
   const toggle = (kind: OptimizerKind) =>
     actions.setPanels({ tableOptimizers: panels.tableOptimizers.includes(kind) ? panels.tableOptimizers.filter((k) => k !== kind) : [...panels.tableOptimizers, kind] });
   const rates = panels.tableLearningRates.join(', ');

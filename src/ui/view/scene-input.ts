@@ -1,5 +1,6 @@
 import { projectToPlane } from '../../engine';
 import type { AppState } from '../../store/app-store';
+import type { Workspace } from '../../store/workspace';
 import type { LiveRuns } from '../../store/live-runs';
 import { onPlane, sliceAxes, slicePlane } from '../../store/slice-plane';
 import { runStyle, type KnownPoint as PlotKnownPoint } from '../plot';
@@ -8,13 +9,13 @@ import type { TrajectoryLayerItem } from './scene';
 
 export const KIND_OF_POINT = { 'global-min': 'minimum', 'local-min': 'minimum', 'local-max': 'maximum', saddle: 'saddle' } as const;
 
-type SceneState = Pick<AppState, 'slice' | 'surfaceInfo' | 'display' | 'runs' | 'selectedRunId'>;
+type SceneState = Pick<AppState, 'surfaceInfo' | 'selectedRunId'> & { workspace: Pick<Workspace, 'slice' | 'display' | 'runs'> };
 
 /** Known stationary points that lie on the current slice, in slice coordinates. */
 export function knownPointsOnSlice(s: SceneState): PlotKnownPoint[] {
-  if (!s.display.showKnownPoints) return [];
+  if (!s.workspace.display.showKnownPoints) return [];
   const n = s.surfaceInfo.variables.length;
-  const plane = slicePlane(s.slice, n);
+  const plane = slicePlane(s.workspace.slice, n);
   return s.surfaceInfo.knownPoints
     .filter((p) => p.point.length === n && onPlane(plane, p.point))
     .map((p) => ({ at: projectToPlane(plane, p.point), kind: KIND_OF_POINT[p.kind] }));
@@ -23,10 +24,10 @@ export function knownPointsOnSlice(s: SceneState): PlotKnownPoint[] {
 /** The trajectories to draw: visible runs (or only `runIds`), on axis slices read in place, else projected. */
 export function trajectoryItems(s: SceneState, live: LiveRuns, runIds?: readonly string[]): TrajectoryLayerItem[] {
   const n = s.surfaceInfo.variables.length;
-  const axes = sliceAxes(s.slice);
-  const plane = slicePlane(s.slice, n);
+  const axes = sliceAxes(s.workspace.slice);
+  const plane = slicePlane(s.workspace.slice, n);
   const items: TrajectoryLayerItem[] = [];
-  for (const r of s.runs) {
+  for (const r of s.workspace.runs) {
     if (r.hidden || (runIds && !runIds.includes(r.id))) continue;
     const buffer = live.trajectory(r.id);
     if (!buffer || buffer.count === 0 || buffer.dimension !== n) continue;

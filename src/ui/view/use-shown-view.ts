@@ -9,10 +9,10 @@ import type { ViewBox } from '../../engine';
 import { useApp } from '../app-context';
 
 export function useShownView(): ViewBox {
-  const view = useApp((s) => s.view);
+  const view = useApp((s) => s.workspace.view);
   const frame = useApp((s) => s.frame);
-  const display = useApp((s) => s.display);
-  const surface = useApp((s) => s.surface);
+  const display = useApp((s) => s.workspace.display);
+  const surface = useApp((s) => s.workspace.surface);
   const surfaceInfo = useApp((s) => s.surfaceInfo);
-  return useMemo(() => viewShownBy({ view, frame, display, surface, surfaceInfo }), [view, frame, display, surface, surfaceInfo]);
+  return useMemo(() => viewShownBy({ workspace: { view, display, surface }, frame, surfaceInfo }), [view, frame, display, surface, surfaceInfo]);
 }

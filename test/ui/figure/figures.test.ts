@@ -19,7 +19,7 @@ const multiStart: StudyState = {
 describe('the loss chart figure', () => {
   const trajectory = { loss: Float64Array.of(3, 2, 1), count: 3 };
   const live = { trajectory: (id: string) => (id === 'a' ? trajectory : undefined) } as never;
-  const state = { runs: [{ id: 'a', label: 'Plain descent', style: 0, hidden: false }, { id: 'b', label: 'Hidden', style: 1, hidden: true }], surfaceInfo: { label: 'Bowl', knownPoints: [] } } as never;
+  const state = { workspace: { runs: [{ id: 'a', label: 'Plain descent', style: 0, hidden: false }, { id: 'b', label: 'Hidden', style: 1, hidden: true }] }, surfaceInfo: { label: 'Bowl', knownPoints: [] } } as never;
 
   it('keys the visible runs, and the multi-start median and band only when a multi-start study has them', () => {
     expect(multiStartBand(idle)).toBeNull();

@@ -20,7 +20,7 @@ export function multiStartBand(study: Pick<StudyState, 'spec' | 'bands' | 'confi
 }
 
 export function lossFigure(s: AppState, live: LiveRuns, study: StudyState): Figure {
-  const series = lossSeriesOf(s.runs, live);
+  const series = lossSeriesOf(s.workspace.runs, live);
   const band = multiStartBand(study);
   const axis = chooseLossAxis(series, knownMinimumOf(s.surfaceInfo.knownPoints));
   const key: KeyEntry[] = series.map((t) => ({ kind: 'run', style: t.style, label: t.label }));

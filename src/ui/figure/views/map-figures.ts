@@ -35,13 +35,13 @@ const KNOWN_NAMES: Record<KnownPointKind, string> = { minimum: 'minimum', saddle
  */
 export async function mapFigureWhenDrawn(state: () => AppState, live: LiveRuns): Promise<Figure> {
   const s = state();
-  await buildPicture(s.grid, s.display, s.surfaceInfo.logScaleOffset);
+  await buildPicture(s.grid, s.workspace.display, s.surfaceInfo.logScaleOffset);
   return mapFigure(state(), live);
 }
 
 export function mapFigure(s: AppState, live: LiveRuns): Figure {
-  if (s.panels.mode === 'per-run') return perRunFigure(s, live);
-  if (s.panels.mode === 'table') return tableFigure(s, live);
+  if (s.workspace.panels.mode === 'per-run') return perRunFigure(s, live);
+  if (s.workspace.panels.mode === 'table') return tableFigure(s, live);
   const items = trajectoryItems(s, live);
   return {
     title: s.surfaceInfo.label,
@@ -51,7 +51,7 @@ export function mapFigure(s: AppState, live: LiveRuns): Figure {
 }
 
 function perRunFigure(s: AppState, live: LiveRuns): Figure {
-  const visible = s.runs.filter((r) => !r.hidden);
+  const visible = s.workspace.runs.filter((r) => !r.hidden);
   const columns = Math.min(3, Math.max(1, visible.length));
   return {
     title: s.surfaceInfo.label,
@@ -70,8 +70,8 @@ function perRunFigure(s: AppState, live: LiveRuns): Figure {
 }
 
 function tableFigure(s: AppState, live: LiveRuns): Figure {
-  const cells = s.runs.filter((r) => r.cell);
-  const { tableLearningRates: rates, tableOptimizers: kinds } = s.panels;
+  const cells = s.workspace.runs.filter((r) => r.cell);
+  const { tableLearningRates: rates, tableOptimizers: kinds } = s.workspace.panels;
   return {
     title: s.surfaceInfo.label,
     key: [...runKey(s, live, cells.map((r) => r.id)), ...knownKey(s)],
@@ -108,16 +108,16 @@ function tableFigure(s: AppState, live: LiveRuns): Figure {
 function drawMap(ctx: FigureContext, s: AppState, live: LiveRuns, size: PixelSize, options: { withLegend?: boolean; runIds?: string[]; title?: string }): void {
   const layout = frameLayout(size, options.withLegend ?? false);
   const view = viewShownBy(s); // the box the screen shows (widened under equal scale), which the grid covers
-  const surface = mainThreadSurface(s.surface);
+  const surface = mainThreadSurface(s.workspace.surface);
   const n = s.surfaceInfo.variables.length;
-  const arrows = s.display.showArrows && surface && surface.dimension === n
-    ? planeArrows(surface, s.slice, frameTransform(view, layout), options.withLegend ? ARROW_SPACING : COMPACT_ARROW_SPACING)
+  const arrows = s.workspace.display.showArrows && surface && surface.dimension === n
+    ? planeArrows(surface, s.workspace.slice, frameTransform(view, layout), options.withLegend ? ARROW_SPACING : COMPACT_ARROW_SPACING)
     : [];
   drawBase(ctx, {
     layout,
     view,
-    picture: cachedPicture(s.grid, s.display, s.surfaceInfo.logScaleOffset),
-    axisLabels: axisTitles(s.slice, s.surfaceInfo.variables, reportedUnits(surface)),
+    picture: cachedPicture(s.grid, s.workspace.display, s.surfaceInfo.logScaleOffset),
+    axisLabels: axisTitles(s.workspace.slice, s.surfaceInfo.variables, reportedUnits(surface)),
     knownPoints: knownPointsOnSlice(s),
     arrows,
     title: options.title,
@@ -126,7 +126,7 @@ function drawMap(ctx: FigureContext, s: AppState, live: LiveRuns, size: PixelSiz
 }
 
 function drawColourBar(ctx: FigureContext, s: AppState, x: number, height: number): void {
-  const picture = cachedPicture(s.grid, s.display, s.surfaceInfo.logScaleOffset);
+  const picture = cachedPicture(s.grid, s.workspace.display, s.surfaceInfo.logScaleOffset);
   if (!picture) return;
   const barHeight = Math.min(BAR_MAX_HEIGHT, height);
   inBox(ctx, x, 0, () => drawLegend(ctx, picture.legend, { px: 14, py: 18, width: 14, height: barHeight - 30 }, 'loss'));
