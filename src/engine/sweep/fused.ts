@@ -78,7 +78,7 @@ export interface FusedState extends FusedArrays {
   c: Float64Array;
   /** Per run, the blow-up rule's bound on f - f0: blowUpFactor * max(1, |f0|) (checks.ts). */
   blowUpBound: Float64Array;
-  /** Loss tolerance, step limit, gradient-norm and loss-change tolerances, patience, run count. */
+  /** Loss tolerance, step limit, gradient-norm and loss-change tolerances, patience, run count, the tolerance's target. */
   numbers: Float64Array;
   host: FusedHost;
 }
@@ -110,7 +110,7 @@ export function fusedKernel(
   surface: Surface,
   transforms: readonly GradientTransform[],
   stop: StopRules,
-  lossTolerance: number,
+  reach: { tolerance: number; target: number },
   count: number,
   arrays: FusedArrays,
   host: FusedHost,
@@ -122,17 +122,18 @@ export function fusedKernel(
   const { code: gradient, constants } = formula.inlineGradient();
   const gradientRule = stop.gradientNormTolerance !== undefined;
   const calmRule = stop.lossChangeTolerance !== undefined;
-  const source = kernelSource(n, gradient, codes, { tolerance: !Number.isNaN(lossTolerance), gradientRule, calmRule });
+  const source = kernelSource(n, gradient, codes, { tolerance: !Number.isNaN(reach.tolerance), gradientRule, calmRule });
   const states = codes.flatMap((c) => c.arrays.map((initial) => new Float64Array(count * n).fill(initial)));
   const blowUp = stop.blowUpFactor ?? DEFAULT_BLOW_UP_FACTOR;
   const blowUpBound = arrays.initialLoss.map((f0) => blowUp * Math.max(1, Math.abs(f0)));
   const numbers = Float64Array.of(
-    lossTolerance,
+    reach.tolerance,
     stop.maxSteps,
     stop.gradientNormTolerance ?? Number.NaN,
     stop.lossChangeTolerance ?? Number.NaN,
     stop.lossChangePatience ?? DEFAULT_LOSS_CHANGE_PATIENCE,
     count,
+    reach.target,
   );
   const state: FusedState = { ...arrays, states, constants: codes.map((c) => Float64Array.from(c.constants)), c: constants, blowUpBound, numbers, host };
   const offsets: number[] = [];
@@ -186,7 +187,7 @@ export function kernelSource(
     'const G = S.grad, IL = S.initialLoss, TT = S.stepsToTolerance, BOUND = S.blowUpBound;',
     'const RP = S.ringPoints, RL = S.ringLoss, CALM = S.calm, LIVE = S.live, HOST = S.host, c = S.c, P = S.numbers;',
     // The run count as an integer, so the ring's index arithmetic stays in integers.
-    'const TOL = P[0], MAX_STEPS = P[1], GTOL = P[2], CTOL = P[3], PATIENCE = P[4], COUNT = P[5] | 0;',
+    'const TOL = P[0], MAX_STEPS = P[1], GTOL = P[2], CTOL = P[3], PATIENCE = P[4], COUNT = P[5] | 0, TARGET = P[6];',
   );
   let state = 0;
   const names = codes.map((c, ti) => {
@@ -221,7 +222,7 @@ export function kernelSource(
   lines.push(...gradient.statements, `const loss = ${gradient.value};`);
   for (const i of coords) lines.push(`const g${i} = ${gradient.gradient[i]}; G[${at(i)}] = g${i};`);
   if (rules.calmRule) lines.push('const previous = RL[previousAt + r];');
-  if (rules.tolerance) lines.push('if (loss <= TOL && TT[r] < 0) TT[r] = t;');
+  if (rules.tolerance) lines.push('if (loss - TARGET <= TOL && TT[r] < 0) TT[r] = t;');
   lines.push(
     `const ring = (ringAt + r) * ${n};`,
     ...coords.map((i) => `RP[${i === 0 ? 'ring' : `ring + ${i}`}] = x${i};`),

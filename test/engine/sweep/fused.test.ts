@@ -106,6 +106,10 @@ describe('Sweep fused kernel: the same bits as the block path and as RunCursor',
     const a = expectSameBits({ surface: rosenbrock, optimizer: spec('adam', 0.02), stop: { maxSteps: 2000, lossChangeTolerance: 1e-10, lossChangePatience: 5 }, starts: gridStarts(-2, 2, -1, 3, 6), lossTolerance: 1e-4 });
     expect(a.outcomes.some((o) => o!.step < 2000)).toBe(true);
     expect(a.stepsToTolerance.some((s) => s > 0)).toBe(true);
+    // A target other than 0 (loss - target <= tolerance): from 0.5 every run gets there no later than from 0, some sooner.
+    const shifted = expectSameBits({ surface: rosenbrock, optimizer: spec('adam', 0.02), stop: { maxSteps: 2000, lossChangeTolerance: 1e-10, lossChangePatience: 5 }, starts: gridStarts(-2, 2, -1, 3, 6), lossTolerance: 1e-4, lossTarget: 0.5 });
+    expect(shifted.stepsToTolerance.every((s, r) => a.stepsToTolerance[r] < 0 || (s >= 0 && s <= a.stepsToTolerance[r]))).toBe(true);
+    expect(shifted.stepsToTolerance.some((s, r) => s >= 0 && s < a.stepsToTolerance[r])).toBe(true);
     const b = expectSameBits({ surface: himmelblau, optimizer: spec('gd', 0.01), stop: { maxSteps: 1000, gradientNormTolerance: 1e-6 }, starts: gridStarts(-5, 5, -5, 5, 6) });
     expect(b.outcomes.filter((o) => o!.kind === 'converged' && o!.step < 1000).length).toBeGreaterThan(0);
     // Large rates on the quartic: coordinates overflow (non-finite) or the loss blows up; some runs stay.
