@@ -408,7 +408,8 @@ export class Sweep implements FusedHost {
         for (; q < batch && alive > k; q++) {
           const t = t0 + q + 1;
           this.totalSteps += alive - k;
-          alive = kernel.round(kernel.state, k, alive, k, t, rates[q], numbers, q * width, t % RECENT_POINTS, (t & (t - 1)) === 0 ? 1 : 0);
+          alive = kernel.round(kernel.state, k, alive, k, t, rates[q], numbers, q * width, t % RECENT_POINTS);
+          if ((t & (t - 1)) === 0) for (let j = k; j < alive; j++) this.recordFusedMilestone(live[j], t);
         }
         used = Math.max(used, q);
         for (let j = k; j < alive; j++) live[kept++] = live[j];
@@ -425,6 +426,7 @@ export class Sweep implements FusedHost {
   endFusedPoint(r: number, t: number): void {
     this.syncFused(r, t);
     const n = this.dimension;
+    if ((t & (t - 1)) === 0) recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
     const finding = pointFindingAt(this.x, this.grad, r * n, n, this.loss[r], this.initialLoss[r], this.stop);
     this.endFlat(r, finding as Exclude<PointFinding, 'ok'>, null);
   }
@@ -432,6 +434,8 @@ export class Sweep implements FusedHost {
   /** For the fused kernel (FusedHost): the loss-change rule or the step limit ended run r at step t. */
   endFusedProgress(r: number, t: number): void {
     this.syncFused(r, t);
+    const n = this.dimension;
+    if ((t & (t - 1)) === 0) recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
     this.endFlat(r, null, progressTrigger(this.stop, this.calm[r], t));
   }
 
@@ -448,8 +452,8 @@ export class Sweep implements FusedHost {
     this.evaluations[r] = t + 1;
   }
 
-  /** For the fused kernel (FusedHost): run r's distance milestone at step t, as recordRecentAt records it. */
-  recordFusedMilestone(r: number, t: number): void {
+  /** A fused run's distance milestone at step t (a power of 2), as recordRecentAt records it (after the kernel's round). */
+  private recordFusedMilestone(r: number, t: number): void {
     this.syncFused(r, t);
     const n = this.dimension;
     recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
