@@ -52,6 +52,16 @@ test('a start-point map on Himmelblau colours the four basins, lists their share
   expect(header.slice(0, 6)).toEqual(['study', 'index', 'optimizer', 'learning_rate', 'start_x', 'start_y']);
   const basins = new Set(body.map((r) => r[header.indexOf('basin')]));
   expect([...basins].filter((b) => b.startsWith('minimum')).length).toBe(4);
+  // Steps to tolerance (Himmelblau's minima are all 0): filled for the runs that got within the
+  // page's tolerance, a whole number no larger than the run's steps; the legend says the shade is that.
+  const toTolerance = header.indexOf('steps_to_tolerance');
+  const filled = body.filter((r) => r[toTolerance] !== '');
+  expect(filled.length).toBeGreaterThan(512);
+  for (const r of filled) {
+    expect(Number.isInteger(Number(r[toTolerance]))).toBe(true);
+    expect(Number(r[toTolerance])).toBeLessThanOrEqual(Number(r[header.indexOf('steps')]));
+  }
+  await expect(panel.getByTestId('start-map-shade')).toContainText("lighter = more steps to tolerance, to a loss within");
 });
 
 test('a long start-point map can be cancelled and stops', async ({ page }) => {
@@ -83,6 +93,10 @@ test('multi-start on Himmelblau: summary with the success rate, outcomes, the qu
   expect(rate).toBeGreaterThan(0.5);
   expect(rate).toBeLessThanOrEqual(1);
   await expect(summary).toContainText('minimum (3, 2)');
+  const reach = summary.locator('tr[data-key="steps-to-tolerance"] td');
+  await expect(reach).toContainText("of 60 starts that reached it (loss within");
+  const reached = Number(await reach.getAttribute('data-reached'));
+  expect(reached).toBeGreaterThan(30);
   const px = await canvasPixels(page, 'multi-start-bands');
   let blue = 0;
   for (let k = 0; k < px.data.length; k += 4) if (px.data[k + 2] > 150 && px.data[k] < 120) blue++;
@@ -92,6 +106,9 @@ test('multi-start on Himmelblau: summary with the success rate, outcomes, the qu
   const parsed = Papa.parse<string[]>(readFileSync((await (await download).path())!, 'utf8').trim(), { skipEmptyLines: true });
   expect(parsed.data).toHaveLength(61);
   expect(parsed.data[1][0]).toBe('multi-start');
+  // The CSV's column and the summary count the same starts.
+  const column = parsed.data[0].indexOf('steps_to_tolerance');
+  expect(parsed.data.slice(1).filter((r) => r[column] !== '').length).toBe(reached);
 });
 
 test('learning-rate sweep on x^2 + 10 y^2: observed thresholds at 2/lambda_max and 2(1+mu)/lambda_max beside the predictions, chart drawn', async ({ page }) => {

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { expect, test, type Page } from '@playwright/test';
+import Papa from 'papaparse';
 import { buildCli, fall, scratch, writeJson } from '../test/cli/built-cli';
 import { openFresh, waitForContours } from './helpers';
 
@@ -35,6 +36,10 @@ test.describe('studies in the experiment file', () => {
     await expect(panel.locator('.study-progress')).toHaveAttribute('data-status', 'done', { timeout: 60_000 });
     await expect(panel.getByTestId('start-map-set-up')).toContainText('16 × 16 cells');
     const pageCsv = await exported(page, 'Map CSV', panel);
+    // The map's CSV carries steps to tolerance (Himmelblau's known minima are at 0), so the byte check covers them.
+    const rows = Papa.parse<string[]>(pageCsv.trim()).data;
+    const column = rows[0].indexOf('steps_to_tolerance');
+    expect(rows.slice(1).filter((r) => /^\d+$/.test(r[column] ?? '')).length).toBeGreaterThan(100);
 
     const experiment = await exported(page, 'Save experiment');
     const file = JSON.parse(experiment);

@@ -3,6 +3,7 @@ import type { StudyCellResults, StudySpec } from '../engine';
 import { buildSurface, describeSurface } from '../problems';
 import { reportedUnits } from '../io/units';
 import { resultsCsvOf, referenceMinima, trajectoriesCsvPieces } from '../io/run-exports';
+import { toleranceTarget } from '../io/run-summary';
 import { cellTable, studyCsvOf } from '../io/study-exports';
 import { STUDY_CSV } from '../io/study-csv';
 import { EXIT } from './exit-codes';
@@ -58,7 +59,7 @@ export async function runCommand(o: RunOptions, log: (line: string) => void): Pr
   const progress = createProgress(o.progress, share.length + totalCells, { stdout: process.stdout, stderr: process.stderr });
   const cellsDone = studies.map(() => 0);
   const started = Date.now();
-  const job = { surface: experiment.surface, runs: experiment.runs, studies, minima, tolerance: experiment.tolerance };
+  const job = { surface: experiment.surface, runs: experiment.runs, studies, minima, tolerance: experiment.tolerance, target: toleranceTarget(minima, experiment.tolerance) };
   const pool = runOnThreads(o.workerFile, job, tasks, Math.max(1, o.threads), (unit, r) => {
     const task = tasks[unit];
     if (r.kind === 'run') return progress.runDone(runLine(runs[unit].id, runs[unit].label, r.result));
@@ -109,12 +110,15 @@ export async function runCommand(o: RunOptions, log: (line: string) => void): Pr
 /** A shard's pieces of one study as one list, in the order computed. */
 function joinPieces(pieces: readonly StudyCellResults[], n: number): StudyCellResults {
   const count = pieces.reduce((s, p) => s + p.indices.length, 0);
-  const out: StudyCellResults = { indices: new Int32Array(count), steps: new Int32Array(count), loss: new Float64Array(count), endPoints: new Float64Array(count * n), outcomes: [] };
+  const out: StudyCellResults = {
+    indices: new Int32Array(count), steps: new Int32Array(count), loss: new Float64Array(count), endPoints: new Float64Array(count * n), stepsToTolerance: new Int32Array(count), outcomes: [],
+  };
   let at = 0;
   for (const p of pieces) {
     out.indices.set(p.indices, at);
     out.steps.set(p.steps, at);
     out.loss.set(p.loss, at);
+    out.stepsToTolerance.set(p.stepsToTolerance, at);
     out.endPoints.set(p.endPoints, at * n);
     out.outcomes.push(...p.outcomes);
     at += p.indices.length;

@@ -18,7 +18,7 @@ parentPort!.on('message', (msg: JobMessage) => {
     return;
   }
   surface ??= buildSurface(job.surface);
-  const cells = runStudyCells(job.studies[task.study], surface, task.cells);
+  const cells = runStudyCells(job.studies[task.study], surface, task.cells, job.target);
   const reply: ResultMessage = { unit: msg.unit, result: { kind: 'cells', cells } };
-  parentPort!.postMessage(reply, [cells.indices.buffer, cells.steps.buffer, cells.loss.buffer, cells.endPoints.buffer] as ArrayBuffer[]);
+  parentPort!.postMessage(reply, [cells.indices.buffer, cells.steps.buffer, cells.loss.buffer, cells.endPoints.buffer, cells.stepsToTolerance.buffer] as ArrayBuffer[]);
 });

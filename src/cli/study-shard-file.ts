@@ -21,7 +21,7 @@ export interface StudyShardFile {
 const SPECIAL: Record<string, number> = { NaN: Number.NaN, Infinity: Infinity, '-Infinity': -Infinity, '-0': -0 };
 
 export function studyShardText(file: StudyShardFile): string {
-  const plain = { ...file, studies: file.studies.map((c) => ({ indices: Array.from(c.indices), steps: Array.from(c.steps), loss: Array.from(c.loss), endPoints: Array.from(c.endPoints), outcomes: c.outcomes })) };
+  const plain = { ...file, studies: file.studies.map((c) => ({ indices: Array.from(c.indices), steps: Array.from(c.steps), loss: Array.from(c.loss), endPoints: Array.from(c.endPoints), stepsToTolerance: Array.from(c.stepsToTolerance), outcomes: c.outcomes })) };
   return JSON.stringify(plain, (_key, v) => (typeof v === 'number' && (!Number.isFinite(v) || Object.is(v, -0)) ? { float: Object.is(v, -0) ? '-0' : String(v) } : v)) + '\n';
 }
 
@@ -31,8 +31,13 @@ export function readStudyShard(text: string): StudyShardFile {
   if (value?.format !== 'fall-line-study-cells' || !Array.isArray(value.studies)) throw new Error('not a shard study-cells file');
   return {
     ...value,
-    studies: value.studies.map((c: Record<string, number[]> & { outcomes: StudyCellResults['outcomes'] }) => ({
-      indices: Int32Array.from(c.indices), steps: Int32Array.from(c.steps), loss: Float64Array.from(c.loss), endPoints: Float64Array.from(c.endPoints), outcomes: c.outcomes,
-    })),
+    studies: value.studies.map((c: Record<string, number[]> & { outcomes: StudyCellResults['outcomes'] }) => {
+      // Shards written before steps to tolerance were kept lack them: refuse rather than write an empty column.
+      if (!Array.isArray(c.stepsToTolerance)) throw new Error('shard study-cells file has no steps to tolerance (written by an older fall): run the shard again');
+      return {
+        indices: Int32Array.from(c.indices), steps: Int32Array.from(c.steps), loss: Float64Array.from(c.loss), endPoints: Float64Array.from(c.endPoints),
+        stepsToTolerance: Int32Array.from(c.stepsToTolerance), outcomes: c.outcomes,
+      };
+    }),
   };
 }

@@ -1,5 +1,5 @@
 /** What `fall run` and its worker threads send each other. */
-import type { StudyCellResults, StudySpec } from '../engine';
+import type { StudyCellResults, StudySpec, ToleranceTarget } from '../engine';
 import type { RunConfig } from '../io/experiment/types';
 import type { ReferenceMinimum } from '../io/run-summary';
 import type { SurfaceSpec } from '../problems';
@@ -12,6 +12,8 @@ export interface ThreadJob {
   studies: StudySpec[];
   minima: ReferenceMinimum[];
   tolerance: number;
+  /** What the studies' steps to tolerance are measured against (io/run-summary.ts toleranceTarget). */
+  target: ToleranceTarget | null;
 }
 
 /** One piece of work: a run of the file, or some cells of a study (engine/study/cells.ts). */

@@ -1,4 +1,4 @@
-import type { StudySpec } from '../engine';
+import type { StudySpec, ToleranceTarget } from '../engine';
 import type { SurfaceSpec } from '../problems';
 import type { EngineLink, FromPoolMember, FromWorker, RunOutcome, ToWorker } from '../protocol';
 import type { WorkerLike } from './grid-pool';
@@ -70,7 +70,7 @@ export class StudyPool implements EngineLink {
   send(msg: ToWorker): void {
     switch (msg.type) {
       case 'study/start':
-        return this.start(msg.requestId, msg.surface, msg.study);
+        return this.start(msg.requestId, msg.surface, msg.study, msg.target);
       case 'study/cancel':
         if (this.job?.requestId === msg.requestId) this.drop(this.job);
         return;
@@ -80,13 +80,13 @@ export class StudyPool implements EngineLink {
     }
   }
 
-  private start(requestId: string, surface: SurfaceSpec, spec: StudySpec): void {
+  private start(requestId: string, surface: SurfaceSpec, spec: StudySpec, target: ToleranceTarget | null): void {
     if (this.job) this.drop(this.job);
     const live = this.members.filter((_, k) => this.alive[k]);
     if (live.length === 0) return this.emit({ type: 'study/error', requestId, message: 'study pool: every worker has failed' });
     const total = studyCellCount(spec);
     this.job = { requestId, surface, spec, total, done: 0, parts: live.length, partsDone: 0, outcomes: new Array(total), curves: new Array(total), finishing: false, startedAt: this.clock() };
-    live.forEach((m, index) => m.postMessage({ type: 'study/start', requestId, surface, study: spec, part: { index, count: live.length } }));
+    live.forEach((m, index) => m.postMessage({ type: 'study/start', requestId, surface, study: spec, target, part: { index, count: live.length } }));
   }
 
   private drop(job: StudyJob): void {

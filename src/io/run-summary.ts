@@ -1,4 +1,4 @@
-import { stepOfRow, type RunOutcome, type TrajectoryBatch } from '../engine';
+import { stepOfRow, type RunOutcome, type ToleranceTarget, type TrajectoryBatch } from '../engine';
 
 /** A known stationary point the summary can measure distance to (minima of the catalogue surfaces). */
 export interface ReferenceMinimum {
@@ -87,6 +87,16 @@ export function resummarise(previous: RunSummary, kept: TrajectoryBatch, minima:
     return { ...rest, nearestMinimum, stepsToTolerance: step, ...(exact ? {} : { stepsToToleranceIsBound: true as const }) };
   }
   return { ...rest, nearestMinimum, stepsToTolerance: previous.steps, stepsToToleranceIsBound: true };
+}
+
+/**
+ * What steps to tolerance are measured against, for the run table and the studies alike: the lowest
+ * reference minimum's value (referenceMinima: none unless the surface lists a global minimum), or
+ * null where there is none.
+ */
+export function toleranceTarget(minima: readonly ReferenceMinimum[], tolerance: number): ToleranceTarget | null {
+  const value = lowestValue(minima);
+  return value === null ? null : { value, tolerance };
 }
 
 function lowestValue(minima: readonly ReferenceMinimum[]): number | null {

@@ -12,7 +12,9 @@ import { reportedUnits } from './units';
  *   steps, final_loss
  *   final_<variable> ...  the end point
  *   basin                 the known point or end-point cluster the run ended in; empty when none
- *   steps_to_tolerance    first step within the tolerance of the lowest known minimum; empty if never
+ *   steps_to_tolerance    first step (0: the start) whose loss - f_min <= the tolerance, f_min the lowest
+ *                         known minimum's value (io/run-summary.ts toleranceTarget); empty if never, and
+ *                         empty in every row on a surface without a known minimum (nothing to measure from)
  * Points (start and end) are in the reported units (units.ts: the data's original units for a
  * standardised data fit), like the results and trajectory CSVs.
  */
@@ -58,6 +60,8 @@ export interface StudyCellTable {
   steps: Int32Array;
   loss: Float64Array;
   endPoints: Float64Array;
+  /** First step within the tolerance (engine/study ToleranceTarget), -1 if never or not measured. */
+  stepsToTolerance: Int32Array;
   outcomes: (RunOutcome | undefined)[];
 }
 
@@ -77,7 +81,7 @@ export function studyRows(spec: StudySpec, surface: Surface, cells: StudyCellTab
   for (let c = 0; c < cells.filled.length; c++) {
     const outcome = cells.outcomes[c];
     if (!cells.filled[c] || !outcome) continue;
-    const common = { index: c, outcome, steps: cells.steps[c], finalLoss: cells.loss[c], endPoint: reported(cells.endPoints.subarray(c * n, (c + 1) * n)), basin: basinOf(c), stepsToTolerance: null };
+    const common = { index: c, outcome, steps: cells.steps[c], finalLoss: cells.loss[c], endPoint: reported(cells.endPoints.subarray(c * n, (c + 1) * n)), basin: basinOf(c), stepsToTolerance: cells.stepsToTolerance[c] >= 0 ? cells.stepsToTolerance[c] : null };
     if (spec.kind === 'start-map') rows.push({ ...common, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: reported(cellStart(spec, c, new Float64Array(n))) });
     else if (spec.kind === 'multi-start') rows.push({ ...common, optimizer: spec.optimizer.kind, learningRate: spec.optimizer.learningRate, start: reported(starts!.subarray(c * n, (c + 1) * n)) });
     else rows.push({ ...common, optimizer: spec.optimizers[Math.floor(c / spec.count)].label, learningRate: rates![c % spec.count], start: reported(spec.start) });

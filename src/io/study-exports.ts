@@ -15,7 +15,7 @@ import type { ViewBox } from '../engine';
 /** Cells from any number of pieces (shards, threads) into one table by cell index; every cell exactly once. */
 export function cellTable(spec: StudySpec, n: number, pieces: readonly StudyCellResults[]): StudyCellTable {
   const size = studySize(spec);
-  const table: StudyCellTable = { filled: new Uint8Array(size), steps: new Int32Array(size), loss: new Float64Array(size), endPoints: new Float64Array(size * n), outcomes: new Array(size) };
+  const table: StudyCellTable = { filled: new Uint8Array(size), steps: new Int32Array(size), loss: new Float64Array(size), endPoints: new Float64Array(size * n), stepsToTolerance: new Int32Array(size).fill(-1), outcomes: new Array(size) };
   for (const p of pieces)
     p.indices.forEach((cell, k) => {
       if (!(cell >= 0 && cell < size)) throw new Error(`study cells: cell ${cell} is outside 0..${size - 1}`);
@@ -23,6 +23,7 @@ export function cellTable(spec: StudySpec, n: number, pieces: readonly StudyCell
       table.filled[cell] = 1;
       table.steps[cell] = p.steps[k];
       table.loss[cell] = p.loss[k];
+      table.stepsToTolerance[cell] = p.stepsToTolerance[k];
       table.endPoints.set(p.endPoints.subarray(k * n, (k + 1) * n), cell * n);
       table.outcomes[cell] = p.outcomes[k];
     });

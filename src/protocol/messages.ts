@@ -6,7 +6,7 @@
  * Identity: each launch of a run gets a fresh `runId`, each grid request a fresh `requestId`; the page
  * drops any message whose id is no longer current, so work superseded by an edit can never be drawn.
  */
-import type { CriticalPoint, GridRequest, OptimizerSpec, RunOutcome, RunSettings, StudySpec, SweepThreshold, TrajectoryBatch } from '../engine';
+import type { CriticalPoint, GridRequest, OptimizerSpec, RunOutcome, RunSettings, StudySpec, SweepThreshold, ToleranceTarget, TrajectoryBatch } from '../engine';
 import type { CsvImport, SurfaceSpec } from '../problems';
 
 /** Everything needed to reproduce one run. */
@@ -42,9 +42,10 @@ export type ToWorker =
   | { type: 'profile/sample'; requestId: string; surface: SurfaceSpec; from: number[]; to: number[]; alphas: { from: number; to: number; count: number } }
   /**
    * Run a study (src/worker/studies.ts), or with `part` only that share of it (the page's study pool,
-   * src/client/study-pool.ts); a new study supersedes the one in progress.
+   * src/client/study-pool.ts); a new study supersedes the one in progress. `target`: what each run's
+   * steps to tolerance are measured against (null: the surface has no known minimum, not measured).
    */
-  | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StudySpec; part?: StudyPart }
+  | { type: 'study/start'; requestId: string; surface: SurfaceSpec; study: StudySpec; target: ToleranceTarget | null; part?: StudyPart }
   /**
    * The end of a study run in parts, from the merged cells: a multi-start's loss bands from every
    * run's loss curve (by cell), a learning-rate sweep's thresholds from every outcome; answered by
@@ -86,6 +87,8 @@ export interface StudyCells {
   loss: Float64Array;
   /** count x n end points, row-major. */
   endPoints: Float64Array;
+  /** First step within the study's tolerance target, -1 if never or not measured. */
+  stepsToTolerance: Int32Array;
   outcomes: RunOutcome[];
 }
 

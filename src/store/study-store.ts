@@ -1,5 +1,5 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
-import { assignBasins, BasinTracker, OUTCOME_KINDS, type CriticalPoint, type KnownPoint, type OutcomeKind, type RunOutcome, type StudySpec } from '../engine';
+import { assignBasins, BasinTracker, OUTCOME_KINDS, type CriticalPoint, type KnownPoint, type OutcomeKind, type RunOutcome, type StudySpec, type ToleranceTarget } from '../engine';
 import type { SurfaceSpec } from '../problems';
 import type { FromWorker, StudyCells, StudyThreshold } from '../protocol';
 import type { EngineLink } from './engine-link';
@@ -15,6 +15,8 @@ export interface StudyCellsState {
   steps: Int32Array;
   loss: Float64Array;
   endPoints: Float64Array;
+  /** First step within the study's tolerance target, -1 if never or not measured (StudyState.target). */
+  stepsToTolerance: Int32Array;
   outcomes: (RunOutcome | undefined)[];
 }
 
@@ -34,6 +36,11 @@ export interface StudyState {
   basinLabels: string[];
   /** The known minima the basins are measured against (drawn on the map). */
   known: KnownPoint[];
+  /**
+   * What the cells' steps to tolerance were measured against when the study started (the lowest known
+   * minimum's value and the page's tolerance then); null: the surface has no known minimum.
+   */
+  target: ToleranceTarget | null;
   /** Multi-start studies: the 25%, 50% and 75% quantiles of the loss across runs, per step. */
   bands: Float64Array[] | null;
   /** Learning-rate sweeps: per optimizer, the observed and predicted divergence thresholds. */
@@ -50,6 +57,8 @@ export interface StudyParams {
   known: KnownPoint[];
   /** End points within this distance share a basin (BasinTracker). */
   basinRadius: number;
+  /** What steps to tolerance are measured against (io/run-summary.ts toleranceTarget); absent: not measured. */
+  target?: ToleranceTarget | null;
 }
 
 export interface StudyStore {
@@ -77,7 +86,7 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
   let lastUpdate = -Infinity;
   const store = createStore<StudyState>(() => ({
     status: 'idle', message: null, requestId: null, spec: null, surface: null, variables: [], configLabel: '',
-    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], bands: null, thresholds: null, version: 0,
+    done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], target: null, bands: null, thresholds: null, version: 0,
   }));
   let tracker: BasinTracker | null = null;
   let basinRadius = 1;
@@ -95,6 +104,7 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
       c.basin[index] = tracker!.assign(end, outcome.kind);
       c.steps[index] = cells.steps[k];
       c.loss[index] = cells.loss[k];
+      c.stepsToTolerance[index] = cells.stepsToTolerance[k];
       c.endPoints.set(end, index * n);
       c.outcomes[index] = outcome;
     });
@@ -167,7 +177,7 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
 
   return {
     store,
-    start({ surface, variables, spec, configLabel, known, basinRadius: radius }) {
+    start({ surface, variables, spec, configLabel, known, basinRadius: radius, target = null }) {
       const previous = store.getState().requestId;
       if (previous) link.send({ type: 'study/cancel', requestId: previous });
       const count = studyCellCount(spec);
@@ -176,14 +186,14 @@ export function createStudyStore(link: EngineLink, clock: () => number = () => p
       basinRadius = radius;
       const requestId = freshId('study');
       store.setState({
-        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels], known, bands: null, thresholds: null,
+        status: 'running', message: null, requestId, spec, surface, variables, configLabel, done: 0, total: count, elapsedMs: 0, basinLabels: [...tracker.labels], known, target, bands: null, thresholds: null,
         cells: {
           filled: new Uint8Array(count), kind: new Uint8Array(count), basin: new Int32Array(count).fill(-1), steps: new Int32Array(count),
-          loss: new Float64Array(count), endPoints: new Float64Array(count * n), outcomes: new Array(count),
+          loss: new Float64Array(count), endPoints: new Float64Array(count * n), stepsToTolerance: new Int32Array(count).fill(-1), outcomes: new Array(count),
         },
         version: store.getState().version + 1,
       });
-      link.send({ type: 'study/start', requestId, surface, study: spec });
+      link.send({ type: 'study/start', requestId, surface, study: spec, target });
     },
     sharpness(surface, points, count) {
       return ask({ type: 'sharpness/sample', requestId: freshId('sharp'), surface, points, count }, (m) => (m.type === 'sharpness/result' ? m.values : new Float64Array(0)));

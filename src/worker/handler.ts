@@ -33,7 +33,7 @@ export function createHandler(post: (msg: FromWorker) => void, timing: Timing) {
       case 'profile/sample':
         return sampleProfile(post, msg.requestId, msg.surface, msg.from, msg.to, msg.alphas);
       case 'study/start':
-        return studies.start(msg.requestId, msg.surface, msg.study, msg.part);
+        return studies.start(msg.requestId, msg.surface, msg.study, msg.target, msg.part);
       case 'study/finish':
         return finishStudyParts(post, msg.requestId, msg.surface, msg.study, msg.outcomes, msg.curves);
       case 'study/cancel':

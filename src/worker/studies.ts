@@ -1,6 +1,6 @@
 import {
-  buildOptimizer, cellPlans, coarseToFineOrder, drawStarts, hasParameterGroups, lossBands, RunCursor, splitBands, Sweep, sweepThresholds, validateMultiStart,
-  type LearningRateSweepSpec, type MultiStartSpec, type RunOutcome, type StartMapSpec, type StudySpec, type Surface, type SweepPlan,
+  buildOptimizer, cellPlans, coarseToFineOrder, drawStarts, hasParameterGroups, lossBands, RunCursor, splitBands, stepOfRow, Sweep, sweepThresholds, validateMultiStart,
+  type LearningRateSweepSpec, type MultiStartSpec, type RunOutcome, type StartMapSpec, type StudySpec, type Surface, type SweepPlan, type ToleranceTarget,
 } from '../engine';
 import { buildSurface, type SurfaceSpec } from '../problems';
 import type { FromWorker, StudyCells, StudyPart } from '../protocol';
@@ -13,6 +13,8 @@ interface CellResult {
   steps: number;
   loss: number;
   end: Float64Array;
+  /** First step within the study's tolerance target, -1 if never or not measured. */
+  toTolerance: number;
 }
 
 /** A study's work, taken in time slices: each call runs until `deadline` and returns the cells that ended. */
@@ -72,12 +74,12 @@ export class StudyRunner {
     private readonly timing: Timing,
   ) {}
 
-  start(requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec, part?: StudyPart): void {
+  start(requestId: string, surfaceSpec: SurfaceSpec, spec: StudySpec, target: ToleranceTarget | null, part?: StudyPart): void {
     try {
       if (part) validatePart(part);
       const surface = buildSurface(surfaceSpec);
       const started = !this.job;
-      this.job = { requestId, work: planWork(spec, surface, part), done: 0, startedAt: this.timing.now() };
+      this.job = { requestId, work: planWork(spec, surface, target, part), done: 0, startedAt: this.timing.now() };
       if (started) this.timing.later(() => this.slice(), 0);
     } catch (e) {
       this.job = null;
@@ -136,18 +138,19 @@ function pack(cells: CellResult[]): StudyCells {
     steps: Int32Array.from(cells, (c) => c.steps),
     loss: Float64Array.from(cells, (c) => c.loss),
     endPoints,
+    stepsToTolerance: Int32Array.from(cells, (c) => c.toTolerance),
     outcomes: cells.map((c) => c.outcome),
   };
 }
 
-function planWork(spec: StudySpec, surface: Surface, part?: StudyPart): StudyWork {
+function planWork(spec: StudySpec, surface: Surface, target: ToleranceTarget | null, part?: StudyPart): StudyWork {
   switch (spec.kind) {
     case 'start-map':
-      return startMapWork(spec, surface, part ?? WHOLE);
+      return startMapWork(spec, surface, target, part ?? WHOLE);
     case 'multi-start':
-      return new CursorWork(spec, surface, part);
+      return new CursorWork(spec, surface, target, part);
     case 'lr-sweep':
-      return learningRateWork(spec, surface, part);
+      return learningRateWork(spec, surface, target, part);
   }
 }
 
@@ -212,7 +215,7 @@ class SweepWork implements StudyWork {
         const outcome = r.outcomes[k];
         if (!outcome || this.reported[k]) continue;
         this.reported[k] = 1;
-        out.push({ index: w.indices[k], outcome, steps: r.steps[k], loss: r.losses[k], end: r.endPoints.slice(k * n, (k + 1) * n) });
+        out.push({ index: w.indices[k], outcome, steps: r.steps[k], loss: r.losses[k], end: r.endPoints.slice(k * n, (k + 1) * n), toTolerance: r.stepsToTolerance[k] });
       }
       if (now() >= deadline) break;
     }
@@ -225,7 +228,7 @@ class SweepWork implements StudyWork {
 }
 
 /** A map's cells in coarse-to-fine order, cut into waves at the full grids of stride 8, 4, 2 and 1 (of each, the part's band). */
-function startMapWork(spec: StartMapSpec, surface: Surface, part: StudyPart): StudyWork {
+function startMapWork(spec: StartMapSpec, surface: Surface, target: ToleranceTarget | null, part: StudyPart): StudyWork {
   const r = spec.resolution;
   const order = coarseToFineOrder(r, r);
   const cuts = [8, 4, 2, 1].map((s) => Math.ceil(r / s) ** 2);
@@ -237,7 +240,7 @@ function startMapWork(spec: StartMapSpec, surface: Surface, part: StudyPart): St
     const indices = order.slice(from + band.lo, from + band.hi);
     from = to;
     if (indices.length === 0) continue;
-    waves.push(...cellPlans(spec, surface, indices));
+    waves.push(...cellPlans(spec, surface, indices, target));
   }
   return new SweepWork(waves);
 }
@@ -246,11 +249,11 @@ function startMapWork(spec: StartMapSpec, surface: Surface, part: StudyPart): St
  * Each optimizer at every rate (of a part: its band of the rates), one wave per optimizer. A whole
  * sweep ends with the thresholds (sweepThresholds); a part leaves them to 'study/finish'.
  */
-function learningRateWork(spec: LearningRateSweepSpec, surface: Surface, part?: StudyPart): StudyWork {
+function learningRateWork(spec: LearningRateSweepSpec, surface: Surface, target: ToleranceTarget | null, part?: StudyPart): StudyWork {
   const { lo, hi } = bandOf(spec.count, part ?? WHOLE);
   // Of every optimizer, the part's band of the rates (cell q count + k), one wave per optimizer (cellPlans).
   const cells = Int32Array.from({ length: spec.optimizers.length * (hi - lo) }, (_, j) => Math.floor(j / (hi - lo)) * spec.count + lo + (j % (hi - lo)));
-  const waves: Wave[] = cells.length ? cellPlans(spec, surface, cells) : (cellPlans(spec, surface, []), []);
+  const waves: Wave[] = cells.length ? cellPlans(spec, surface, cells, target) : (cellPlans(spec, surface, [], target), []);
   const outcomes: (RunOutcome | undefined)[] = [];
   const work = new SweepWork(waves, () => (part ? {} : { thresholds: sweepThresholds(spec, surface, outcomes) }));
   const run = work.run.bind(work);
@@ -262,12 +265,16 @@ function learningRateWork(spec: LearningRateSweepSpec, surface: Surface, part?: 
   return work;
 }
 
-/** One RunCursor per start (multi-start; of a part, its band of the starts), keeping each run's loss curve for the quantile bands. */
+/**
+ * One RunCursor per start (multi-start; of a part, its band of the starts), keeping each run's loss
+ * curve for the quantile bands, and its first step within the tolerance target as the run summary
+ * finds it (io/run-summary.ts: loss - value <= tolerance, the row's step).
+ */
 class CursorWork implements StudyWork {
   readonly total: number;
   private next: number;
   private readonly end: number;
-  private current: { index: number; cursor: RunCursor; loss: number[] } | null = null;
+  private current: { index: number; cursor: RunCursor; loss: number[]; toTolerance: number } | null = null;
   private readonly curves: Float64Array[];
   private readonly starts: Float64Array;
   private readonly optimizer;
@@ -275,6 +282,7 @@ class CursorWork implements StudyWork {
   constructor(
     private readonly spec: MultiStartSpec,
     private readonly surface: Surface,
+    private readonly target: ToleranceTarget | null,
     private readonly part?: StudyPart,
   ) {
     validateMultiStart(spec);
@@ -297,14 +305,19 @@ class CursorWork implements StudyWork {
       if (!this.current) {
         const index = this.next++;
         const settings = { start: Array.from(this.starts.subarray(index * n, (index + 1) * n)), seed: this.spec.seed, stop: this.spec.stop };
-        this.current = { index, cursor: new RunCursor(this.surface, this.optimizer, settings), loss: [] };
+        this.current = { index, cursor: new RunCursor(this.surface, this.optimizer, settings), loss: [], toTolerance: -1 };
       }
-      const { index, cursor, loss } = this.current;
+      const current = this.current;
+      const { index, cursor, loss } = current;
       const batch = cursor.advance(2000);
-      for (let k = 0; k < batch.count; k++) loss.push(batch.loss[k]);
+      const target = this.target;
+      for (let k = 0; k < batch.count; k++) {
+        loss.push(batch.loss[k]);
+        if (target && current.toTolerance < 0 && batch.loss[k] - target.value <= target.tolerance) current.toTolerance = stepOfRow(batch, k);
+      }
       if (cursor.outcome) {
         this.curves[index] = Float64Array.from(loss);
-        out.push({ index, outcome: cursor.outcome, steps: cursor.state.t, loss: cursor.state.loss, end: Float64Array.from(cursor.state.x) });
+        out.push({ index, outcome: cursor.outcome, steps: cursor.state.t, loss: cursor.state.loss, end: Float64Array.from(cursor.state.x), toTolerance: current.toTolerance });
         this.current = null;
       }
       if (now() >= deadline) break;

@@ -5,6 +5,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { buildOptimizer, cellStart, logSpaced, drawStarts, outcomeDetail, RunCursor, Sweep, type StudySpec } from '../../src/engine';
 import { studyCsvOf } from '../../src/io/study-exports';
 import { knownMinima, basinRadiusOf } from '../../src/io/study-basins';
+import { studyTarget } from '../../src/ui/study/basin-inputs';
 import { buildSurface, describeSurface } from '../../src/problems';
 import { createStudyStore } from '../../src/store/study-store';
 import { inProcessLink } from '../store/in-process-link';
@@ -115,10 +116,14 @@ describe('fall run with studies', () => {
     studies.forEach((spec, k) => {
       const harness = inProcessLink();
       const store = createStudyStore(harness.link);
-      store.start({ surface: experiment.surface, variables: info.variables, spec, configLabel: 'test', known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(experiment.view) });
+      // The target the page's panels pass: the file's tolerance above the lowest known minimum.
+      const target = studyTarget(info.knownPoints, experiment.tolerance);
+      expect(target).not.toBeNull();
+      store.start({ surface: experiment.surface, variables: info.variables, spec, configLabel: 'test', known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(experiment.view), target });
       harness.drain();
       const s = store.store.getState();
       expect(s.status).toBe('done');
+      expect(s.cells!.stepsToTolerance.some((v) => v >= 0)).toBe(true);
       expect(studyCsvOf(spec, himmelblau, info, experiment.view, s.cells!)).toBe(read(single, STUDY_FILES[k]));
       // The sweep's divergence thresholds in summary.json are the ones the page's table shows.
       if (spec.kind === 'lr-sweep') expect(JSON.parse(read(single, 'summary.json')).studies[k].thresholds).toEqual(s.thresholds);

@@ -12,6 +12,7 @@ describe('a shard\'s study cells file', () => {
       steps: Int32Array.from([4, 9]),
       loss: Float64Array.from([Number.NaN, 0.1 + 0.2]),
       endPoints: Float64Array.from([Infinity, -Infinity, -0, 5e-324]),
+      stepsToTolerance: Int32Array.from([-1, 7]),
       outcomes: [diverged, limit],
     };
     const file = { format: 'fall-line-study-cells' as const, hash: 'sha256:x', shard: { index: 1, count: 3 }, experiment: demoWorkspace(), studies: [cells] };
@@ -22,6 +23,13 @@ describe('a shard\'s study cells file', () => {
     expect(back.studies[0].outcomes[1]).toEqual(limit);
     expect(back.experiment).toEqual(demoWorkspace());
     expect(back.shard).toEqual({ index: 1, count: 3 });
+  });
+
+  it('refuses a shard without steps to tolerance rather than write them empty', () => {
+    const text = studyShardText({ format: 'fall-line-study-cells', hash: 'sha256:x', shard: { index: 0, count: 2 }, experiment: demoWorkspace(), studies: [{ indices: Int32Array.of(0), steps: Int32Array.of(1), loss: Float64Array.of(1), endPoints: Float64Array.of(0, 0), stepsToTolerance: Int32Array.of(-1), outcomes: [{ kind: 'diverged', step: 1, reason: 'non-finite', detail: 'x' }] }] });
+    const old = JSON.parse(text);
+    delete old.studies[0].stepsToTolerance;
+    expect(() => readStudyShard(JSON.stringify(old))).toThrow('no steps to tolerance');
   });
 
   it('refuses other JSON', () => {

@@ -33,7 +33,7 @@ describe('studyCsv', () => {
     const standard = [8, 2 * Math.sqrt(7)];
     const spec = { kind: 'lr-sweep' as const, optimizers: [{ label: 'GD', spec: { kind: 'gd' as const, learningRate: 0.1 } }], stop: { maxSteps: 10 }, seed: 1, start: standard, range: [0.01, 0.1] as [number, number], count: 2 };
     const outcome: RunOutcome = { kind: 'step-limit', step: 10, point };
-    const cells = { filled: Uint8Array.of(1, 1), steps: Int32Array.of(10, 10), loss: Float64Array.of(0, 0), endPoints: Float64Array.from([...standard, ...standard]), outcomes: [outcome, outcome] };
+    const cells = { filled: Uint8Array.of(1, 1), steps: Int32Array.of(10, 10), loss: Float64Array.of(0, 0), endPoints: Float64Array.from([...standard, ...standard]), stepsToTolerance: Int32Array.of(-1, -1), outcomes: [outcome, outcome] };
     for (const r of studyRows(spec, surface, cells, () => null))
       for (const p of [r.start, r.endPoint]) {
         expect(p[0]).toBeCloseTo(1, 12);

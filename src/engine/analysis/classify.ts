@@ -106,11 +106,21 @@ export function classifyPoint(surface: Surface, x: ArrayLike<number>, options: C
   };
 }
 
+/**
+ * classifyDense's buffers for the last dimension asked (the end judgement of a sweep classifies
+ * thousands of points of one dimension); zeroed or filled before each read, and none is returned.
+ */
+let denseScratch: { n: number; grad: Float64Array; hessian: Float64Array; eigen: { values: Float64Array; vectors: Float64Array; work: Float64Array } } | null = null;
+
 function classifyDense(surface: Surface, point: Float64Array, zeroTolerance: number): ExactPointClass {
   const n = surface.dimension;
-  const hessian = new Float64Array(n * n);
-  surface.valueGradientHessian(point, new Float64Array(n), hessian);
-  const values = symmetricEigen(hessian, n).values;
+  if (denseScratch?.n !== n)
+    denseScratch = { n, grad: new Float64Array(n), hessian: new Float64Array(n * n), eigen: { values: new Float64Array(n), vectors: new Float64Array(n * n), work: new Float64Array(n * n) } };
+  const { grad, hessian, eigen } = denseScratch;
+  grad.fill(0);
+  hessian.fill(0);
+  surface.valueGradientHessian(point, grad, hessian);
+  const values = symmetricEigen(hessian, n, eigen).values;
   const { negative, zero, positive } = countSigns(values, zeroTolerance);
   const kind: PointKind = negative > 0 && positive > 0 ? 'saddle' : zero > 0 ? 'degenerate' : negative === n ? 'maximum' : 'minimum';
   return { kind, method: 'exact', negative, zero, positive, smallest: values[0], largest: values[n - 1], eigenvalues: Array.from(values) };

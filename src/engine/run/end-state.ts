@@ -62,15 +62,23 @@ function safeClassify(surface: Surface, x: Float64Array) {
   }
 }
 
+/**
+ * The Newton step's buffers for the last dimension asked (a sweep judges thousands of end points of
+ * one dimension; zeroed or filled before each read, so one set serves every call).
+ */
+let newtonScratch: { n: number; g: Float64Array; h: Float64Array; factor: Float64Array; d: Float64Array } | null = null;
+
 /** |H^-1 g| by Cholesky (null when H is not numerically positive definite). */
 function newtonStepLength(surface: Surface, x: Float64Array): number | null {
   const n = surface.dimension;
-  const g = new Float64Array(n);
-  const h = new Float64Array(n * n);
+  if (newtonScratch?.n !== n) newtonScratch = { n, g: new Float64Array(n), h: new Float64Array(n * n), factor: new Float64Array(n * n), d: new Float64Array(n) };
+  const { g, h, factor } = newtonScratch;
+  // Zeroed as fresh arrays would be, for a surface that only writes some entries.
+  g.fill(0);
+  h.fill(0);
   surface.valueGradientHessian(x, g, h);
-  const factor = new Float64Array(n * n);
   if (!choleskyDecompose(h, n, factor)) return null;
-  const d = choleskySolve(factor, n, g, new Float64Array(n));
+  const d = choleskySolve(factor, n, g, newtonScratch.d);
   const length = norm2(d);
   return Number.isFinite(length) ? length : null;
 }

@@ -53,6 +53,17 @@ export function validateStudy(spec: StudySpec, surface: Surface): void {
   });
 }
 
+/**
+ * What a study's steps to tolerance are measured against: the first step whose loss - value <=
+ * tolerance, value being the lowest known minimum's value of the surface (the run summary's rule,
+ * io/run-summary.ts). A study on a surface without a known minimum has none (null): its steps to
+ * tolerance are not measured, not measured against some other target.
+ */
+export interface ToleranceTarget {
+  value: number;
+  tolerance: number;
+}
+
 /** One sweep of a study: the plan and, for each of its runs, the cell it computes. */
 export interface CellPlan {
   indices: Int32Array;
@@ -63,8 +74,9 @@ export interface CellPlan {
  * The sweeps that run the given cells (validated first): one for a map or a multi-start, one per
  * optimizer that has cells among them for a learning-rate sweep. Runs keep the order of `cells`.
  */
-export function cellPlans(spec: StudySpec, surface: Surface, cells: ArrayLike<number>): CellPlan[] {
+export function cellPlans(spec: StudySpec, surface: Surface, cells: ArrayLike<number>, target: ToleranceTarget | null = null): CellPlan[] {
   validateStudy(spec, surface);
+  const reach = target ? { lossTarget: target.value, lossTolerance: target.tolerance } : {};
   const n = surface.dimension;
   const size = studySize(spec);
   for (let k = 0; k < cells.length; k++)
@@ -77,12 +89,12 @@ export function cellPlans(spec: StudySpec, surface: Surface, cells: ArrayLike<nu
   switch (spec.kind) {
     case 'start-map': {
       const indices = Int32Array.from(cells);
-      return [{ indices, plan: { surface, optimizer: spec.optimizer, stop: spec.stop, seed: spec.seed, starts: starts(indices, (c, out) => cellStart(spec, c, out)) } }];
+      return [{ indices, plan: { surface, optimizer: spec.optimizer, stop: spec.stop, seed: spec.seed, starts: starts(indices, (c, out) => cellStart(spec, c, out)), ...reach } }];
     }
     case 'multi-start': {
       const all = drawStarts(spec.distribution, n, spec.count, spec.startSeed, hasParameterGroups(surface) ? surface.parameterGroups : undefined);
       const indices = Int32Array.from(cells);
-      return [{ indices, plan: { surface, optimizer: spec.optimizer, stop: spec.stop, seed: spec.seed, starts: starts(indices, (c, out) => out.set(all.subarray(c * n, (c + 1) * n))) } }];
+      return [{ indices, plan: { surface, optimizer: spec.optimizer, stop: spec.stop, seed: spec.seed, starts: starts(indices, (c, out) => out.set(all.subarray(c * n, (c + 1) * n))), ...reach } }];
     }
     case 'lr-sweep': {
       const rates = logSpaced(spec.range[0], spec.range[1], spec.count);
@@ -90,7 +102,7 @@ export function cellPlans(spec: StudySpec, surface: Surface, cells: ArrayLike<nu
         const indices = Int32Array.from(Array.from(cells).filter((c) => Math.floor(c / spec.count) === q));
         if (!indices.length) return [];
         const learningRates = Float64Array.from(indices, (c) => rates[c % spec.count]);
-        return [{ indices, plan: { surface, optimizer: o.spec, stop: spec.stop, seed: spec.seed, starts: starts(indices, (_, out) => out.set(spec.start)), learningRates } }];
+        return [{ indices, plan: { surface, optimizer: o.spec, stop: spec.stop, seed: spec.seed, starts: starts(indices, (_, out) => out.set(spec.start)), learningRates, ...reach } }];
       });
     }
   }
@@ -102,19 +114,22 @@ export interface StudyCellResults {
   steps: Int32Array;
   loss: Float64Array;
   endPoints: Float64Array;
+  /** First step within the tolerance of the target (ToleranceTarget), -1 if never or without a target. */
+  stepsToTolerance: Int32Array;
   outcomes: RunOutcome[];
 }
 
 /** Runs the given cells to their ends on the sweep engine; results in the order of `cells`. */
-export function runStudyCells(spec: StudySpec, surface: Surface, cells: ArrayLike<number>): StudyCellResults {
+export function runStudyCells(spec: StudySpec, surface: Surface, cells: ArrayLike<number>, target: ToleranceTarget | null = null): StudyCellResults {
   const n = surface.dimension;
   const position = new Map<number, number>();
   for (let k = 0; k < cells.length; k++) position.set(cells[k], k);
   if (position.size !== cells.length) throw new RangeError('study cells: a cell is listed twice');
   const out: StudyCellResults = {
-    indices: Int32Array.from(cells), steps: new Int32Array(cells.length), loss: new Float64Array(cells.length), endPoints: new Float64Array(cells.length * n), outcomes: new Array(cells.length),
+    indices: Int32Array.from(cells), steps: new Int32Array(cells.length), loss: new Float64Array(cells.length), endPoints: new Float64Array(cells.length * n),
+    stepsToTolerance: new Int32Array(cells.length).fill(-1), outcomes: new Array(cells.length),
   };
-  for (const { indices, plan } of cellPlans(spec, surface, cells)) {
+  for (const { indices, plan } of cellPlans(spec, surface, cells, target)) {
     const sweep = new Sweep(plan);
     while (!sweep.finished) sweep.advance(256);
     const r = sweep.result();
@@ -122,6 +137,7 @@ export function runStudyCells(spec: StudySpec, surface: Surface, cells: ArrayLik
       const at = position.get(cell)!;
       out.steps[at] = r.steps[k];
       out.loss[at] = r.losses[k];
+      out.stepsToTolerance[at] = r.stepsToTolerance[k];
       out.endPoints.set(r.endPoints.subarray(k * n, (k + 1) * n), at * n);
       out.outcomes[at] = r.outcomes[k]!;
     });

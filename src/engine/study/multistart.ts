@@ -6,7 +6,7 @@ export interface StartResult {
   outcome: RunOutcome;
   finalLoss: number;
   endPoint: ArrayLike<number>;
-  /** First step whose loss came within the tolerance of the target; null if never. */
+  /** First step whose loss came within the tolerance of the lowest known minimum's value; null if never (or not measured). */
   stepsToTolerance: number | null;
 }
 
@@ -20,8 +20,12 @@ export interface MultiStartSummary {
   successRate: number;
   /** Final loss over the runs with a finite one: min, quartiles, max. */
   finalLoss: { min: number; q1: number; median: number; q3: number; max: number; finite: number };
-  /** Median steps to tolerance over the runs that got there (null if none). */
-  medianStepsToTolerance: number | null;
+  /**
+   * Steps to tolerance over the runs that got there: how many did, and the quartiles of their first
+   * steps within the tolerance (NaN when none did). Only meaningful where the steps were measured
+   * (a surface with a known minimum); the caller says so.
+   */
+  stepsToTolerance: { reached: number; q1: number; median: number; q3: number };
   /** Runs by outcome kind. */
   outcomes: Record<string, number>;
 }
@@ -57,7 +61,7 @@ export function summariseStarts(results: readonly StartResult[], tolerance: numb
       max: finite.length ? finite[finite.length - 1] : Number.NaN,
       finite: finite.length,
     },
-    medianStepsToTolerance: reached.length ? quantile(reached, 0.5) : null,
+    stepsToTolerance: { reached: reached.length, q1: quantile(reached, 0.25), median: quantile(reached, 0.5), q3: quantile(reached, 0.75) },
     outcomes,
   };
 }

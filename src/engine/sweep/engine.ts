@@ -80,6 +80,7 @@ export class Sweep implements FusedHost {
   readonly path: 'fused' | 'blocks' | 'runs';
   private readonly noise: number;
   private readonly lossTolerance: number;
+  private readonly lossTarget: number;
   private readonly stationarityTolerance: number | undefined;
 
   private readonly x: Float64Array;
@@ -134,6 +135,7 @@ export class Sweep implements FusedHost {
     this.stop = plan.stop;
     this.noise = plan.gradientNoise ?? 0;
     this.lossTolerance = plan.lossTolerance ?? Number.NaN;
+    this.lossTarget = plan.lossTarget ?? 0;
     this.stationarityTolerance = plan.stop.stationarityTolerance;
     this.x = Float64Array.from(plan.starts);
     this.grad = new Float64Array(count * n);
@@ -196,7 +198,7 @@ export class Sweep implements FusedHost {
       this.initialGradNorm[r] = norm2(sg);
       this.evaluations[r] = 1;
       recordRecentAt(this.ringPoints, o, count * n, this.ringLoss, r, count, this.milestones, r * MILESTONES, 0, this.x, o, n, loss, this.x0, o);
-      if (loss <= this.lossTolerance) this.stepsToTolerance[r] = 0;
+      if (loss - this.lossTarget <= this.lossTolerance) this.stepsToTolerance[r] = 0;
       let outcome = startOutcome(surface, sx, loss, sg);
       if (!outcome) {
         const finding = pointFindingAt(this.x, this.grad, o, n, loss, loss, this.stop);
@@ -235,7 +237,7 @@ export class Sweep implements FusedHost {
       calm: this.calm,
       live: this.live,
     };
-    return fusedKernel(this.surface, o.transforms, this.stop, this.lossTolerance, this.count, arrays, this);
+    return fusedKernel(this.surface, o.transforms, this.stop, { tolerance: this.lossTolerance, target: this.lossTarget }, this.count, arrays, this);
   }
 
   private makeBlocks(o: ChainOptimizer): Blocks {
@@ -406,7 +408,8 @@ export class Sweep implements FusedHost {
         for (; q < batch && alive > k; q++) {
           const t = t0 + q + 1;
           this.totalSteps += alive - k;
-          alive = kernel.round(kernel.state, k, alive, k, t, rates[q], numbers, q * width, t % RECENT_POINTS, (t & (t - 1)) === 0 ? 1 : 0);
+          alive = kernel.round(kernel.state, k, alive, k, t, rates[q], numbers, q * width, t % RECENT_POINTS);
+          if ((t & (t - 1)) === 0) for (let j = k; j < alive; j++) this.recordFusedMilestone(live[j], t);
         }
         used = Math.max(used, q);
         for (let j = k; j < alive; j++) live[kept++] = live[j];
@@ -423,6 +426,7 @@ export class Sweep implements FusedHost {
   endFusedPoint(r: number, t: number): void {
     this.syncFused(r, t);
     const n = this.dimension;
+    if ((t & (t - 1)) === 0) recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
     const finding = pointFindingAt(this.x, this.grad, r * n, n, this.loss[r], this.initialLoss[r], this.stop);
     this.endFlat(r, finding as Exclude<PointFinding, 'ok'>, null);
   }
@@ -430,6 +434,8 @@ export class Sweep implements FusedHost {
   /** For the fused kernel (FusedHost): the loss-change rule or the step limit ended run r at step t. */
   endFusedProgress(r: number, t: number): void {
     this.syncFused(r, t);
+    const n = this.dimension;
+    if ((t & (t - 1)) === 0) recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
     this.endFlat(r, null, progressTrigger(this.stop, this.calm[r], t));
   }
 
@@ -446,8 +452,8 @@ export class Sweep implements FusedHost {
     this.evaluations[r] = t + 1;
   }
 
-  /** For the fused kernel (FusedHost): run r's distance milestone at step t, as recordRecentAt records it. */
-  recordFusedMilestone(r: number, t: number): void {
+  /** A fused run's distance milestone at step t (a power of 2), as recordRecentAt records it (after the kernel's round). */
+  private recordFusedMilestone(r: number, t: number): void {
     this.syncFused(r, t);
     const n = this.dimension;
     recordMilestoneAt(this.milestones, r * MILESTONES, t, this.x, r * n, n, this.x0, r * n);
@@ -473,6 +479,7 @@ export class Sweep implements FusedHost {
     const stopRules = this.stop;
     const calmRule = stopRules.lossChangeTolerance !== undefined;
     const tol = this.lossTolerance;
+    const target = this.lossTarget;
     const ringStride = this.count * n;
     const count = this.count;
     const evaluations = this.evaluations;
@@ -493,7 +500,7 @@ export class Sweep implements FusedHost {
       losses[r] = loss;
       evaluations[r] += 1;
       steps[r] = t;
-      if (loss <= tol && toTolerance[r] < 0) toTolerance[r] = t;
+      if (loss - target <= tol && toTolerance[r] < 0) toTolerance[r] = t;
       recordRecentAt(ringPoints, o, ringStride, ringLoss, r, count, milestones, r * MILESTONES, t, X, o, n, loss, X0, o);
       const finding = pointFindingAt(X, G, o, n, loss, initialLoss[r], stopRules);
       if (finding !== 'ok') {
@@ -542,7 +549,7 @@ export class Sweep implements FusedHost {
       this.evaluations[r] += 1;
     }
     this.loss[r] = loss;
-    if (loss <= this.lossTolerance && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
+    if (loss - this.lossTarget <= this.lossTolerance && this.stepsToTolerance[r] < 0) this.stepsToTolerance[r] = t;
     recordRecentAt(this.ringPoints, r * n, this.count * n, this.ringLoss, r, this.count, this.milestones, r * MILESTONES, t, x, 0, n, loss, this.x0, r * n);
     const finding = pointFinding(x, grad, loss, this.initialLoss[r], this.stop);
     if (finding !== 'ok') return this.end(r, this.pointEnd(r, finding));

@@ -31,17 +31,18 @@ import { norm2At } from '../vector';
  */
 
 /**
- * Where the kernel hands back runs it ends and distance milestones (the sweep engine). Methods of one
- * class, so every sweep's kernel calls the same function (a fresh closure per sweep would make the
- * optimised kernel start over for each sweep).
+ * Where the kernel hands back the runs it ends (the sweep engine). Methods of one class, so every
+ * sweep's kernel calls the same function (a fresh closure per sweep would make the optimised kernel
+ * start over for each sweep). Distance milestones (t a power of 2) are not the kernel's: the engine
+ * records them after the round for the runs that go on, and in these calls for a run that ends at
+ * such a step, before judging it (a milestone reads only the run's own point at t and its start, so
+ * the record is the same; keeping the call out of the loop makes the round faster).
  */
 export interface FusedHost {
   /** A point rule of checks.ts (rules 1-6) ended run r at step t (its point and loss are in the ring's slot for t). */
   endFusedPoint(r: number, t: number): void;
   /** The loss-change rule or the step limit ended run r at step t. */
   endFusedProgress(r: number, t: number): void;
-  /** Records run r's distance milestone at step t (a power of 2). */
-  recordFusedMilestone(r: number, t: number): void;
 }
 
 /**
@@ -65,9 +66,9 @@ export interface FusedArrays {
 /**
  * One round for the live runs live[from..to) at step t (every transform's step numbers for t at
  * q[at..]): moves and checks each, keeps the runs that go on at live[kept..] and returns the new
- * kept count. `slot` is t mod RECENT_POINTS; `milestone` is 1 when t is a power of 2.
+ * kept count. `slot` is t mod RECENT_POINTS.
  */
-export type FusedRound = (state: FusedState, from: number, to: number, kept: number, t: number, learningRate: number, q: Float64Array, at: number, slot: number, milestone: number) => number;
+export type FusedRound = (state: FusedState, from: number, to: number, kept: number, t: number, learningRate: number, q: Float64Array, at: number, slot: number) => number;
 
 /** Everything one sweep's kernel reads: the engine's arrays, the transforms' states and numbers, the formula's constants. */
 export interface FusedState extends FusedArrays {
@@ -78,7 +79,7 @@ export interface FusedState extends FusedArrays {
   c: Float64Array;
   /** Per run, the blow-up rule's bound on f - f0: blowUpFactor * max(1, |f0|) (checks.ts). */
   blowUpBound: Float64Array;
-  /** Loss tolerance, step limit, gradient-norm and loss-change tolerances, patience, run count. */
+  /** Loss tolerance, step limit, gradient-norm and loss-change tolerances, patience, run count, the tolerance's target. */
   numbers: Float64Array;
   host: FusedHost;
 }
@@ -110,7 +111,7 @@ export function fusedKernel(
   surface: Surface,
   transforms: readonly GradientTransform[],
   stop: StopRules,
-  lossTolerance: number,
+  reach: { tolerance: number; target: number },
   count: number,
   arrays: FusedArrays,
   host: FusedHost,
@@ -122,17 +123,18 @@ export function fusedKernel(
   const { code: gradient, constants } = formula.inlineGradient();
   const gradientRule = stop.gradientNormTolerance !== undefined;
   const calmRule = stop.lossChangeTolerance !== undefined;
-  const source = kernelSource(n, gradient, codes, { tolerance: !Number.isNaN(lossTolerance), gradientRule, calmRule });
+  const source = kernelSource(n, gradient, codes, { tolerance: !Number.isNaN(reach.tolerance), gradientRule, calmRule });
   const states = codes.flatMap((c) => c.arrays.map((initial) => new Float64Array(count * n).fill(initial)));
   const blowUp = stop.blowUpFactor ?? DEFAULT_BLOW_UP_FACTOR;
   const blowUpBound = arrays.initialLoss.map((f0) => blowUp * Math.max(1, Math.abs(f0)));
   const numbers = Float64Array.of(
-    lossTolerance,
+    reach.tolerance,
     stop.maxSteps,
     stop.gradientNormTolerance ?? Number.NaN,
     stop.lossChangeTolerance ?? Number.NaN,
     stop.lossChangePatience ?? DEFAULT_LOSS_CHANGE_PATIENCE,
     count,
+    reach.target,
   );
   const state: FusedState = { ...arrays, states, constants: codes.map((c) => Float64Array.from(c.constants)), c: constants, blowUpBound, numbers, host };
   const offsets: number[] = [];
@@ -182,11 +184,11 @@ export function kernelSource(
   }
   // One sweep's arrays and numbers, read from the state into locals at each call.
   lines.push(
-    'return function round(S, from, to, kept, t, lr, Q, qAt, slot, milestone) {',
+    'return function round(S, from, to, kept, t, lr, Q, qAt, slot) {',
     'const G = S.grad, IL = S.initialLoss, TT = S.stepsToTolerance, BOUND = S.blowUpBound;',
     'const RP = S.ringPoints, RL = S.ringLoss, CALM = S.calm, LIVE = S.live, HOST = S.host, c = S.c, P = S.numbers;',
     // The run count as an integer, so the ring's index arithmetic stays in integers.
-    'const TOL = P[0], MAX_STEPS = P[1], GTOL = P[2], CTOL = P[3], PATIENCE = P[4], COUNT = P[5] | 0;',
+    'const TOL = P[0], MAX_STEPS = P[1], GTOL = P[2], CTOL = P[3], PATIENCE = P[4], COUNT = P[5] | 0, TARGET = P[6];',
   );
   let state = 0;
   const names = codes.map((c, ti) => {
@@ -221,12 +223,11 @@ export function kernelSource(
   lines.push(...gradient.statements, `const loss = ${gradient.value};`);
   for (const i of coords) lines.push(`const g${i} = ${gradient.gradient[i]}; G[${at(i)}] = g${i};`);
   if (rules.calmRule) lines.push('const previous = RL[previousAt + r];');
-  if (rules.tolerance) lines.push('if (loss <= TOL && TT[r] < 0) TT[r] = t;');
+  if (rules.tolerance) lines.push('if (loss - TARGET <= TOL && TT[r] < 0) TT[r] = t;');
   lines.push(
     `const ring = (ringAt + r) * ${n};`,
     ...coords.map((i) => `RP[${i === 0 ? 'ring' : `ring + ${i}`}] = x${i};`),
     'RL[ringAt + r] = loss;',
-    'if (milestone !== 0) HOST.recordFusedMilestone(r, t);',
     // checks.ts rules 1-5 in one test: a v * 0 sum is 0 exactly when every v is finite (loss -Infinity
     // included), and with all finite only the blow-up rule is left. The engine names the rule.
     `if (${[...coords.map((i) => `x${i} * 0`), ...coords.map((i) => `g${i} * 0`), 'loss * 0'].join(' + ')} !== 0 || loss - IL[r] > BOUND[r]) { HOST.endFusedPoint(r, t); continue; }`,
@@ -238,6 +239,7 @@ export function kernelSource(
       'CALM[r] = calm;',
       'if (calm >= PATIENCE) { HOST.endFusedProgress(r, t); continue; }',
     );
-  lines.push('if (t >= MAX_STEPS) { HOST.endFusedProgress(r, t); continue; }', 'LIVE[kept++] = r;', '}', 'return kept;', '};');
+  // LIVE[run] is r, so while no run of this call has ended (kept === run) the store would change nothing.
+  lines.push('if (t >= MAX_STEPS) { HOST.endFusedProgress(r, t); continue; }', 'if (kept !== run) LIVE[kept] = r;', 'kept++;', '}', 'return kept;', '};');
   return lines.join('\n');
 }

@@ -25,8 +25,13 @@ export interface SweepPlan {
   seed?: number;
   /** Standard deviation of the Gaussian noise on every gradient the optimizer sees (as RunSettings). */
   gradientNoise?: number;
-  /** When set, each run's result records the first step at which its loss was <= this. */
+  /**
+   * When set, each run's result records the first step at which loss - lossTarget <= lossTolerance
+   * (the run summary's test, io/run-summary.ts, written the same way so both give the same step).
+   */
   lossTolerance?: number;
+  /** What the tolerance is measured from (a study: the lowest known minimum's value); default 0. */
+  lossTarget?: number;
 }
 
 /** How far a sweep has got: runs ended out of all runs, and optimizer steps taken by all runs together. */
@@ -52,7 +57,7 @@ export interface SweepResult {
   steps: Int32Array;
   /** Surface evaluations per run (a Hessian or minibatch evaluation counts as one), as RunState counts them. */
   evaluations: Float64Array;
-  /** First step at which the loss was <= lossTolerance (0 for the start), -1 if never or without a tolerance. */
+  /** First step at which loss - lossTarget <= lossTolerance (0 for the start), -1 if never or without a tolerance. */
   stepsToTolerance: Int32Array;
   outcomes: (RunOutcome | null)[];
 }
@@ -77,6 +82,8 @@ export function validateSweepPlan(plan: SweepPlan): number {
   if (noise !== undefined && !(noise >= 0 && Number.isFinite(noise))) throw new SettingError('gradientNoise', `gradientNoise must be a finite number >= 0, got ${noise}`);
   const tol = plan.lossTolerance;
   if (tol !== undefined && Number.isNaN(tol)) throw new SettingError('lossTolerance', `sweep: lossTolerance must be a number, got ${tol}`);
+  const target = plan.lossTarget;
+  if (target !== undefined && !Number.isFinite(target)) throw new SettingError('lossTarget', `sweep: lossTarget must be a finite number, got ${target}`);
   validateStopRules(plan.stop);
   return count;
 }

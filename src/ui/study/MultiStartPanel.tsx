@@ -1,6 +1,6 @@
 import { useShownView } from '../view/use-shown-view';
 import { useEffect, useRef, useState } from 'react';
-import { drawStarts, hasParameterGroups, summariseStarts, type MultiStartSpec, type StartDistribution, type StartResult } from '../../engine';
+import { drawStarts, hasParameterGroups, summariseStarts, type MultiStartSpec, type MultiStartSummary, type StartDistribution, type StartResult, type ToleranceTarget } from '../../engine';
 import { STUDY_CSV, studyCsv, studyRows } from '../../io/study-csv';
 import { studyOfKind } from '../../store/app-store';
 import { useActions, useApp } from '../app-context';
@@ -8,7 +8,7 @@ import { chooseLossAxis } from '../chart/loss-chart';
 import { download } from '../export/download';
 import { useMainThreadSurface } from '../view/use-surface';
 import { drawBandChart } from './band-chart';
-import { basinRadiusOf, knownMinima } from './basin-inputs';
+import { basinRadiusOf, knownMinima, studyTarget } from './basin-inputs';
 import { useStudy, useStudyStore } from './study-context';
 import { FigureExport, sizeOf } from '../figure/FigureExport';
 import { multiStartFigure } from '../figure/views/study-figures';
@@ -77,10 +77,10 @@ export function MultiStartPanel() {
     if (!config || problem) return;
     const s: MultiStartSpec = { kind: 'multi-start', optimizer: config.optimizer, stop: config.settings.stop, seed: config.settings.seed, distribution: distribution(), count, startSeed };
     actions.setStudy(s);
-    study.start({ surface: surfaceSpec, variables: info.variables, spec: s, configLabel: config.label, known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view) });
+    study.start({ surface: surfaceSpec, variables: info.variables, spec: s, configLabel: config.label, known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view), target: studyTarget(info.knownPoints, tolerance) });
   };
   const runSetUp = () => {
-    if (setUp) study.start({ surface: surfaceSpec, variables: info.variables, spec: setUp, configLabel: 'the set-up starts', known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view) });
+    if (setUp) study.start({ surface: surfaceSpec, variables: info.variables, spec: setUp, configLabel: 'the set-up starts', known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view), target: studyTarget(info.knownPoints, tolerance) });
   };
 
   const results: StartResult[] = [];
@@ -88,7 +88,7 @@ export function MultiStartPanel() {
     const n = all.variables.length;
     for (let c = 0; c < all.cells.filled.length; c++) {
       const outcome = all.cells.outcomes[c];
-      if (all.cells.filled[c] && outcome) results.push({ outcome, finalLoss: all.cells.loss[c], endPoint: all.cells.endPoints.subarray(c * n, (c + 1) * n), stepsToTolerance: null });
+      if (all.cells.filled[c] && outcome) results.push({ outcome, finalLoss: all.cells.loss[c], endPoint: all.cells.endPoints.subarray(c * n, (c + 1) * n), stepsToTolerance: all.cells.stepsToTolerance[c] >= 0 ? all.cells.stepsToTolerance[c] : null });
     }
   }
   const summary = results.length ? summariseStarts(results, tolerance, knownMinimum) : null;
@@ -165,7 +165,7 @@ export function MultiStartPanel() {
         <button type="button" onClick={exportCsv} disabled={!mine || !all.cells || all.done === 0}>Starts CSV</button>
         <FigureExport
           name="Multi-start" fileName="fall-line-multi-start" disabled={!mine || !all.bands || !summary} screenSize={() => sizeOf(body.current)}
-          figure={() => mine && spec && all.bands && summary ? multiStartFigure({ bands: all.bands, axis: chooseLossAxis([], knownMinimum), summary: summaryLines(summary, tolerance, all.cells!.basin, all.basinLabels), count: spec.count, configLabel: all.configLabel, surfaceLabel: info.label }) : null}
+          figure={() => mine && spec && all.bands && summary ? multiStartFigure({ bands: all.bands, axis: chooseLossAxis([], knownMinimum), summary: summaryLines(summary, tolerance, all.target, all.cells!.basin, all.basinLabels), count: spec.count, configLabel: all.configLabel, surfaceLabel: info.label }) : null}
         />
         {mine && all.total > 0 && (
           <span className="study-progress" data-status={all.status}>
@@ -189,6 +189,7 @@ export function MultiStartPanel() {
               <tr data-key="success"><th scope="row">success rate</th><td data-value={summary.successRate}>{pct(summary.successRate)} ({summary.successes} converged within the tolerance of {formatValue(summary.target.loss)})</td></tr>
               <tr><th scope="row">converged</th><td>{summary.converged}</td></tr>
               <tr><th scope="row">final loss</th><td>min {formatValue(summary.finalLoss.min)}, quartiles {formatValue(summary.finalLoss.q1)} / {formatValue(summary.finalLoss.median)} / {formatValue(summary.finalLoss.q3)}, max {formatValue(summary.finalLoss.max)}</td></tr>
+              <tr data-key="steps-to-tolerance"><th scope="row">steps to tolerance</th><td data-reached={summary.stepsToTolerance.reached} data-median={summary.stepsToTolerance.median}>{toleranceText(summary, all.target)}</td></tr>
               <tr><th scope="row">outcomes</th><td data-testid="multi-start-outcomes">{Object.entries(summary.outcomes).map(([k, v]) => `${k} ${v}`).join(', ')}</td></tr>
               <tr><th scope="row">ended in</th><td>{countBasins(all.cells!.basin, all.basinLabels)}</td></tr>
             </tbody>
@@ -204,14 +205,27 @@ export function MultiStartPanel() {
 }
 
 /** The summary table's rows as lines of text, for the figure's key. */
-function summaryLines(summary: NonNullable<ReturnType<typeof summariseStarts>>, tolerance: number, basin: Int32Array, labels: readonly string[]): string[] {
+function summaryLines(summary: MultiStartSummary, tolerance: number, target: ToleranceTarget | null, basin: Int32Array, labels: readonly string[]): string[] {
   const v = (x: number) => (Number.isFinite(x) ? String(+x.toPrecision(3)) : String(x));
   return [
     `success rate ${(100 * summary.successRate).toFixed(1)}% (${summary.successes} of ${summary.runs} within ${tolerance} of ${v(summary.target.loss)}, the ${summary.target.source})`,
     `final loss: min ${v(summary.finalLoss.min)}, quartiles ${v(summary.finalLoss.q1)} / ${v(summary.finalLoss.median)} / ${v(summary.finalLoss.q3)}, max ${v(summary.finalLoss.max)}`,
+    `steps to tolerance: ${toleranceText(summary, target)}`,
     `outcomes: ${Object.entries(summary.outcomes).map(([k, c]) => `${k} ${c}`).join(', ')}`,
     `ended in: ${countBasins(basin, labels)}`,
   ];
+}
+
+/**
+ * The steps-to-tolerance line: median and quartiles over the starts that reached the tolerance, how
+ * many did, and what it was measured against (the study's target, fixed when it started).
+ */
+function toleranceText(summary: MultiStartSummary, target: ToleranceTarget | null): string {
+  if (!target) return 'not measured: the surface has no known minimum to measure the tolerance from';
+  const s = summary.stepsToTolerance;
+  const against = `loss within ${target.tolerance} of the known minimum's ${+target.value.toPrecision(6)}`;
+  if (s.reached === 0) return `no start reached it (${against})`;
+  return `median ${+s.median.toPrecision(4)}, quartiles ${+s.q1.toPrecision(4)} / ${+s.q3.toPrecision(4)}, over the ${s.reached} of ${summary.runs} starts that reached it (${against})`;
 }
 
 function countBasins(basin: Int32Array, labels: readonly string[]): string {

@@ -7,6 +7,7 @@ import { download } from '../export/download';
 import { useMainThreadSurface } from '../view/use-surface';
 import { runStyle } from '../plot';
 import { drawRateChart, type RateCurve } from './rate-chart';
+import { studyTarget } from './basin-inputs';
 import { useStudy, useStudyStore } from './study-context';
 import { FigureExport, sizeOf } from '../figure/FigureExport';
 import { rateSweepFigure } from '../figure/views/study-figures';
@@ -28,6 +29,7 @@ export function RateSweepPanel() {
   const selected = useApp((s) => s.selectedRunId);
   const surface = useApp((s) => s.workspace.surface);
   const info = useApp((s) => s.surfaceInfo);
+  const tolerance = useApp((s) => s.workspace.tolerance);
   const studySurface = useMainThreadSurface(all.surface ?? surface);
   const [chosen, setChosen] = useState<string[]>(() => runs.slice(0, 3).map((r) => r.id));
   const actions = useActions();
@@ -64,10 +66,10 @@ export function RateSweepPanel() {
       start: startRun.settings.start.slice(), range, count,
     };
     actions.setStudy(s);
-    study.start({ surface, variables: info.variables, spec: s, configLabel: startRun.label, known: [], basinRadius: 1 });
+    study.start({ surface, variables: info.variables, spec: s, configLabel: startRun.label, known: [], basinRadius: 1, target: studyTarget(info.knownPoints, tolerance) });
   };
   const runSetUp = () => {
-    if (setUp) study.start({ surface, variables: info.variables, spec: setUp, configLabel: 'the set-up sweep', known: [], basinRadius: 1 });
+    if (setUp) study.start({ surface, variables: info.variables, spec: setUp, configLabel: 'the set-up sweep', known: [], basinRadius: 1, target: studyTarget(info.knownPoints, tolerance) });
   };
 
   const rates = spec ? logSpaced(spec.range[0], spec.range[1], spec.count) : null;

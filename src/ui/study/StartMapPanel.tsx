@@ -6,10 +6,10 @@ import { studyOfKind } from '../../store/app-store';
 import { useActions, useApp } from '../app-context';
 import { download } from '../export/download';
 import { useMainThreadSurface } from '../view/use-surface';
-import { mapLegend, paintStartMap } from './paint-map';
+import { mapLegend, mapShade, paintStartMap } from './paint-map';
 import { drawMapCells, drawMapMinima } from './start-map-drawing';
 import { basinColour, cssColour, OUTCOME_COLOURS } from './study-colours';
-import { basinRadiusOf, knownMinima } from './basin-inputs';
+import { basinRadiusOf, knownMinima, studyTarget } from './basin-inputs';
 import { useStudy, useStudyStore } from './study-context';
 import { FigureExport, sizeOf } from '../figure/FigureExport';
 import { startMapFigure } from '../figure/views/study-figures';
@@ -31,13 +31,14 @@ export function StartMapPanel() {
   const mine = all.spec?.kind === 'start-map';
   const state = mine
     ? { ...all, spec: all.spec as StartMapSpec }
-    : { ...all, spec: null, cells: null, status: 'idle' as const, total: 0, done: 0, message: null, known: [] };
+    : { ...all, spec: null, cells: null, status: 'idle' as const, total: 0, done: 0, message: null, known: [], target: null };
   const runs = useApp((s) => s.workspace.runs);
   const selected = useApp((s) => s.selectedRunId);
   const view = useShownView();
   const slice = useApp((s) => s.workspace.slice);
   const surface = useApp((s) => s.workspace.surface);
   const info = useApp((s) => s.surfaceInfo);
+  const tolerance = useApp((s) => s.workspace.tolerance);
   const actions = useActions();
   const builtSurface = useMainThreadSurface(state.surface ?? surface);
   const setUp = useApp((s) => studyOfKind(s.workspace.studies, 'start-map'));
@@ -63,11 +64,11 @@ export function StartMapPanel() {
       box: { a: [view.a[0], view.a[1]], b: [view.b[0], view.b[1]] }, axes: slice.axes, base: slice.at.slice(), resolution,
     };
     actions.setStudy(spec);
-    study.start({ surface, variables: info.variables, spec, configLabel: config.label, known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view) });
+    study.start({ surface, variables: info.variables, spec, configLabel: config.label, known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(view), target: studyTarget(info.knownPoints, tolerance) });
   };
   const runSetUp = () => {
     if (!setUp) return;
-    study.start({ surface, variables: info.variables, spec: setUp, configLabel: 'the set-up map', known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(setUp.box) });
+    study.start({ surface, variables: info.variables, spec: setUp, configLabel: 'the set-up map', known: knownMinima(info.knownPoints), basinRadius: basinRadiusOf(setUp.box), target: studyTarget(info.knownPoints, tolerance) });
   };
 
   useEffect(() => {
@@ -78,9 +79,9 @@ export function StartMapPanel() {
     if (!state.cells || !state.spec) return;
     const r = state.spec.resolution;
     const size = { width: c.width, height: c.height };
-    drawMapCells(ctx, paintStartMap(state.cells, r, state.spec.stop.maxSteps), r, size);
+    drawMapCells(ctx, paintStartMap(state.cells, r, state.spec.stop.maxSteps, state.target !== null), r, size);
     drawMapMinima(ctx, state.known, state.spec.box, state.spec.axes, size);
-  }, [state.version, state.cells, state.spec, state.known]);
+  }, [state.version, state.cells, state.spec, state.known, state.target]);
 
   const openCell = (e: React.MouseEvent<HTMLCanvasElement>) => {
     const spec = state.spec;
@@ -130,7 +131,7 @@ export function StartMapPanel() {
         <button type="button" onClick={exportCsv} disabled={!state.cells || state.done === 0}>Map CSV</button>
         <FigureExport
           name="Start-point map" fileName="fall-line-start-map" disabled={!state.cells || state.done === 0} screenSize={() => sizeOf(body.current)}
-          figure={() => state.cells && state.spec ? startMapFigure({ spec: state.spec, cells: state.cells, known: state.known, legend, labels: { a: xName, b: yName }, configLabel: state.configLabel, surfaceLabel: info.label }) : null}
+          figure={() => state.cells && state.spec ? startMapFigure({ spec: state.spec, cells: state.cells, known: state.known, target: state.target, legend, labels: { a: xName, b: yName }, configLabel: state.configLabel, surfaceLabel: info.label }) : null}
         />
         {state.total > 0 && (
           <span className="study-progress" data-status={state.status}>
@@ -154,7 +155,7 @@ export function StartMapPanel() {
           )}
         </figure>
         <table className="study-legend" data-testid="start-map-legend">
-          <caption>Where the runs ended ({state.spec?.stop.maxSteps ?? '–'} steps at most; lighter = more steps)</caption>
+          <caption data-testid="start-map-shade">Where the runs ended ({mapShade(state.target, state.spec?.stop.maxSteps ?? null)})</caption>
           <thead><tr><th scope="col">colour</th><th scope="col">end</th><th scope="col">starts</th><th scope="col">share</th></tr></thead>
           <tbody>
             {legend.map((row) => (

@@ -1,4 +1,4 @@
-import { OUTCOME_KINDS } from '../../engine';
+import { OUTCOME_KINDS, type ToleranceTarget } from '../../engine';
 import type { StudyCellsState } from '../../store/study-store';
 import { cellColour } from './study-colours';
 
@@ -7,9 +7,11 @@ import { cellColour } from './study-colours';
  * (the second axis grows upwards, as on the surface view). While the map fills in coarse-to-fine
  * order (sweep/grid.ts coarseToFineOrder), a cell not yet run takes the colour of the coarsest-level
  * cell at the corner of the block it lies in, so a fraction of the work already gives a full, blocky
- * picture; cells with nothing yet stay clear.
+ * picture; cells with nothing yet stay clear. A basin's colour is shaded by steps to tolerance when the
+ * study measured them (`byTolerance`: a run that never came within the tolerance shades as the step
+ * limit), else by the steps the run took; mapShade says which in words.
  */
-export function paintStartMap(cells: StudyCellsState, resolution: number, maxSteps: number): Uint8ClampedArray<ArrayBuffer> {
+export function paintStartMap(cells: StudyCellsState, resolution: number, maxSteps: number, byTolerance: boolean): Uint8ClampedArray<ArrayBuffer> {
   const out = new Uint8ClampedArray(resolution * resolution * 4);
   const top = 2 ** Math.floor(Math.log2(resolution));
   for (let j = 0; j < resolution; j++)
@@ -17,7 +19,8 @@ export function paintStartMap(cells: StudyCellsState, resolution: number, maxSte
       let index = i + j * resolution;
       for (let s = 2; !cells.filled[index] && s <= top; s *= 2) index = (i - (i % s)) + (j - (j % s)) * resolution;
       if (!cells.filled[index]) continue;
-      const [r, g, b] = cellColour(cells.kind[index], cells.basin[index], cells.steps[index], maxSteps);
+      const shade = byTolerance ? (cells.stepsToTolerance[index] >= 0 ? cells.stepsToTolerance[index] : maxSteps) : cells.steps[index];
+      const [r, g, b] = cellColour(cells.kind[index], cells.basin[index], shade, maxSteps);
       const p = (i + (resolution - 1 - j) * resolution) * 4;
       out[p] = r;
       out[p + 1] = g;
@@ -25,6 +28,13 @@ export function paintStartMap(cells: StudyCellsState, resolution: number, maxSte
       out[p + 3] = 255;
     }
   return out;
+}
+
+/** What the map's shade means, for its legend and figure key: steps to tolerance, or steps where there is no target. */
+export function mapShade(target: ToleranceTarget | null, maxSteps: number | null): string {
+  const limit = maxSteps === null ? '–' : String(maxSteps);
+  if (!target) return `${limit} steps at most; lighter = more steps taken (no known minimum, so no steps to tolerance)`;
+  return `${limit} steps at most; lighter = more steps to tolerance, to a loss within ${target.tolerance} of the known minimum's ${+target.value.toPrecision(6)}; lightest = never within it`;
 }
 
 /** Rows of the legend: each basin and each other outcome present, with its count and share. */

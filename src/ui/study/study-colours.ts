@@ -4,8 +4,9 @@ import { OUTCOME_KINDS, type OutcomeKind } from '../../engine';
 /**
  * Colours of a start-point map. Basins get hues spread by the golden angle (137.5 degrees apart, so
  * any number of basins stay distinguishable from their neighbours in the list) at a middle lightness;
- * a cell is lightened towards white with the steps its run took (lighter = slower: sqrt(steps / max
- * steps) of the way to 60% white). Runs that ended in no basin are coloured by their outcome.
+ * a cell is lightened towards white with its shade steps (lighter = slower: sqrt(steps / max steps) of
+ * the way to 60% white; paint-map.ts passes steps to tolerance where the study measured them, else the
+ * steps the run took). Runs that ended in no basin are coloured by their outcome.
  */
 export type Rgb = [number, number, number];
 

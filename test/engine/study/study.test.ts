@@ -105,8 +105,21 @@ describe('summariseStarts', () => {
 
   it('success = converged to within the tolerance of the known minimum; saddles and the step limit never count', () => {
     const s = summariseStarts([r('converged', 1e-9, 10), r('converged', 0.5, null), r('saddle', 1e-9, 4), r('step-limit', 1e-9, 30)], 1e-6, 0);
-    expect(s).toMatchObject({ runs: 4, converged: 2, successes: 1, successRate: 0.25, target: { loss: 0, source: 'known minimum' }, medianStepsToTolerance: 10, outcomes: { converged: 2, saddle: 1, 'step-limit': 1 } });
+    expect(s).toMatchObject({ runs: 4, converged: 2, successes: 1, successRate: 0.25, target: { loss: 0, source: 'known minimum' }, outcomes: { converged: 2, saddle: 1, 'step-limit': 1 } });
     expect(s.finalLoss).toMatchObject({ min: 1e-9, max: 0.5, finite: 4 });
+    // Steps to tolerance by hand: 3 of the 4 reached it, at 10, 4 and 30; sorted 4, 10, 30, so (type 7
+    // quantiles) q1 = 4 + 0.5 (10 - 4) = 7, median 10, q3 = 10 + 0.5 (30 - 10) = 20.
+    expect(s.stepsToTolerance).toEqual({ reached: 3, q1: 7, median: 10, q3: 20 });
+  });
+
+  it('steps to tolerance count every start that reached it, whatever its outcome, and none is NaN', () => {
+    // Reached at 12, 3, 50, 7, 20 (sorted 3, 7, 12, 20, 50: q1 7, median 12, q3 20 exactly); 2 never.
+    const steps = [12, null, 3, 50, null, 7, 20];
+    const s = summariseStarts(steps.map((k, i) => r(i % 2 ? 'converged' : 'step-limit', 1, k)), 1e-6, 0);
+    expect(s.stepsToTolerance).toEqual({ reached: 5, q1: 7, median: 12, q3: 20 });
+    const none = summariseStarts([r('converged', 1, null)], 1e-6, 0).stepsToTolerance;
+    expect(none.reached).toBe(0);
+    expect(none.median).toBeNaN();
   });
 
   it('without a known minimum, the best converged end point is the target (and says so)', () => {

@@ -101,11 +101,25 @@ describe('Sweep fused kernel: the same bits as the block path and as RunCursor',
     for (const optimizer of specs) expectSameBits({ surface: himmelblau, optimizer, stop, starts: gridStarts(-5, 5, -5, 5, 9), lossTolerance: 1e-3 });
   });
 
+  it('escaping runs: the distance milestones (recorded outside the kernel) are the cursor\'s, ending at a power of 2 or not', () => {
+    // A dome: runs slide off faster and faster, and the escape judgement reads the distances from
+    // the start at steps 2^k (end-state.ts escapeDetail, quoted in the outcome's detail).
+    const plane = buildSurface({ kind: 'formula', text: '-(x^2 + 0.5*y^2)' });
+    for (const maxSteps of [256, 300]) {
+      const a = expectSameBits({ surface: plane, optimizer: spec('gd', 0.01), stop: { maxSteps }, starts: gridStarts(-1, 1, -1, 1, 4) });
+      expect(a.outcomes.filter((o) => o!.kind === 'escaping').length, a.outcomes.map((o) => o!.kind).join()).toBeGreaterThanOrEqual(8);
+    }
+  });
+
   it('with stop rules that fire mid-run: loss change, gradient norm, loss tolerance, blow-up, non-finite and leaving the domain', () => {
     const gd = spec('gd', 0.001);
     const a = expectSameBits({ surface: rosenbrock, optimizer: spec('adam', 0.02), stop: { maxSteps: 2000, lossChangeTolerance: 1e-10, lossChangePatience: 5 }, starts: gridStarts(-2, 2, -1, 3, 6), lossTolerance: 1e-4 });
     expect(a.outcomes.some((o) => o!.step < 2000)).toBe(true);
     expect(a.stepsToTolerance.some((s) => s > 0)).toBe(true);
+    // A target other than 0 (loss - target <= tolerance): from 0.5 every run gets there no later than from 0, some sooner.
+    const shifted = expectSameBits({ surface: rosenbrock, optimizer: spec('adam', 0.02), stop: { maxSteps: 2000, lossChangeTolerance: 1e-10, lossChangePatience: 5 }, starts: gridStarts(-2, 2, -1, 3, 6), lossTolerance: 1e-4, lossTarget: 0.5 });
+    expect(shifted.stepsToTolerance.every((s, r) => a.stepsToTolerance[r] < 0 || (s >= 0 && s <= a.stepsToTolerance[r]))).toBe(true);
+    expect(shifted.stepsToTolerance.some((s, r) => s >= 0 && s < a.stepsToTolerance[r])).toBe(true);
     const b = expectSameBits({ surface: himmelblau, optimizer: spec('gd', 0.01), stop: { maxSteps: 1000, gradientNormTolerance: 1e-6 }, starts: gridStarts(-5, 5, -5, 5, 6) });
     expect(b.outcomes.filter((o) => o!.kind === 'converged' && o!.step < 1000).length).toBeGreaterThan(0);
     // Large rates on the quartic: coordinates overflow (non-finite) or the loss blows up; some runs stay.

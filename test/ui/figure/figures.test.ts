@@ -8,7 +8,7 @@ import { runStyle } from '../../../src/ui/plot';
 
 const idle: StudyState = {
   status: 'idle', message: null, requestId: null, spec: null, surface: null, variables: [], configLabel: '',
-  done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], bands: null, thresholds: null, version: 0,
+  done: 0, total: 0, elapsedMs: 0, cells: null, basinLabels: [], known: [], target: null, bands: null, thresholds: null, version: 0,
 };
 const bands = [Float64Array.of(4, 2, 1), Float64Array.of(5, 3, 2), Float64Array.of(6, 4, 3)];
 const multiStart: StudyState = {

@@ -4,7 +4,7 @@
  * legend rows, curves, summary lines), so a figure holds exactly the panel's numbers; the plane
  * plots (start-point map, critical points) get axes over the study's box.
  */
-import { OUTCOME_KINDS, type CriticalPoint, type KnownPoint as BasinPoint, type StartMapSpec } from '../../../engine';
+import { OUTCOME_KINDS, type CriticalPoint, type KnownPoint as BasinPoint, type StartMapSpec, type ToleranceTarget } from '../../../engine';
 import type { StudyCellsState } from '../../../store/study-store';
 import type { LossAxis } from '../../chart/loss-chart';
 import { AXES_MARGIN, drawAxes, viewTransform, type AxisLabels, type PixelSize } from '../../plot';
@@ -12,7 +12,7 @@ import type { ViewBox } from '../../../engine';
 import { drawBandChart } from '../../study/band-chart';
 import { BAND_STYLE } from '../../chart/loss-chart';
 import { CRITICAL_GLYPHS, drawCriticalPoints, glyphOf } from '../../study/critical-chart';
-import { paintStartMap, type LegendRow } from '../../study/paint-map';
+import { mapShade, paintStartMap, type LegendRow } from '../../study/paint-map';
 import { drawRateChart, type RateCurve } from '../../study/rate-chart';
 import { drawSharpnessChart, SHARPNESS_STYLE } from '../../study/sharpness-chart';
 import { drawMapCells, drawMapMinima } from '../../study/start-map-drawing';
@@ -44,6 +44,8 @@ export interface StartMapFigureInput {
   spec: StartMapSpec;
   cells: StudyCellsState;
   known: readonly BasinPoint[];
+  /** What the cells' steps to tolerance were measured against (null: not measured, shaded by steps). */
+  target: ToleranceTarget | null;
   legend: readonly LegendRow[];
   labels: AxisLabels;
   configLabel: string;
@@ -60,11 +62,11 @@ export function startMapFigure(m: StartMapFigureInput): Figure {
   const r = m.spec.resolution;
   return {
     title: `Start-point map of “${m.configLabel}” on ${m.surfaceLabel}, ${r} × ${r} starts`,
-    keyHeading: `Where the runs ended (${m.spec.stop.maxSteps} steps at most; lighter = more steps)`,
+    keyHeading: `Where the runs ended (${mapShade(m.target, m.spec.stop.maxSteps)})`,
     key,
     drawBody: (ctx, size) =>
       drawPlanePlot(ctx, size, m.spec.box, m.labels, (frame) => {
-        drawMapCells(ctx, paintStartMap(m.cells, r, m.spec.stop.maxSteps), r, frame);
+        drawMapCells(ctx, paintStartMap(m.cells, r, m.spec.stop.maxSteps, m.target !== null), r, frame);
         drawMapMinima(ctx, m.known, m.spec.box, m.spec.axes, frame);
       }),
   };
