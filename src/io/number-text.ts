@@ -11,7 +11,15 @@ export function formatValue(v: number): string {
   let p = 1;
   while (p < 12 && Number(v.toPrecision(p)) !== v) p++;
   const m = Math.abs(v);
-  return asciiMinus(format(m >= 1e-4 && m < 1e6 ? `.${p}~r` : `.${Math.max(0, p - 1)}~e`)(v));
+  return asciiMinus(formatOf(m >= 1e-4 && m < 1e6 ? `.${p}~r` : `.${Math.max(0, p - 1)}~e`)(v));
+}
+
+/** d3 formatters by specifier (at most 24 of them), so a table of numbers parses each specifier once. */
+const FORMATTERS = new Map<string, (v: number) => string>();
+function formatOf(specifier: string): (v: number) => string {
+  let f = FORMATTERS.get(specifier);
+  if (!f) FORMATTERS.set(specifier, (f = format(specifier)));
+  return f;
 }
 
 /** d3-format writes the Unicode minus sign; labels use the ASCII hyphen-minus so they parse as numbers. */

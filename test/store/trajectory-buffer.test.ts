@@ -21,8 +21,11 @@ describe('trajectory buffers on the page', () => {
     expect(keptRowsLimit(1185)).toBe(2 * Math.floor(KEPT_BYTES / (8 * 1189) / 2));
     expect(upfrontCapacity(3, 2)).toBe(16);
     const b = new TrajectoryBuffer(1185, upfrontCapacity(1185, 3000));
+    expect(b.points.length).toBe(0); // reserved with the first batch, not at launch
+    b.append(batch(0, 250, 1185));
     const points = b.points;
-    for (let s = 0; s <= 3000; s += 250) b.append(batch(s, Math.min(250, 3001 - s), 1185));
+    expect(points.length).toBe(3001 * 1185);
+    for (let s = 250; s <= 3000; s += 250) b.append(batch(s, Math.min(250, 3001 - s), 1185));
     expect(b.count).toBe(3001);
     expect(b.points).toBe(points);
     expect(b.point(3000)[1184]).toBe(3000 * 1185 + 1184);
