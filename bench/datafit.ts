@@ -1,6 +1,6 @@
 import { gridA, gridB, hasParameterGroups, randomPlane, sampleGrid, type GridRequest } from '../src/engine';
 import { buildSurface, designFor, linearLeastSquares, type DataFitSpec } from '../src/problems';
-import { bestMs, sink } from './measure';
+import { bestMsInTurn, sink } from './measure';
 
 const SIDE = 128;
 const ROWS = 1000;
@@ -93,9 +93,7 @@ export function datafitGridVsHandwritten() {
   for (let k = 0; k < engineOut.length; k++)
     for (const other of [handOut, genericOut])
       if (!(Math.abs(engineOut[k] - other[k]) <= 1e-12 * (1 + Math.abs(other[k])))) throw new Error(`bench: data-fit grid values differ at ${k}: ${engineOut[k]} vs ${other[k]}`);
-  const engineMs = bestMs(engine);
-  const handMs = bestMs(hand);
-  const genericMs = bestMs(handGeneric);
+  const [engineMs, handMs, genericMs] = bestMsInTurn([engine, hand, handGeneric]);
   return {
     surface: 'linear regression, 2 inputs, seed-pods',
     rows,

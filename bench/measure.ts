@@ -30,16 +30,19 @@ export function opsPerMs(op: (k: number) => number, minMs = 150, rounds = 5): nu
 }
 
 /**
- * Wall time of one call of `f` in milliseconds: the least of `rounds` calls (the least disturbed by the
- * other process sharing the CPU). For whole-grid runs long enough that one call is a sound sample.
+ * Wall times in milliseconds of several calls measured in turn (f0, f1, ..., f0, f1, ...): the least
+ * of `rounds` calls of each, for whole-grid or whole-sweep calls long enough that one call is a sound
+ * sample. Two sides timed one after the other see different spells of this shared 2-core machine's
+ * load (a slow spell of a second or two can halve one side only); taken in turn, both see the same.
  */
-export function bestMs(f: () => void, rounds = 7): number {
-  let ms = Infinity;
-  for (let r = 0; r < rounds; r++) {
-    const t0 = performance.now();
-    f();
-    ms = Math.min(ms, performance.now() - t0);
-  }
+export function bestMsInTurn(fs: readonly (() => void)[], rounds = 7): number[] {
+  const ms = fs.map(() => Infinity);
+  for (let r = 0; r < rounds; r++)
+    fs.forEach((f, i) => {
+      const t0 = performance.now();
+      f();
+      ms[i] = Math.min(ms[i], performance.now() - t0);
+    });
   return ms;
 }
 

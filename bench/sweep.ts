@@ -1,7 +1,7 @@
 import { buildOptimizer, defaultOptimizerSpec, power, RunCursor, Sweep } from '../src/engine';
 import { buildSurface } from '../src/problems';
 import { handAdamRosenbrock } from './handwritten';
-import { bestMs, sink } from './measure';
+import { bestMsInTurn, sink } from './measure';
 
 const STEPS = 500;
 const LR = 0.01;
@@ -75,9 +75,10 @@ export function sweepBench() {
   const a = engineSweep(small);
   const b = handSweep(small);
   for (let k = 0; k < a.length; k++) if (!(Math.abs(a[k] - b[k]) <= 1e-9 * (1 + Math.abs(b[k])))) throw new Error(`bench: sweep and hand-written Adam differ at ${k}: ${a[k]} vs ${b[k]}`);
-  const engineMs = bestMs(() => (sink.value += engineSweep(small)[7]), 5);
-  const handMs = bestMs(() => (sink.value += handSweep(small)[7]), 5);
-  const largeMs = bestMs(() => (sink.value += engineSweep(large)[7]), 3);
+  const [engineMs, handMs, largeMs] = bestMsInTurn(
+    [() => (sink.value += engineSweep(small)[7]), () => (sink.value += handSweep(small)[7]), () => (sink.value += engineSweep(large)[7])],
+    7,
+  );
   const steps = (small.length / 2) * STEPS;
   return {
     engineMs,
@@ -107,7 +108,6 @@ function runLoopBench() {
     return cursor.state.x[0];
   };
   const byHand = () => handAdamRosenbrock(RUN_STEPS, 0.001, power);
-  const cursorMs = bestMs(() => (sink.value += viaCursor()), 5);
-  const handMs = bestMs(() => (sink.value += byHand()), 5);
+  const [cursorMs, handMs] = bestMsInTurn([() => (sink.value += viaCursor()), () => (sink.value += byHand())], 9);
   return { runLoopStepsPerS: (RUN_STEPS / cursorMs) * 1000, runLoopHandwrittenStepsPerS: (RUN_STEPS / handMs) * 1000, runLoopRatio: handMs / cursorMs };
 }
