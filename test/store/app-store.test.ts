@@ -27,6 +27,29 @@ describe('app store with the real worker handler', () => {
     expect(s.grid.values!.length).toBe(s.workspace.display.resolution ** 2);
   });
 
+  it("a new surface drops the old surface's grid at once; a new constant keeps it until the new grid comes", () => {
+    const t = setup();
+    t.actions.setPace('max');
+    t.drain();
+    const rosenbrock = t.state().grid.values;
+    expect(rosenbrock).not.toBeNull();
+    // The demo is Rosenbrock with a constant: a new value is the same surface, so the old contours stay up.
+    const surface = t.state().workspace.surface;
+    t.actions.setConstant(Object.keys(surface.constants ?? { a: 1 })[0], 2);
+    expect(t.state().grid.values).not.toBeNull();
+    t.drain();
+    const seen: (Float64Array | null)[] = [];
+    const stop = t.app.store.subscribe((s) => seen.push(s.grid.values));
+    t.actions.setSurface({ kind: 'catalogue', id: 'himmelblau' });
+    t.drain();
+    stop();
+    // The first change the store makes for the new surface shows no grid: none of Rosenbrock's values.
+    expect(seen[0]).toBeNull();
+    expect(seen).not.toContain(rosenbrock);
+    expect(t.state().grid.phase).toBe('ready');
+    expect(t.state().grid.values!.length).toBe(t.state().workspace.display.resolution ** 2);
+  });
+
   it('drops batches of a superseded launch: editing a run restarts it from step 0', () => {
     const t = setup();
     t.actions.setPace(1000);

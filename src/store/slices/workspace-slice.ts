@@ -22,7 +22,10 @@ export function workspaceSlice(ctx: SliceContext): WorkspaceActions {
     const view = keepView && sameShape ? s.workspace.view : viewFor(info.view, slice.axes);
     // A new surface starts from its own equal-scale default (on for two-variable test functions).
     const { equalScale: _choice, ...display } = s.workspace.display;
-    setWorkspace({ surface: spec, slice, view, runs, ...(keepView ? {} : { display }) }, { surfaceInfo: info, surfaceError: null, table: sameShape ? s.table : defaultTable() });
+    // A new surface drops the old one's grid, so no view shows the old contours under the new axes
+    // while the new grid is sampled (a new constant keeps it: the same surface, slightly changed).
+    const grid = keepView ? s.grid : { ...s.grid, request: null, values: null, stage: null };
+    setWorkspace({ surface: spec, slice, view, runs, ...(keepView ? {} : { display }) }, { surfaceInfo: info, surfaceError: null, table: sameShape ? s.table : defaultTable(), grid });
     ctx.updateReference();
     ctx.launchAll();
     ctx.requestGrid();

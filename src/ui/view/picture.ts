@@ -77,13 +77,17 @@ export function buildPicture(grid: GridState, display: DisplaySettings, knownMin
   return promise;
 }
 
-/** The newest finished picture for the current grid and display; the previous one while a new one is built. */
+/**
+ * The newest finished picture for the current grid and display; the previous one while a new one is
+ * built for the same surface, none while a new surface has no grid yet.
+ */
 export function useSurfacePicture(grid: GridState, display: DisplaySettings, knownMinimum?: number): SurfacePicture | null {
   const [picture, setPicture] = useState<SurfacePicture | null>(() => cachedPicture(grid, display, knownMinimum));
   useEffect(() => {
     let live = true;
     const ready = cachedPicture(grid, display, knownMinimum);
-    if (ready) setPicture(ready);
+    if (!grid.values) setPicture(null); // the surface changed: its old picture is not this surface's
+    else if (ready) setPicture(ready);
     else buildPicture(grid, display, knownMinimum)?.then((p) => live && setPicture(p));
     return () => {
       live = false;
