@@ -94,7 +94,7 @@ test('main-thread long tasks while 8 runs of 5,000 steps stream', async ({ page 
  */
 const FIRST_PICTURE_TARGET_MS = 1000;
 const FIRST_PICTURE_BOUND_MS = 3000;
-/** What the 32-32 network case holds today (target 50 ms, not yet met: see the test). */
+/** What the 32-32 network case holds today (target 50 ms, met at the click but not yet throughout: see the test). */
 const NETWORK_TASK_BOUND_MS = 250;
 
 test('a 32-32 network on the wave data: no frozen page, a first picture within a second', async ({ page }) => {
@@ -173,9 +173,10 @@ test('a 32-32 network on the wave data: no frozen page, a first picture within a
   const previous = existsSync(path) ? JSON.parse(readFileSync(path, 'utf8')) : {};
   writeFileSync(path, JSON.stringify({ ...previous, ...result }, null, 2));
   expect(result.network_first_picture_ms).toBeLessThan(FIRST_PICTURE_BOUND_MS);
-  // The issue's target is no task over 50 ms; this machine measures one task of about 100 ms, at the
-  // click that applies the data fit (mostly the browser's style and layout of the new page). Until that
-  // is met the test holds the page to what it achieves, so a regression to the old seconds-long tasks
-  // fails, and perf.json records the number.
+  // The issue's target is no task over 50 ms. Since a new surface no longer repaints the old one's
+  // picture, the click and its next frames stay under it here; what is left are one or two tasks of
+  // 50-65 ms while the pool samples the grid, when the page's thread shares this 2-core machine with
+  // three busy workers. The bound holds the page to what it achieves, so a regression to the old
+  // seconds-long tasks fails, and perf.json records the number.
   expect(longest).toBeLessThan(NETWORK_TASK_BOUND_MS);
 });
