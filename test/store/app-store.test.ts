@@ -33,9 +33,9 @@ describe('app store with the real worker handler', () => {
     t.drain();
     const rosenbrock = t.state().grid.values;
     expect(rosenbrock).not.toBeNull();
-    // The demo is Rosenbrock with a constant: a new value is the same surface, so the old contours stay up.
-    const surface = t.state().workspace.surface;
-    t.actions.setConstant(Object.keys(surface.constants ?? { a: 1 })[0], 2);
+    // The demo is Rosenbrock: a new value of its constant a is the same surface, so the old contours stay up.
+    expect(t.state().workspace.surface).toMatchObject({ kind: 'catalogue', id: 'rosenbrock' });
+    t.actions.setConstant('a', 2);
     expect(t.state().grid.values).not.toBeNull();
     t.drain();
     const seen: (Float64Array | null)[] = [];
